@@ -1,0 +1,94 @@
+/**
+ * Server-side chart rendering: Vega-Lite spec → Vega → headless SVG string, made accessible and
+ * safe to inline many times on one page.
+ */
+import * as vega from 'vega';
+import { compile, type TopLevelSpec } from 'vega-lite';
+
+/** The one font for every chart, SVG and PNG alike (installed by fonts-dejavu-core). */
+export const CHART_FONT = 'DejaVu Sans';
+
+export interface DataTable {
+  caption: string;
+  columns: string[];
+  rows: Array<Array<string | number>>;
+}
+
+export interface ChartDefinition {
+  /** Unique on the site; used for element ids and download file names. */
+  id: string;
+  title: string;
+  /** One or two sentences: what the chart shows and its main point. */
+  description: string;
+  spec: TopLevelSpec;
+  table: DataTable;
+}
+
+export interface RenderedChart {
+  id: string;
+  title: string;
+  description: string;
+  svg: string;
+  specJson: string;
+  csv: string;
+  table: DataTable;
+}
+
+const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+
+/** RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled. */
+export function toCsv(table: DataTable): string {
+  const field = (value: string | number) => {
+    const text = String(value);
+    return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+  };
+  return [table.columns, ...table.rows].map((row) => row.map(field).join(',')).join('\r\n') + '\r\n';
+}
+
+export async function renderChart(chart: ChartDefinition): Promise<RenderedChart> {
+  const spec: TopLevelSpec = {
+    ...chart.spec,
+    config: { font: CHART_FONT, ...(chart.spec.config ?? {}) },
+  } as TopLevelSpec;
+  const compiled = compile(spec).spec;
+  // Vega numbers clip paths and gradients with process-wide counters: reset them so each chart's
+  // ids depend only on the chart, then prefix them so charts on one page never collide.
+  vega.resetSVGDefIds();
+  const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
+  const raw = await view.toSVG();
+  view.finalize();
+  return {
+    id: chart.id,
+    title: chart.title,
+    description: chart.description,
+    svg: accessibleSvg(prefixIds(raw, chart.id), chart),
+    specJson: JSON.stringify(spec, null, 2) + '\n',
+    csv: toCsv(chart.table),
+    table: chart.table,
+  };
+}
+
+function prefixIds(svg: string, prefix: string): string {
+  return svg
+    .replace(/\bid="([^"]+)"/g, (_, id: string) => `id="${prefix}-${id}"`)
+    .replace(/url\(#([^)]+)\)/g, (_, id: string) => `url(#${prefix}-${id})`)
+    .replace(/href="#([^"]+)"/g, (_, id: string) => `href="#${prefix}-${id}"`);
+}
+
+/**
+ * The chart is one image with a name and a description; its figures are in the data table below
+ * it. Vega's per-mark roles and labels are removed so assistive technology meets one image, not
+ * hundreds of unlabelled marks.
+ */
+function accessibleSvg(svg: string, chart: ChartDefinition): string {
+  const titleId = `${chart.id}-title`;
+  const descId = `${chart.id}-desc`;
+  const ariaAttributes = /\s(?:role|aria-roledescription|aria-label|aria-hidden)="[^"]*"/g;
+  const quiet = svg.replace(/<([a-z]+)\b([^>]*)>/g, (tag, name: string, attributes: string) => (name === 'svg' ? tag : `<${name}${attributes.replace(ariaAttributes, '')}>`));
+  return quiet.replace(/^<svg\b([^>]*)>/, (_, attributes: string) => {
+    // The headless renderer marks the root as a graphics document; one image with a name and a
+    // description is what a screen-reader user needs here.
+    const kept = attributes.replace(ariaAttributes, '');
+    return `<svg${kept} role="img" aria-labelledby="${titleId}" aria-describedby="${descId}" style="max-width:100%;height:auto"><title id="${titleId}">${escapeXml(chart.title)}</title><desc id="${descId}">${escapeXml(chart.description)}</desc>`;
+  });
+}

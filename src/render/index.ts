@@ -1,0 +1,77 @@
+/**
+ * Stage 4, render: Eleventy and the Nunjucks templates turn the model and rendered charts into
+ * pages inside a given folder, and the downloads are written beside them.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import Eleventy from '@11ty/eleventy';
+import type { RenderedChart } from '../charts/index.ts';
+import type { BulletinModel } from '../model/index.ts';
+import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatPercent } from '../text/format.ts';
+
+const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
+
+export interface SiteFile {
+  /** Path inside the site folder, forward slashes. */
+  path: string;
+  content: string;
+}
+
+/** Everything the templates read, computed here so templates only place it. */
+export function pageData(model: BulletinModel, charts: Record<string, RenderedChart>) {
+  const messages = loadMessages(model.meta.locale);
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
+  const pct = (value: number) => formatPercent(model.meta.locale, value);
+  const issue = model.meta.issuePath;
+  const comparison = model.surfaceWater.bulletin;
+  return {
+    bulletin: model,
+    charts,
+    t: messages,
+    navigation: [
+      { key: 'home', href: '/', label: t('site.home') },
+      { key: 'overview', href: issue, label: t('page.overview') },
+      { key: 'surfaceWater', href: `${issue}surface-water/`, label: t('page.surfaceWater') },
+      { key: 'dataMethods', href: `${issue}data-and-methods/`, label: t('page.dataMethods') },
+    ],
+    footer: t('site.footer', { publisher: model.meta.publisher, version: model.meta.toolVersion }),
+    noticeLabels: { notice: 'Note', caveat: 'Caveat', caution: 'Caution' },
+    figures: {
+      percentOfBaseline: comparison.kind === 'stated' ? pct(comparison.percentOfBaseline) : '',
+      band: comparison.kind === 'stated' ? t(`band.${comparison.bandKey}`) : '',
+      coverage: pct(comparison.kind === 'low-coverage' ? comparison.coveragePercent : comparison.kind === 'stated' ? comparison.coveragePercent : 0),
+      minObservedShare: pct(100 * model.meta.minObservedShare),
+      minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
+    },
+  };
+}
+
+/** The files written beside the pages: the model and each chart's data and specification. */
+export function downloadFiles(model: BulletinModel, charts: Record<string, RenderedChart>): SiteFile[] {
+  const issue = model.meta.issuePath.replace(/^\//, '');
+  const files: SiteFile[] = [{ path: `${issue}data/bulletin-model.json`, content: JSON.stringify(model, null, 2) + '\n' }];
+  for (const chart of Object.values(charts)) {
+    files.push({ path: `${issue}charts/${chart.id}.csv`, content: chart.csv });
+    files.push({ path: `${issue}charts/${chart.id}.vl.json`, content: chart.specJson });
+  }
+  return files;
+}
+
+export async function renderSite(model: BulletinModel, charts: Record<string, RenderedChart>, outDir: string): Promise<void> {
+  const data = pageData(model, charts);
+  const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
+    configPath: join(projectRoot, '.eleventy.js'),
+    quietMode: true,
+    config: (eleventyConfig) => {
+      for (const [name, value] of Object.entries(data)) eleventyConfig.addGlobalData(name, value);
+    },
+  });
+  await eleventy.write();
+  for (const file of downloadFiles(model, charts)) {
+    const target = join(outDir, file.path);
+    mkdirSync(dirname(target), { recursive: true });
+    writeFileSync(target, file.content);
+  }
+}

@@ -1,0 +1,90 @@
+/**
+ * The four quality gates on a fresh build of the example, and for each gate a deliberately broken
+ * copy of a page that the gate must catch (so no gate can pass by checking nothing).
+ */
+import { cpSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { auditAccessibility, checkLinks, diffTrees, htmlPages, launchChromium, validateHtml } from '../support/gates.ts';
+import { buildExample } from '../support/exampleSite.ts';
+
+let site: string;
+let browser: Browser;
+
+beforeAll(async () => {
+  site = (await buildExample()).dir;
+  browser = await launchChromium();
+}, 120_000);
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** A copy of the built site whose overview page has `edit` applied. */
+function brokenCopy(name: string, edit: (html: string) => string): string {
+  const copy = `${site}-${name}`;
+  cpSync(site, copy, { recursive: true });
+  const page = join(copy, 'issues', '2026-11', 'index.html');
+  writeFileSync(page, edit(readFileSync(page, 'utf8')));
+  return copy;
+}
+
+describe('example site', () => {
+  it('has the pages of the walking skeleton', () => {
+    expect(htmlPages(site)).toEqual(['index.html', 'issues/2026-11/data-and-methods/index.html', 'issues/2026-11/index.html', 'issues/2026-11/surface-water/index.html']);
+  });
+
+  it('checkLinks(site) finds no broken link, fragments included', async () => {
+    const { checked, broken } = await checkLinks(site);
+    expect(broken).toEqual([]);
+    expect(checked).toBeGreaterThanOrEqual(10);
+  }, 60_000);
+
+  it('validateHtml(site) finds no error', async () => {
+    const { pages, errors } = await validateHtml(site);
+    expect(errors).toEqual([]);
+    expect(pages).toBe(4);
+  }, 60_000);
+
+  it('auditAccessibility(site) finds no WCAG 2.x A or AA violation', async () => {
+    const { pages, violations } = await auditAccessibility(site, browser);
+    expect(violations).toEqual([]);
+    expect(pages).toBe(4);
+  }, 120_000);
+
+  it('building twice gives byte-identical output', async () => {
+    const again = (await buildExample('again')).dir;
+    expect(diffTrees(site, again)).toEqual([]);
+  }, 120_000);
+});
+
+describe('each gate fails on a broken page', () => {
+  it('checkLinks reports a missing page and a missing fragment', async () => {
+    const copy = brokenCopy('links', (html) => html.replace('</main>', '<p><a href="/issues/2026-11/no-such-page/">gone</a> <a href="#no-such-fragment">nowhere</a></p></main>'));
+    const { broken } = await checkLinks(copy);
+    const urls = broken.map((link) => link.url);
+    expect(urls.some((url) => url.includes('/no-such-page/'))).toBe(true);
+    expect(urls.some((url) => url.includes('#no-such-fragment'))).toBe(true);
+  }, 60_000);
+
+  it('validateHtml reports a duplicate id and a stray end tag', async () => {
+    const copy = brokenCopy('html', (html) => html.replace('</main>', '<p id="main">twice</p></div></main>'));
+    const { errors } = await validateHtml(copy);
+    expect(errors.some((error) => error.includes('no-dup-id'))).toBe(true);
+    expect(errors.some((error) => error.includes('close-order'))).toBe(true);
+  }, 60_000);
+
+  it('auditAccessibility reports an image without a text alternative and low contrast', async () => {
+    const copy = brokenCopy('axe', (html) => html.replace('</main>', '<svg role="img" width="10" height="10"><rect width="10" height="10"/></svg><p style="color:#bbbbbb;background:#ffffff">faint</p></main>'));
+    const { violations } = await auditAccessibility(copy, browser);
+    const ids = violations.map((violation) => violation.id);
+    expect(ids).toContain('svg-img-alt');
+    expect(ids).toContain('color-contrast');
+  }, 120_000);
+
+  it('diffTrees reports a page whose bytes changed', () => {
+    const copy = brokenCopy('bytes', (html) => html.replace('</main>', '<!-- built at 12:00 --></main>'));
+    expect(diffTrees(site, copy)).toEqual(['issues/2026-11/index.html']);
+  });
+});

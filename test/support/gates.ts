@@ -1,0 +1,148 @@
+/**
+ * The site's quality gates, shared by the example-build test and by the tests that prove each gate
+ * fails on a broken page: links (linkinator, fragments too), HTML (html-validate), accessibility
+ * (axe-core in Debian's Chromium through playwright-core), and tree hashing for determinism.
+ */
+import { createHash } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import { extname, join, normalize, relative, sep } from 'node:path';
+import { createRequire } from 'node:module';
+import { HtmlValidate } from 'html-validate';
+import { LinkChecker } from 'linkinator';
+import { chromium, type Browser } from 'playwright-core';
+
+export const CHROMIUM_PATH = process.env.LIMNOPRESS_CHROMIUM ?? '/usr/bin/chromium';
+
+/** Every file below a folder, as sorted relative paths with forward slashes. */
+export function listFiles(dir: string): string[] {
+  const found: string[] = [];
+  const walk = (folder: string) => {
+    for (const entry of readdirSync(folder).sort()) {
+      const path = join(folder, entry);
+      if (statSync(path).isDirectory()) walk(path);
+      else found.push(relative(dir, path).split(sep).join('/'));
+    }
+  };
+  walk(dir);
+  return found;
+}
+
+export function treeHashes(dir: string): Record<string, string> {
+  const hashes: Record<string, string> = {};
+  for (const file of listFiles(dir)) hashes[file] = createHash('sha256').update(readFileSync(join(dir, file))).digest('hex');
+  return hashes;
+}
+
+export const htmlPages = (dir: string) => listFiles(dir).filter((file) => file.endsWith('.html'));
+
+export interface BrokenLink {
+  url: string;
+  parent: string;
+  status: number | undefined;
+}
+
+export async function checkLinks(dir: string): Promise<{ checked: number; broken: BrokenLink[] }> {
+  const checker = new LinkChecker();
+  const result = await checker.check({ path: dir, recurse: true, checkFragments: true, concurrency: 8 });
+  const broken = result.links.filter((link) => link.state === 'BROKEN').map((link) => ({ url: link.url, parent: link.parent ?? '', status: link.status }));
+  return { checked: result.links.length, broken };
+}
+
+export async function validateHtml(dir: string): Promise<{ pages: number; errors: string[] }> {
+  const validator = new HtmlValidate({
+    extends: ['html-validate:recommended'],
+    rules: {
+      // Vega's SVG writes attributes html-validate does not know in every case; SVG is checked by axe.
+      'no-inline-style': 'off',
+      'attribute-boolean-style': 'off',
+      'long-title': 'off',
+    },
+  });
+  const errors: string[] = [];
+  const pages = htmlPages(dir);
+  for (const page of pages) {
+    const report = await validator.validateFile(join(dir, page));
+    for (const result of report.results) {
+      for (const message of result.messages) if (message.severity === 2) errors.push(`${page}:${message.line}:${message.column} ${message.ruleId} ${message.message}`);
+    }
+  }
+  return { pages: pages.length, errors };
+}
+
+const MIME: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.css': 'text/css', '.json': 'application/json', '.csv': 'text/csv', '.svg': 'image/svg+xml', '.png': 'image/png', '.xml': 'application/xml' };
+
+/** A static server on 127.0.0.1 with a random free port, serving `dir/index.html` for folders. */
+export async function serveFolder(dir: string): Promise<{ origin: string; close: () => Promise<void> }> {
+  const server: Server = createServer((request, response) => {
+    const path = normalize(decodeURIComponent(new URL(request.url ?? '/', 'http://x').pathname));
+    let file = join(dir, path);
+    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
+    if (!file.startsWith(dir) || !existsSync(file)) {
+      response.writeHead(404).end('not found');
+      return;
+    }
+    response.writeHead(200, { 'content-type': MIME[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : 0;
+  return { origin: `http://127.0.0.1:${port}`, close: () => new Promise((resolve) => server.close(() => resolve())) };
+}
+
+export async function launchChromium(): Promise<Browser> {
+  if (!existsSync(CHROMIUM_PATH)) {
+    throw new Error(`Chromium not found at ${CHROMIUM_PATH}. Install it with "apt-get install -y chromium fonts-dejavu-core" (or set LIMNOPRESS_CHROMIUM to a Chromium binary); the browser tests need it and are never skipped.`);
+  }
+  return chromium.launch({
+    executablePath: CHROMIUM_PATH,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+}
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+export const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+
+export interface AxeViolation {
+  page: string;
+  id: string;
+  impact: string | null;
+  help: string;
+  targets: string[];
+}
+
+/** Runs axe-core on every HTML page of a folder, served on loopback, at two viewport widths. */
+export async function auditAccessibility(dir: string, browser: Browser): Promise<{ pages: number; violations: AxeViolation[] }> {
+  const server = await serveFolder(dir);
+  const violations: AxeViolation[] = [];
+  const pages = htmlPages(dir);
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  try {
+    for (const pagePath of pages) {
+      const page = await context.newPage();
+      await page.goto(`${server.origin}/${pagePath}`);
+      await page.addScriptTag({ content: axeSource });
+      const result = (await page.evaluate(async (tags) => {
+        // Runs in the page; typed loosely so the project needs no DOM library types.
+        const scope = globalThis as unknown as { document: unknown; axe: { run: (context: unknown, options: object) => Promise<unknown> } };
+        return scope.axe.run(scope.document, { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] });
+      }, WCAG_TAGS)) as { violations: Array<{ id: string; impact: string | null; help: string; nodes: Array<{ target: string[] }> }> };
+      for (const violation of result.violations) {
+        violations.push({ page: pagePath, id: violation.id, impact: violation.impact, help: violation.help, targets: violation.nodes.flatMap((node) => node.target.map(String)) });
+      }
+      await page.close();
+    }
+  } finally {
+    await context.close();
+    await server.close();
+  }
+  return { pages: pages.length, violations };
+}
+
+/** Paths whose bytes differ between two trees, or that stand in only one. */
+export function diffTrees(a: string, b: string): string[] {
+  const left = treeHashes(a);
+  const right = treeHashes(b);
+  const paths = [...new Set([...Object.keys(left), ...Object.keys(right)])].sort();
+  return paths.filter((path) => left[path] !== right[path]);
+}
