@@ -12,6 +12,7 @@ declare module '@11ty/eleventy' {
   export default class Eleventy {
     constructor(input: string, output: string, options?: EleventyOptions);
     write(): Promise<unknown>;
+    disableLogger(): void;
     toJSON(): Promise<Array<{ url: string; inputPath: string; outputPath: string; content: string }>>;
   }
 }

@@ -68,6 +68,8 @@ export async function renderSite(model: BulletinModel, charts: Record<string, Re
       for (const [name, value] of Object.entries(data)) eleventyConfig.addGlobalData(name, value);
     },
   });
+  // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
+  eleventy.disableLogger();
   await eleventy.write();
   for (const file of downloadFiles(model, charts)) {
     const target = join(outDir, file.path);
