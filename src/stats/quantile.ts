@@ -11,7 +11,7 @@ import { finiteValues } from './finiteValues.ts';
  */
 export function quantile(values: Iterable<number | null | undefined>, probability: number): number {
   if (!(probability >= 0 && probability <= 1)) throw new RangeError('quantile requires a probability from 0 to 1');
-  const sorted = finiteValues(values).sort((a, b) => a - b);
+  const sorted = finiteValues(values).sort();
   return quantileSorted(sorted, probability);
 }
 

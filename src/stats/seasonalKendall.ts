@@ -1,0 +1,159 @@
+import { mannKendall, type TrendReason } from './mannKendall.ts';
+import { normalSurvival } from './normalSurvival.ts';
+import { selectKth } from './selectKth.ts';
+
+export interface SeasonResult {
+  /** Calendar month 1–12. */
+  season: number;
+  n: number;
+  s: number;
+  varianceS: number;
+}
+
+export interface SeasonalKendallResult {
+  seasons: SeasonResult[];
+  n: number;
+  s: number;
+  /** Σ Var(S_g): seasons taken as independent (Hirsch, Slack & Smith 1982). */
+  varianceS: number;
+  z: number;
+  p: number;
+  /** The Hirsch & Slack (1984) variant, allowing for covariance between seasons. */
+  covariance:
+    | { applied: true; varianceS: number; z: number; p: number }
+    | { applied: false; reason: 'too-few-years'; fewestYears: number; neededYears: number };
+  /** Seasonal Sen slope: median of all within-season slopes, per year. */
+  slope: number;
+  reason: TrendReason;
+}
+
+export interface SeasonalKendallOptions {
+  /**
+   * Fewest values every season needs before the covariance variant is used. Default 10: the
+   * record length from which Hirsch & Slack (1984) report that their test keeps its nominal size
+   * (recalled from the paper, not re-derived here).
+   */
+  minYearsForCovariance?: number;
+}
+
+/**
+ * Seasonal Kendall test (Hirsch, Slack & Smith 1982) on a monthly series: `months` are month
+ * indices (year × 12 + month − 1), so each calendar month is a season. Within each season the
+ * Mann-Kendall S and Var(S) (ties corrected) are computed over the years; S = Σ S_g,
+ * Var(S) = Σ Var(S_g), Z = (S − sgn S)/√Var(S), p two-sided. Missing values are skipped.
+ *
+ * The covariance variant (Hirsch & Slack 1984, after Dietz & Killeen 1981) adds, for every pair of
+ * seasons g ≠ h over the n years of the record, σ_gh = [K_gh + 4 Σⱼ R_jg R_jh − n(n+1)²]/3 with
+ * K_gh = Σᵢ<ⱼ sgn((X_jg − X_ig)(X_jh − X_ih)) and R_jg = [n + 1 + Σᵢ sgn(X_jg − X_ig)]/2, where a
+ * missing value makes its sgn terms 0. It is used only when every season has at least
+ * `minYearsForCovariance` values; otherwise the result says why.
+ *
+ * The seasonal Sen slope (Hirsch, Slack & Smith 1982) is the median of (x_j − x_i)/(year_j − year_i)
+ * over all pairs within the same season. Cost O(n²) per season for a record of n years, O(144·n²)
+ * for the covariance.
+ */
+export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<number | null | undefined>, options: SeasonalKendallOptions = {}): SeasonalKendallResult {
+  const neededYears = options.minYearsForCovariance ?? 10;
+  if (months.length !== values.length) throw new RangeError('seasonalKendall requires months and values of the same length');
+  const grid = yearGrid(months, values);
+  const seasons: SeasonResult[] = [];
+  let s = 0;
+  let varianceS = 0;
+  let n = 0;
+  const slopes: number[] = [];
+  for (let season = 0; season < 12; season++) {
+    const column = grid.columns[season] as Float64Array;
+    const result = mannKendall(column);
+    seasons.push({ season: season + 1, n: result.n, s: result.s, varianceS: result.varianceS });
+    s += result.s;
+    varianceS += result.varianceS;
+    n += result.n;
+    for (let i = 0; i < grid.years - 1; i++) {
+      const xi = column[i] as number;
+      if (Number.isNaN(xi)) continue;
+      for (let j = i + 1; j < grid.years; j++) {
+        const xj = column[j] as number;
+        if (!Number.isNaN(xj)) slopes.push((xj - xi) / (j - i));
+      }
+    }
+  }
+  const slope = medianOf(slopes);
+  const fewestYears = Math.min(...seasons.map((season) => season.n));
+  const covariance: SeasonalKendallResult['covariance'] =
+    fewestYears >= neededYears && varianceS > 0
+      ? withCovariance(grid, s, varianceS)
+      : { applied: false, reason: 'too-few-years', fewestYears, neededYears };
+  if (varianceS <= 0) {
+    return { seasons, n, s, varianceS, z: n < 3 ? Number.NaN : 0, p: n < 3 ? Number.NaN : 1, covariance, slope, reason: n < 3 ? 'too-few-values' : 'no-variance' };
+  }
+  const z = (s - Math.sign(s)) / Math.sqrt(varianceS);
+  return { seasons, n, s, varianceS, z, p: Math.min(1, 2 * normalSurvival(Math.abs(z))), covariance, slope, reason: null };
+}
+
+interface YearGrid {
+  years: number;
+  /** One column per calendar month, one entry per year from the first to the last; NaN = missing. */
+  columns: Float64Array[];
+}
+
+function yearGrid(months: ArrayLike<number>, values: ArrayLike<number | null | undefined>): YearGrid {
+  let first = Infinity;
+  let last = -Infinity;
+  for (let k = 0; k < months.length; k++) {
+    const value = values[k];
+    if (typeof value !== 'number' || !Number.isFinite(value)) continue;
+    const year = Math.floor((months[k] as number) / 12);
+    first = Math.min(first, year);
+    last = Math.max(last, year);
+  }
+  const years = Number.isFinite(first) ? last - first + 1 : 0;
+  const columns = Array.from({ length: 12 }, () => new Float64Array(years).fill(Number.NaN));
+  for (let k = 0; k < months.length; k++) {
+    const value = values[k];
+    if (typeof value !== 'number' || !Number.isFinite(value)) continue;
+    const month = months[k] as number;
+    const column = columns[((month % 12) + 12) % 12] as Float64Array;
+    const row = Math.floor(month / 12) - first;
+    if (!Number.isNaN(column[row] as number)) throw new RangeError('seasonalKendall requires at most one value per month');
+    column[row] = value;
+  }
+  return { years, columns };
+}
+
+const sgn = (value: number) => (value > 0 ? 1 : value < 0 ? -1 : 0); // NaN → 0: a missing value
+
+function withCovariance(grid: YearGrid, s: number, seasonVarianceSum: number): { applied: true; varianceS: number; z: number; p: number } {
+  const n = grid.years;
+  const ranks = grid.columns.map((column) =>
+    Float64Array.from(column, (xj) => {
+      let sum = 0;
+      for (const xi of column) sum += sgn(xj - xi);
+      return (n + 1 + sum) / 2;
+    }),
+  );
+  let covarianceSum = 0;
+  for (let g = 0; g < 12; g++) {
+    for (let h = 0; h < 12; h++) {
+      if (g === h) continue;
+      const xg = grid.columns[g] as Float64Array;
+      const xh = grid.columns[h] as Float64Array;
+      let k = 0;
+      for (let i = 0; i < n - 1; i++) for (let j = i + 1; j < n; j++) k += sgn(((xg[j] as number) - (xg[i] as number)) * ((xh[j] as number) - (xh[i] as number)));
+      let rankProducts = 0;
+      for (let j = 0; j < n; j++) rankProducts += (ranks[g]?.[j] as number) * (ranks[h]?.[j] as number);
+      covarianceSum += (k + 4 * rankProducts - n * (n + 1) * (n + 1)) / 3;
+    }
+  }
+  const varianceS = seasonVarianceSum + covarianceSum;
+  const z = varianceS > 0 ? (s - Math.sign(s)) / Math.sqrt(varianceS) : 0;
+  return { applied: true, varianceS, z, p: varianceS > 0 ? Math.min(1, 2 * normalSurvival(Math.abs(z))) : 1 };
+}
+
+function medianOf(values: number[]): number {
+  const count = values.length;
+  if (count === 0) return Number.NaN;
+  const work = Float64Array.from(values);
+  const low = selectKth(work, Math.floor((count - 1) / 2));
+  if (count % 2 === 1) return low;
+  return (low + selectKth(work, count / 2, Math.floor((count - 1) / 2))) / 2;
+}

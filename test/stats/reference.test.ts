@@ -1,0 +1,157 @@
+/**
+ * Every statistic against test/fixtures/stats-reference.json, written by
+ * scripts/reference/stats_reference.py with scipy 1.17.1 and numpy 2.4.6 (scipy functions where
+ * scipy has one, independent numpy lines where it has none; the script says which). Agreement is
+ * required to 1e-9 relative (with an absolute floor of 1e-12 for values that should be 0).
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import {
+  agreement, benjaminiHochberg, hamedRao, mannKendall, normalQuantile, normalSurvival, percentileRank, pettitt, quantile,
+  sampleStandardDeviation, seasonalKendall, sensSlope,
+} from '../../src/stats/index.ts';
+
+type Numbers = Array<number | null>;
+interface Case {
+  name: string;
+  t: number[];
+  y: Numbers;
+  months?: number[];
+  mannKendall: Record<string, number>;
+  sensSlope?: Record<string, number>;
+  hamedRao?: { correctionFactor: number; significantLags: number[]; varianceS: number | null; z: number | null; p: number | null };
+  pettitt?: Record<string, number>;
+  seasonalKendall?: { s: number; varianceS: number; z: number; p: number; slope: number; covariance?: Record<string, number> };
+}
+const reference = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'fixtures', 'stats-reference.json'), 'utf8')) as {
+  cases: Case[];
+  benjaminiHochberg: Array<{ p: number[]; adjusted: number[] }>;
+  quantile: { sample: number[]; probabilities: number[]; values: number[] };
+  percentileRank: { sample: number[]; scores: number[]; values: number[] };
+  standardDeviation: { sample: number[]; value: number };
+  agreement: Record<string, number[] | number> & { reference: number[]; estimate: number[] };
+  normal: { z: number[]; survival: number[]; p: number[]; quantile: number[] };
+};
+
+/** |actual − expected| ≤ 1e-9 · |expected|, or ≤ 1e-12 when expected is 0 or near it. */
+function close(actual: number, expected: number | null | undefined, label: string): void {
+  if (expected === null || expected === undefined) {
+    expect(Number.isNaN(actual), `${label}: expected no value, got ${actual}`).toBe(true);
+    return;
+  }
+  const tolerance = Math.max(1e-9 * Math.abs(expected), 1e-12);
+  expect(Math.abs(actual - expected), `${label}: ${actual} against ${expected}`).toBeLessThanOrEqual(tolerance);
+}
+
+const values = (y: Numbers) => y.map((value) => (value === null ? Number.NaN : value));
+
+describe('statistics against the scipy and numpy reference', () => {
+  it('has at least 25 cases, n from 3 to 360', () => {
+    expect(reference.cases.length).toBeGreaterThanOrEqual(25);
+    const sizes = reference.cases.map((c) => c.y.length);
+    expect(Math.min(...sizes)).toBe(3);
+    expect(Math.max(...sizes)).toBe(360);
+  });
+
+  for (const c of reference.cases) {
+    it(`mannKendall(${c.name}) matches S, Var(S), Z, p and tau-b`, () => {
+      const result = mannKendall(values(c.y));
+      const expected = c.mannKendall;
+      expect(result.n).toBe(expected.n);
+      close(result.s, expected.s, 'S');
+      close(result.varianceS, expected.varianceS, 'Var(S)');
+      if (expected.p === undefined) {
+        expect(result.reason).not.toBeNull();
+        return;
+      }
+      close(result.z, expected.z, 'Z');
+      close(result.zUncorrected, expected.zUncorrected, 'Z without correction');
+      close(result.p, expected.p, 'p');
+      close(result.pUncorrected, expected.pUncorrected, 'p without correction (scipy kendalltau)');
+      close(result.tau, expected.tau, 'tau-b (scipy kendalltau)');
+    });
+
+    if (c.sensSlope) {
+      const expected = c.sensSlope;
+      it(`sensSlope(${c.name}) matches scipy theilslopes slope, intercept and 95 % limits`, () => {
+        const result = sensSlope(c.t, values(c.y));
+        close(result.slope, expected.slope, 'slope');
+        close(result.intercept, expected.intercept, 'intercept');
+        close(result.lower, expected.lower, 'lower');
+        close(result.upper, expected.upper, 'upper');
+      });
+    }
+
+    if (c.hamedRao) {
+      const expected = c.hamedRao;
+      it(`hamedRao(${c.name}) matches the correction factor, lags, Z and p`, () => {
+        const result = hamedRao(c.t, values(c.y));
+        close(result.correctionFactor, expected.correctionFactor, 'n/n*');
+        expect(result.significantLags).toEqual(expected.significantLags);
+        close(result.varianceS, expected.varianceS, 'Var*(S)');
+        close(result.z, expected.z, 'Z');
+        close(result.p, expected.p, 'p');
+      });
+    }
+
+    if (c.pettitt) {
+      const expected = c.pettitt;
+      it(`pettitt(${c.name}) matches K, location and p`, () => {
+        const result = pettitt(values(c.y));
+        close(result.k, expected.k, 'K');
+        expect(result.location).toBe(expected.location);
+        close(result.p, expected.p, 'p');
+      });
+    }
+
+    if (c.seasonalKendall && c.months) {
+      const expected = c.seasonalKendall;
+      const months = c.months;
+      it(`seasonalKendall(${c.name}) matches S, Var(S), Z, p, the seasonal slope and the covariance variant`, () => {
+        const result = seasonalKendall(months, values(c.y));
+        close(result.s, expected.s, 'S');
+        close(result.varianceS, expected.varianceS, 'Var(S)');
+        close(result.z, expected.z, 'Z');
+        close(result.p, expected.p, 'p');
+        close(result.slope, expected.slope, 'seasonal slope');
+        if (expected.covariance) {
+          expect(result.covariance.applied).toBe(true);
+          if (!result.covariance.applied) return;
+          close(result.covariance.varianceS, expected.covariance.varianceS, 'Var(S) with covariance');
+          close(result.covariance.z, expected.covariance.z, 'Z with covariance');
+          close(result.covariance.p, expected.covariance.p, 'p with covariance');
+        } else {
+          expect(result.covariance.applied).toBe(false);
+        }
+      });
+    }
+  }
+
+  it('benjaminiHochberg(p) matches scipy false_discovery_control', () => {
+    for (const { p, adjusted } of reference.benjaminiHochberg) {
+      const result = benjaminiHochberg(p);
+      result.adjusted.forEach((value, k) => close(value, adjusted[k], `adjusted p ${k}`));
+    }
+  });
+
+  it('quantile, percentileRank and sampleStandardDeviation match numpy and scipy', () => {
+    const q = reference.quantile;
+    q.probabilities.forEach((p, k) => close(quantile(q.sample, p), q.values[k], `quantile ${p}`));
+    const r = reference.percentileRank;
+    r.scores.forEach((score, k) => close(percentileRank(r.sample, score), r.values[k], `percentile rank of ${score}`));
+    close(sampleStandardDeviation(reference.standardDeviation.sample), reference.standardDeviation.value, 'sd');
+  });
+
+  it('agreement(field, satellite) matches numpy and scipy linregress', () => {
+    const a = reference.agreement;
+    const result = agreement(a.reference, a.estimate);
+    for (const key of ['bias', 'meanAbsoluteError', 'rootMeanSquareError', 'slope', 'intercept', 'rSquared'] as const) close(result[key], a[key] as number, key);
+  });
+
+  it('normalSurvival and normalQuantile match scipy.stats.norm', () => {
+    const n = reference.normal;
+    n.z.forEach((z, k) => close(normalSurvival(z), n.survival[k], `sf(${z})`));
+    n.p.forEach((p, k) => close(normalQuantile(p), n.quantile[k], `ppf(${p})`));
+  });
+});
