@@ -1,61 +1,22 @@
 /**
- * The `limnopress` command line. Exit codes: 0 success, 1 input errors or a failed build,
+ * The `limnopress` command line. Exit codes: 0 success, 1 input errors or a failed run,
  * 2 a usage error.
  */
-import { parseArgs } from 'node:util';
-import { build, toolVersion } from '../build.ts';
+import { toolVersion } from '../build.ts';
 import { formatProblem, InputError } from '../ingest/index.ts';
+import { runBuild } from './build.ts';
+import { runTrend } from './trend.ts';
+import { HELP, UsageError } from './usage.ts';
 
-const HELP: Record<string, string> = {
-  main: `limnopress: turns inland-water tables into a monthly water-status bulletin site
+const COMMANDS: Record<string, (args: string[]) => Promise<number>> = { build: runBuild, trend: runTrend };
 
-Usage: limnopress <command> [options]
-
-Commands:
-  build <bulletin-folder> --out <dir>   check the inputs and build the bulletin site
-  help [command]                        show help for a command
-
-Options:
-  -h, --help       show help
-  -v, --version    show the version
-`,
-  build: `Usage: limnopress build <bulletin-folder> --out <dir> [--quiet]
-
-Checks every input of the bulletin folder, then builds the site into <dir>. The new site replaces
-<dir> only when the whole build succeeded; on any error <dir> is left as it was.
-
-Options:
-  -o, --out <dir>   where the site goes (default: _site)
-  -q, --quiet       print nothing but errors
-  -h, --help        show this help
-`,
-};
-
-class UsageError extends Error {}
-
-async function runBuild(args: string[]): Promise<number> {
-  const { values, positionals } = parseArgs({
-    args,
-    allowPositionals: true,
-    options: { out: { type: 'string', short: 'o', default: '_site' }, quiet: { type: 'boolean', short: 'q' }, help: { type: 'boolean', short: 'h' } },
-  });
-  if (values.help) {
-    process.stdout.write(HELP.build as string);
-    return 0;
-  }
-  if (positionals.length !== 1) throw new UsageError('build needs exactly one bulletin folder');
-  const log = values.quiet ? undefined : (line: string) => process.stderr.write(`${line}\n`);
-  const result = await build({ bulletinFolder: positionals[0] as string, outDir: values.out as string, log });
-  for (const warning of result.warnings) if (!values.quiet) process.stderr.write(`${formatProblem(warning)}\n`);
-  if (!values.quiet) process.stdout.write(`Bulletin written to ${result.outDir}/index.html\n`);
-  return 0;
-}
+const isParseArgsError = (error: unknown) => error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS');
 
 export async function main(argv: string[]): Promise<number> {
   const [command, ...rest] = argv;
   try {
     if (command === undefined || command === '-h' || command === '--help') {
-      process.stdout.write(HELP.main as string);
+      process.stdout.write(HELP.main);
       return command === undefined ? 2 : 0;
     }
     if (command === '-v' || command === '--version') {
@@ -63,14 +24,16 @@ export async function main(argv: string[]): Promise<number> {
       return 0;
     }
     if (command === 'help') {
-      process.stdout.write(HELP[rest[0] ?? 'main'] ?? (HELP.main as string));
+      const topic = rest[0] ?? 'main';
+      process.stdout.write(topic in HELP ? HELP[topic as keyof typeof HELP] : HELP.main);
       return 0;
     }
-    if (command === 'build') return await runBuild(rest);
-    throw new UsageError(`unknown command "${command}"`);
+    const run = COMMANDS[command];
+    if (!run) throw new UsageError(`unknown command "${command}"`);
+    return await run(rest);
   } catch (error) {
-    if (error instanceof UsageError || (error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS'))) {
-      process.stderr.write(`limnopress: ${error.message}\nRun "limnopress --help" for usage.\n`);
+    if (error instanceof UsageError || isParseArgsError(error)) {
+      process.stderr.write(`limnopress: ${(error as Error).message}\nRun "limnopress --help" for usage.\n`);
       return 2;
     }
     if (error instanceof InputError) {
@@ -78,7 +41,7 @@ export async function main(argv: string[]): Promise<number> {
       process.stderr.write(`limnopress: ${error.message}; nothing was written\n`);
       return 1;
     }
-    process.stderr.write(`limnopress: build failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+    process.stderr.write(`limnopress: failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
     return 1;
   }
 }

@@ -1,6 +1,7 @@
-import { finiteValues } from './finiteValues.ts';
+import { copyFinite } from './finiteValues.ts';
+import { scratch } from './scratch.ts';
 import { normalSurvival } from './normalSurvival.ts';
-import { tieCorrection } from './tieCorrection.ts';
+import { kendallScore } from './kendallScore.ts';
 
 /** Why a test could make no statement; null when it could. */
 export type TrendReason = null | 'too-few-values' | 'no-variance';
@@ -36,20 +37,15 @@ export interface MannKendallResult {
  *
  * Too little data is a result, not an exception: for n < 3 z and p are NaN and `reason` is
  * 'too-few-values'; when Var(S) = 0 (every value equal) z = 0, p = 1, tau is NaN and `reason` is
- * 'no-variance'. Cost O(n²) time, O(n) memory.
+ * 'no-variance'. S and the tie terms come from one merge sort (kendallScore): O(n log n) time,
+ * O(n) memory.
  */
-export function mannKendall(values: Iterable<number | null | undefined>): MannKendallResult {
-  const x = finiteValues(values);
-  const n = x.length;
-  let s = 0;
-  for (let i = 0; i < n - 1; i++) {
-    const xi = x[i] as number;
-    for (let j = i + 1; j < n; j++) {
-      const xj = x[j] as number;
-      s += xj > xi ? 1 : xj < xi ? -1 : 0;
-    }
-  }
-  const ties = tieCorrection(x);
+export function mannKendall(values: Iterable<number | null | undefined> | ArrayLike<number | null | undefined>): MannKendallResult {
+  const list = 'length' in values ? values : Array.from(values);
+  const x = scratch('mann-kendall', list.length);
+  const n = copyFinite(list, x);
+  const ties = kendallScore(x, n);
+  const s = ties.s;
   const varianceS = (n * (n - 1) * (2 * n + 5) - ties.varianceTerm) / 18;
   const pairs = (n * (n - 1)) / 2;
   const tau = pairs - ties.tiedPairs > 0 ? s / Math.sqrt((pairs - ties.tiedPairs) * pairs) : Number.NaN;

@@ -1,4 +1,6 @@
-import { mannKendall, type TrendReason } from './mannKendall.ts';
+import type { TrendReason } from './mannKendall.ts';
+import { kendallScore } from './kendallScore.ts';
+import { scratch } from './scratch.ts';
 import { normalSurvival } from './normalSurvival.ts';
 import { selectKth } from './selectKth.ts';
 
@@ -60,24 +62,30 @@ export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<num
   let s = 0;
   let varianceS = 0;
   let n = 0;
-  const slopes: number[] = [];
+  const slopes = new Float64Array((12 * grid.years * (grid.years - 1)) / 2);
+  let slopeCount = 0;
+  const observed = scratch('seasonal-observed', grid.years);
   for (let season = 0; season < 12; season++) {
     const column = grid.columns[season] as Float64Array;
-    const result = mannKendall(column);
-    seasons.push({ season: season + 1, n: result.n, s: result.s, varianceS: result.varianceS });
-    s += result.s;
-    varianceS += result.varianceS;
-    n += result.n;
-    for (let i = 0; i < grid.years - 1; i++) {
+    let count = 0;
+    for (let i = 0; i < grid.years; i++) {
       const xi = column[i] as number;
-      if (Number.isNaN(xi)) continue;
+      if (xi !== xi) continue; // NaN: missing
+      observed[count++] = xi;
       for (let j = i + 1; j < grid.years; j++) {
         const xj = column[j] as number;
-        if (!Number.isNaN(xj)) slopes.push((xj - xi) / (j - i));
+        if (xj === xj) slopes[slopeCount++] = (xj - xi) / (j - i);
       }
     }
+    // Within one season, the Mann-Kendall S and tie-corrected Var(S) over its years.
+    const score = kendallScore(observed, count);
+    const seasonVariance = (count * (count - 1) * (2 * count + 5) - score.varianceTerm) / 18;
+    seasons.push({ season: season + 1, n: count, s: score.s, varianceS: seasonVariance });
+    s += score.s;
+    varianceS += seasonVariance;
+    n += count;
   }
-  const slope = medianOf(slopes);
+  const slope = medianOf(slopes.subarray(0, slopeCount));
   const fewestYears = Math.min(...seasons.map((season) => season.n));
   const covariance: SeasonalKendallResult['covariance'] =
     fewestYears >= neededYears && varianceS > 0
@@ -124,24 +132,34 @@ const sgn = (value: number) => (value > 0 ? 1 : value < 0 ? -1 : 0); // NaN → 
 
 function withCovariance(grid: YearGrid, s: number, seasonVarianceSum: number): { applied: true; varianceS: number; z: number; p: number } {
   const n = grid.years;
-  const ranks = grid.columns.map((column) =>
-    Float64Array.from(column, (xj) => {
+  // signs[g][i·n + j] = sgn(x_jg − x_ig), 0 where either is missing; ranks[g][j] = R_jg.
+  const signs = grid.columns.map((column) => {
+    const table = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) table[i * n + j] = sgn((column[j] as number) - (column[i] as number));
+    return table;
+  });
+  const ranks = signs.map((table) => {
+    const rank = new Float64Array(n);
+    for (let j = 0; j < n; j++) {
       let sum = 0;
-      for (const xi of column) sum += sgn(xj - xi);
-      return (n + 1 + sum) / 2;
-    }),
-  );
+      for (let i = 0; i < n; i++) sum += table[i * n + j] as number;
+      rank[j] = (n + 1 + sum) / 2;
+    }
+    return rank;
+  });
   let covarianceSum = 0;
   for (let g = 0; g < 12; g++) {
-    for (let h = 0; h < 12; h++) {
-      if (g === h) continue;
-      const xg = grid.columns[g] as Float64Array;
-      const xh = grid.columns[h] as Float64Array;
+    const signG = signs[g] as Float64Array;
+    const rankG = ranks[g] as Float64Array;
+    for (let h = g + 1; h < 12; h++) {
+      const signH = signs[h] as Float64Array;
+      const rankH = ranks[h] as Float64Array;
       let k = 0;
-      for (let i = 0; i < n - 1; i++) for (let j = i + 1; j < n; j++) k += sgn(((xg[j] as number) - (xg[i] as number)) * ((xh[j] as number) - (xh[i] as number)));
+      for (let i = 0; i < n - 1; i++) for (let j = i + 1; j < n; j++) k += (signG[i * n + j] as number) * (signH[i * n + j] as number);
       let rankProducts = 0;
-      for (let j = 0; j < n; j++) rankProducts += (ranks[g]?.[j] as number) * (ranks[h]?.[j] as number);
-      covarianceSum += (k + 4 * rankProducts - n * (n + 1) * (n + 1)) / 3;
+      for (let j = 0; j < n; j++) rankProducts += (rankG[j] as number) * (rankH[j] as number);
+      // σ_gh = σ_hg: each unordered pair of seasons counts twice.
+      covarianceSum += (2 * (k + 4 * rankProducts - n * (n + 1) * (n + 1))) / 3;
     }
   }
   const varianceS = seasonVarianceSum + covarianceSum;
@@ -149,10 +167,9 @@ function withCovariance(grid: YearGrid, s: number, seasonVarianceSum: number): {
   return { applied: true, varianceS, z, p: varianceS > 0 ? Math.min(1, 2 * normalSurvival(Math.abs(z))) : 1 };
 }
 
-function medianOf(values: number[]): number {
-  const count = values.length;
+function medianOf(work: Float64Array): number {
+  const count = work.length;
   if (count === 0) return Number.NaN;
-  const work = Float64Array.from(values);
   const low = selectKth(work, Math.floor((count - 1) / 2));
   if (count % 2 === 1) return low;
   return (low + selectKth(work, count / 2, Math.floor((count - 1) / 2))) / 2;

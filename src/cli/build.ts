@@ -1,0 +1,23 @@
+/** `limnopress build`: check the inputs of a bulletin folder and publish its site. */
+import { parseArgs } from 'node:util';
+import { build } from '../build.ts';
+import { formatProblem } from '../ingest/index.ts';
+import { HELP, UsageError } from './usage.ts';
+
+export async function runBuild(args: string[]): Promise<number> {
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: { out: { type: 'string', short: 'o', default: '_site' }, quiet: { type: 'boolean', short: 'q' }, help: { type: 'boolean', short: 'h' } },
+  });
+  if (values.help) {
+    process.stdout.write(HELP.build);
+    return 0;
+  }
+  if (positionals.length !== 1) throw new UsageError('build needs exactly one bulletin folder');
+  const log = values.quiet ? undefined : (line: string) => process.stderr.write(`${line}\n`);
+  const result = await build({ bulletinFolder: positionals[0] as string, outDir: values.out as string, ...(log ? { log } : {}) });
+  for (const warning of result.warnings) if (!values.quiet) process.stderr.write(`${formatProblem(warning)}\n`);
+  if (!values.quiet) process.stdout.write(`Bulletin written to ${result.outDir}/index.html\n`);
+  return 0;
+}

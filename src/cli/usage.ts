@@ -1,0 +1,50 @@
+/** Help texts and the usage error shared by the commands. */
+export class UsageError extends Error {}
+
+export const HELP = {
+  main: `limnopress: turns inland-water tables into a monthly water-status bulletin site
+
+Usage: limnopress <command> [options]
+
+Commands:
+  build <bulletin-folder> --out <dir>      check the inputs and build the bulletin site
+  trend <table.csv> --time C --value C     trend tests for one or many series in a table
+  help [command]                           show help for a command
+
+Options:
+  -h, --help       show help
+  -v, --version    show the version
+`,
+  build: `Usage: limnopress build <bulletin-folder> --out <dir> [--quiet]
+
+Checks every input of the bulletin folder, then builds the site into <dir>. The new site replaces
+<dir> only when the whole build succeeded; on any error <dir> is left as it was.
+
+Options:
+  -o, --out <dir>   where the site goes (default: _site)
+  -q, --quiet       print nothing but errors
+  -h, --help        show this help
+`,
+  trend: `Usage: limnopress trend <table.csv> --time <col> --value <col> [--by <col>] [--seasonal]
+                        [--format csv|json] [--confidence 0.95] [--fdr 0.05] [--workers N]
+
+Prints one row per series with Mann-Kendall (S, Var(S), Z and p with and without the continuity
+correction, tau-b), Sen's slope per year with its confidence interval, the Hamed & Rao
+autocorrelation-corrected test, Pettitt's change point, and with --seasonal the seasonal Kendall
+test (and its covariance variant where every month has at least 10 years) with the seasonal Sen
+slope. With --by, p values are adjusted across series by Benjamini-Hochberg.
+
+Times may be YYYY-MM, YYYY-MM-DD or decimal years; an empty value is a missing value.
+
+Options:
+  --time <col>        the time column (required)
+  --value <col>       the value column (required)
+  --by <col>          the column naming each series
+  --seasonal          seasonal tests, calendar months as seasons (needs monthly times)
+  --format <f>        csv (default) or json
+  --confidence <c>    confidence level of Sen's slope interval (default 0.95)
+  --fdr <q>           false discovery rate for the adjustment (default 0.05)
+  --workers <n>       worker threads for many series (default: all cores)
+  -h, --help          show this help
+`,
+} as const;

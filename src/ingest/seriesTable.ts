@@ -1,0 +1,102 @@
+/**
+ * Reads a long table of time series (one row per series and time) for the `trend` command: a time
+ * column, a value column and optionally a column naming the series. Every bad cell is a problem
+ * with file, line and column; an empty value cell is a missing value.
+ */
+import { readCsv } from './csv.ts';
+import type { ProblemList } from './problems.ts';
+
+export interface SeriesInput {
+  key: string;
+  /** Decimal years, ascending. */
+  times: Float64Array;
+  /** Month index (year × 12 + month − 1) of each time, for seasonal tests; NaN when not monthly. */
+  months: Float64Array;
+  /** NaN marks a missing value. */
+  values: Float64Array;
+  /** The time as written in the file, for reporting. */
+  labels: string[];
+}
+
+export interface ParsedTime {
+  years: number;
+  month: number;
+}
+
+const daysInYear = (year: number) => ((year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 366 : 365);
+
+/**
+ * `YYYY-MM` (the month's start: year + (month − 1)/12), `YYYY-MM-DD` (year + (day of year − 1)/days
+ * in the year) or a plain number of years. Null when the text is none of these.
+ */
+export function parseTime(text: string): ParsedTime | null {
+  let match = /^(\d{4})-(0[1-9]|1[0-2])$/.exec(text);
+  if (match) {
+    const year = Number(match[1]);
+    const month = Number(match[2]);
+    return { years: year + (month - 1) / 12, month: year * 12 + month - 1 };
+  }
+  match = /^(\d{4})-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/.exec(text);
+  if (match) {
+    const year = Number(match[1]);
+    const month = Number(match[2]);
+    const day = Number(match[3]);
+    const date = Date.UTC(year, month - 1, day);
+    if (new Date(date).getUTCDate() !== day) return null;
+    const dayOfYear = (date - Date.UTC(year, 0, 1)) / 86_400_000;
+    return { years: year + dayOfYear / daysInYear(year), month: year * 12 + month - 1 };
+  }
+  if (/^-?\d+(\.\d+)?$/.test(text)) return { years: Number(text), month: Number.NaN };
+  return null;
+}
+
+export interface SeriesColumns {
+  time: string;
+  value: string;
+  by?: string;
+}
+
+export async function readSeriesTable(path: string, label: string, columns: SeriesColumns, problems: ProblemList): Promise<SeriesInput[]> {
+  const rows = new Map<string, Array<{ time: ParsedTime; label: string; value: number; line: number }>>();
+  const specs = [columns.time, columns.value, ...(columns.by ? [columns.by] : [])].map((name) => ({ name, required: true }));
+  await readCsv(path, label, specs, problems, (fields, line) => {
+    const timeText = fields[columns.time] ?? '';
+    const valueText = fields[columns.value] ?? '';
+    const time = parseTime(timeText);
+    if (!time) {
+      problems.error({ code: 'time-invalid', file: label, line, column: columns.time, value: timeText, expected: 'YYYY-MM, YYYY-MM-DD or a number of years', message: 'the time cannot be read' });
+      return;
+    }
+    let value = Number.NaN;
+    if (valueText !== '') {
+      value = /^-?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(valueText) ? Number(valueText) : Number.NaN;
+      if (Number.isNaN(value)) {
+        problems.error({ code: 'value-not-number', file: label, line, column: columns.value, value: valueText, expected: 'a finite number, or nothing for a missing value', message: 'the value is not a number' });
+        return;
+      }
+    }
+    const key = columns.by ? (fields[columns.by] ?? '') : 'all';
+    const list = rows.get(key) ?? [];
+    list.push({ time, label: timeText, value, line });
+    rows.set(key, list);
+  });
+  const series: SeriesInput[] = [];
+  for (const [key, list] of [...rows.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
+    list.sort((a, b) => a.time.years - b.time.years);
+    for (let k = 1; k < list.length; k++) {
+      const here = list[k]!;
+      const before = list[k - 1]!;
+      if (here.time.years === before.time.years) {
+        problems.error({ code: 'duplicate-time', file: label, line: here.line, column: columns.time, value: here.label, expected: 'each time once per series', message: `series "${key}" already has this time on line ${before.line}` });
+      }
+    }
+    series.push({
+      key,
+      times: Float64Array.from(list, (row) => row.time.years),
+      months: Float64Array.from(list, (row) => row.time.month),
+      values: Float64Array.from(list, (row) => row.value),
+      labels: list.map((row) => row.label),
+    });
+  }
+  return series;
+}

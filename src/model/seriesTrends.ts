@@ -1,0 +1,118 @@
+/**
+ * The full set of trend statistics for one series, and for many series with the Benjamini-Hochberg
+ * adjustment across them. Used by the `trend` command, the bulletin's trend pages and the
+ * benchmark, so all three report the same numbers.
+ */
+import { benjaminiHochberg, hamedRao, mannKendall, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
+
+/** A plain array or a typed array. */
+export type Numbers = ArrayLike<number> & Iterable<number>;
+
+export interface TrendSeries {
+  key: string;
+  /** Decimal years. */
+  times: Numbers;
+  /** Month indices (year × 12 + month − 1); needed for seasonal tests. */
+  months?: Numbers;
+  /** NaN = missing. */
+  values: Numbers;
+}
+
+export interface TrendOptions {
+  seasonal: boolean;
+  /** Sen's slope confidence level; default 0.95. */
+  confidence?: number;
+  /** False discovery rate for the adjustment across series; default 0.05. */
+  falseDiscoveryRate?: number;
+}
+
+export interface TrendRow {
+  series: string;
+  n: number;
+  s: number;
+  varianceS: number;
+  z: number;
+  p: number;
+  zUncorrected: number;
+  pUncorrected: number;
+  tau: number;
+  slopePerYear: number;
+  intercept: number;
+  slopeLower: number;
+  slopeUpper: number;
+  autocorrelationFactor: number;
+  autocorrelationZ: number;
+  autocorrelationP: number;
+  changePointK: number;
+  /** Index (0-based, in the series as given) of the first value after the change; -1 when none. */
+  changePointIndex: number;
+  changePointP: number;
+  seasonalS: number;
+  seasonalVarianceS: number;
+  seasonalZ: number;
+  seasonalP: number;
+  seasonalSlopePerYear: number;
+  seasonalCovarianceZ: number;
+  seasonalCovarianceP: number;
+  /** The p value the adjustment uses: the seasonal one with --seasonal, else the plain Mann-Kendall one. */
+  testP: number;
+  pAdjusted: number;
+  rejected: boolean;
+  reason: string;
+}
+
+/** Every statistic for one series; cost O(n²). */
+export function trendRow(series: TrendSeries, options: TrendOptions): Omit<TrendRow, 'pAdjusted' | 'rejected'> {
+  const plain = mannKendall(series.values);
+  const slope = sensSlope(series.times, series.values, { confidence: options.confidence ?? 0.95 });
+  const corrected = hamedRao(series.times, series.values);
+  const change = pettitt(series.values);
+  const observedIndex: number[] = [];
+  for (let k = 0; k < series.values.length; k++) if (Number.isFinite(series.values[k])) observedIndex.push(k);
+  let seasonal = null;
+  if (options.seasonal) {
+    if (!series.months || Array.from(series.months).some((month) => Number.isNaN(month))) throw new RangeError('seasonal trends require monthly times');
+    seasonal = seasonalKendall(series.months, series.values);
+  }
+  const reasons = [plain.reason && `mann-kendall: ${plain.reason}`, corrected.reason && corrected.reason !== plain.reason ? `autocorrelation: ${corrected.reason}` : null, seasonal?.reason ? `seasonal: ${seasonal.reason}` : null, seasonal && !seasonal.covariance.applied ? `seasonal covariance: too few years (${seasonal.covariance.fewestYears} of ${seasonal.covariance.neededYears})` : null].filter(Boolean);
+  return {
+    series: series.key,
+    n: plain.n,
+    s: plain.s,
+    varianceS: plain.varianceS,
+    z: plain.z,
+    p: plain.p,
+    zUncorrected: plain.zUncorrected,
+    pUncorrected: plain.pUncorrected,
+    tau: plain.tau,
+    slopePerYear: slope.slope,
+    intercept: slope.intercept,
+    slopeLower: slope.lower,
+    slopeUpper: slope.upper,
+    autocorrelationFactor: corrected.correctionFactor,
+    autocorrelationZ: corrected.z,
+    autocorrelationP: corrected.p,
+    changePointK: change.k,
+    changePointIndex: change.reason === null ? (observedIndex[change.location] ?? -1) : -1,
+    changePointP: change.p,
+    seasonalS: seasonal?.s ?? Number.NaN,
+    seasonalVarianceS: seasonal?.varianceS ?? Number.NaN,
+    seasonalZ: seasonal?.z ?? Number.NaN,
+    seasonalP: seasonal?.p ?? Number.NaN,
+    seasonalSlopePerYear: seasonal?.slope ?? Number.NaN,
+    seasonalCovarianceZ: seasonal?.covariance.applied ? seasonal.covariance.z : Number.NaN,
+    seasonalCovarianceP: seasonal?.covariance.applied ? seasonal.covariance.p : Number.NaN,
+    testP: seasonal ? seasonal.p : plain.p,
+    reason: reasons.join('; '),
+  };
+}
+
+/** Adds the Benjamini-Hochberg adjusted p and decision across rows. */
+export function adjustAcrossSeries(rows: Array<Omit<TrendRow, 'pAdjusted' | 'rejected'>>, falseDiscoveryRate = 0.05): TrendRow[] {
+  const adjusted = benjaminiHochberg(rows.map((row) => row.testP), falseDiscoveryRate);
+  return rows.map((row, k) => ({ ...row, pAdjusted: adjusted.adjusted[k] as number, rejected: adjusted.rejected[k] as boolean }));
+}
+
+export function trendTable(series: TrendSeries[], options: TrendOptions): TrendRow[] {
+  return adjustAcrossSeries(series.map((entry) => trendRow(entry, options)), options.falseDiscoveryRate);
+}
