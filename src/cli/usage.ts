@@ -8,6 +8,7 @@ Usage: limnopress <command> [options]
 
 Commands:
   build <bulletin-folder> --out <dir>      check the inputs and build the bulletin site
+  check <bulletin-folder>                  check the inputs only, and list every problem
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
   help [command]                           show help for a command
 
@@ -24,6 +25,17 @@ Options:
   -o, --out <dir>   where the site goes (default: _site)
   -q, --quiet       print nothing but errors
   -h, --help        show this help
+`,
+  check: `Usage: limnopress check <bulletin-folder>
+
+Reads bulletin.json and every table it names, and lists every problem found, grouped by file and
+in line order, then a count. Nothing is written.
+
+Exit status: 0 when there are no errors (warnings allowed), 1 when there are errors, 2 on a usage
+error.
+
+Options:
+  -h, --help   show this help
 `,
   trend: `Usage: limnopress trend <table.csv> --time <col> --value <col> [--by <col>] [--seasonal]
                         [--format csv|json] [--confidence 0.95] [--fdr 0.05] [--workers N]

@@ -1,7 +1,7 @@
 /**
  * The bulletin configuration (`bulletin.json` in a bulletin folder). The zod schema is the single
  * source of truth: the TypeScript type is inferred from it, and validation turns every schema issue
- * into a Problem with a JSON path.
+ * into a Problem with the line of the key in the file and, for an unknown key, the nearest known one.
  */
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
@@ -9,9 +9,11 @@ import { ProblemList } from './problems.ts';
 
 const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'a month as YYYY-MM');
 const date = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'a date as YYYY-MM-DD');
+/** Rising class boundaries in hectares: [100, 10000] makes three classes. */
+const boundaries = z.array(z.number().positive()).min(1).refine((list) => list.every((value, k) => k === 0 || value > (list[k - 1] as number)), 'boundaries must rise');
 
 const statusBand = z.strictObject({
-  /** Short key used in data files and CSS classes. */
+  /** Short key used in data files, CSS classes and the wording catalogue (band.<key>). */
   key: z.string().regex(/^[a-z][a-z-]*$/),
   /** Lower bound, percent of the baseline median, inclusive; the lowest band has none. */
   fromPercent: z.number().nullable(),
@@ -38,14 +40,26 @@ export const configSchema = z.strictObject({
     minObservedShare: z.number().min(0).max(1).default(0.6),
     /** Below this share of the region's reference area observed, no regional figure is stated. */
     minRegionCoverage: z.number().min(0).max(1).default(0.5),
+    /** Gaps of up to this many months are filled by linear interpolation (and flagged). */
+    maxFilledGap: z.number().int().min(0).max(12).default(2),
   }),
+  sizeClasses: z
+    .strictObject({
+      /** Class boundaries for surface water (ha). */
+      surface: boundaries.default([100, 10_000]),
+      /** Class boundaries for water quality (ha); bodies under the first are left out. */
+      quality: boundaries.default([1, 5, 10, 100]),
+    })
+    .default({ surface: [100, 10_000], quality: [1, 5, 10, 100] }),
   statusBands: z.array(statusBand).min(2),
+  csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
   site: z.strictObject({ baseUrl: z.url() }),
   locales: z.array(z.enum(['en'])).min(1).default(['en']),
   inputs: z.strictObject({
     inventory: z.string(),
     surfaceArea: z.string(),
     quality: z.string().optional(),
+    distribution: z.string().optional(),
     rainfall: z.string().optional(),
     field: z.string().optional(),
     boundaries: z.string(),
@@ -54,38 +68,101 @@ export const configSchema = z.strictObject({
 
 export type BulletinConfig = z.infer<typeof configSchema>;
 
+/** Levenshtein distance, for "did you mean". O(a·b). */
+function distance(a: string, b: string): number {
+  const row = Array.from({ length: b.length + 1 }, (_, k) => k);
+  for (let i = 1; i <= a.length; i++) {
+    let diagonal = row[0] as number;
+    row[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const above = row[j] as number;
+      row[j] = Math.min(above + 1, (row[j - 1] as number) + 1, diagonal + (a[i - 1] === b[j - 1] ? 0 : 1));
+      diagonal = above;
+    }
+  }
+  return row[b.length] as number;
+}
+
+/** The object schema at a path of the configuration, to list the keys it knows. */
+function knownKeys(path: PropertyKey[]): string[] {
+  let schema: unknown = configSchema;
+  for (const key of path) {
+    let inner = schema as { shape?: Record<string, unknown>; def?: { innerType?: unknown; element?: unknown } };
+    while (!inner.shape && inner.def?.innerType) inner = inner.def.innerType as typeof inner;
+    if (typeof key === 'number' && inner.def?.element) schema = inner.def.element;
+    else schema = inner.shape?.[String(key)];
+    if (!schema) return [];
+  }
+  let last = schema as { shape?: Record<string, unknown>; def?: { innerType?: unknown } };
+  while (!last.shape && last.def?.innerType) last = last.def.innerType as typeof last;
+  return Object.keys(last.shape ?? {});
+}
+
+export function didYouMean(key: string, known: string[]): string {
+  let best = '';
+  let bestDistance = Infinity;
+  for (const candidate of known) {
+    const d = distance(key.toLowerCase(), candidate.toLowerCase());
+    if (d < bestDistance) {
+      best = candidate;
+      bestDistance = d;
+    }
+  }
+  return bestDistance <= Math.max(2, Math.floor(key.length / 3)) ? best : '';
+}
+
+/** 1-based line of the last key of a path in the JSON text, found by walking the keys in order. */
+export function lineOfPath(text: string, path: PropertyKey[]): number {
+  let at = 0;
+  for (const key of path) {
+    if (typeof key === 'number') continue;
+    const found = text.indexOf(`"${String(key)}"`, at);
+    if (found < 0) break;
+    at = found;
+  }
+  return at === 0 && path.length > 0 ? 0 : text.slice(0, at).split('\n').length;
+}
+
 /** Reads and validates a configuration file; returns null when it cannot be used. */
 export function readConfig(path: string, label: string, problems: ProblemList): BulletinConfig | null {
+  let text: string;
   let raw: unknown;
   try {
-    raw = JSON.parse(readFileSync(path, 'utf8'));
+    text = readFileSync(path, 'utf8').replace(/^\uFEFF/, '');
+  } catch {
+    problems.error({ code: 'config-missing', file: label, line: 0, column: '', value: '', expected: 'a bulletin.json in the bulletin folder', message: 'the configuration file cannot be read' });
+    return null;
+  }
+  try {
+    raw = JSON.parse(text);
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    problems.error({ code: 'config-unreadable', file: label, line: 0, column: '', value: '', expected: 'a JSON file', message: `cannot read the configuration: ${message}` });
+    const position = /position (\d+)/.exec(message);
+    const line = position ? text.slice(0, Number(position[1])).split('\n').length : 0;
+    problems.error({ code: 'config-not-json', file: label, line, column: '', value: '', expected: 'valid JSON', message: `the configuration is not valid JSON: ${message}` });
     return null;
   }
   const parsed = configSchema.safeParse(raw);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
-      problems.error({
-        code: 'config-invalid',
-        file: label,
-        line: 0,
-        column: issue.path.join('.'),
-        value: '',
-        expected: '',
-        message: issue.message,
-      });
+      if (issue.code === 'unrecognized_keys') {
+        for (const key of issue.keys) {
+          const suggestion = didYouMean(key, knownKeys(issue.path));
+          problems.error({ code: 'config-unknown-key', file: label, line: lineOfPath(text, [...issue.path, key]), column: [...issue.path, key].join('.'), value: key, expected: suggestion ? `did you mean "${suggestion}"?` : `one of ${knownKeys(issue.path).join(', ')}`, message: 'the configuration has an unknown key' });
+        }
+        continue;
+      }
+      problems.error({ code: 'config-invalid', file: label, line: lineOfPath(text, issue.path), column: issue.path.join('.'), value: '', expected: '', message: issue.message });
     }
     return null;
   }
   const config = parsed.data;
   if (config.baseline.firstYear > config.baseline.lastYear) {
-    problems.error({ code: 'config-baseline-order', file: label, line: 0, column: 'baseline', value: `${config.baseline.firstYear}-${config.baseline.lastYear}`, expected: 'firstYear no later than lastYear', message: 'the baseline period ends before it starts' });
+    problems.error({ code: 'config-baseline-order', file: label, line: lineOfPath(text, ['baseline']), column: 'baseline', value: `${config.baseline.firstYear}-${config.baseline.lastYear}`, expected: 'firstYear no later than lastYear', message: 'the baseline period ends before it starts' });
   }
   const bands = config.statusBands;
   if (bands[0]?.fromPercent !== null || bands.slice(1).some((band, k) => band.fromPercent === null || band.fromPercent <= (bands[k]?.fromPercent ?? -Infinity))) {
-    problems.error({ code: 'config-status-bands', file: label, line: 0, column: 'statusBands', value: '', expected: 'the first band with fromPercent null, then strictly rising bounds', message: 'status bands must cover all values in rising order' });
+    problems.error({ code: 'config-status-bands', file: label, line: lineOfPath(text, ['statusBands']), column: 'statusBands', value: '', expected: 'the first band with fromPercent null, then strictly rising bounds', message: 'status bands must cover all values in rising order' });
   }
   return config;
 }

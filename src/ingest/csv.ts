@@ -1,9 +1,14 @@
 /**
- * Streaming CSV reading with papaparse: the file is never held as one string. Each data row
- * reaches the caller with its 1-based line number (the header is line 1) and its fields by column.
+ * Table reading. CSV goes through papaparse in streaming chunk mode (a file is never held as one
+ * string), after strict UTF-8 decoding; the delimiter (comma or semicolon) is detected from the
+ * header line. Parquet goes through hyparquet. Either way each data row reaches the caller as an
+ * array of texts with its line number (CSV: the header is line 1; Parquet: row k is line k + 1, so
+ * numbers mean the same in both) and a map from column name to position.
  */
-import { createReadStream, existsSync } from 'node:fs';
+import { createReadStream, existsSync, statSync } from 'node:fs';
 import Papa from 'papaparse';
+import { asyncBufferFromFile, parquetReadObjects } from 'hyparquet';
+import { EncodingError, StrictUtf8 } from './encoding.ts';
 import type { ProblemList } from './problems.ts';
 
 export interface ColumnSpec {
@@ -11,49 +16,107 @@ export interface ColumnSpec {
   required: boolean;
 }
 
-export type RowHandler = (fields: Record<string, string>, line: number) => void;
+/** Position of each known column in the row, or -1 when the file lacks it. */
+export type ColumnIndex = Record<string, number>;
 
-export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
-  if (!existsSync(path)) {
+export type RowHandler = (values: string[], line: number, columns: ColumnIndex) => void;
+
+export async function readTable(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
+  if (!existsSync(path) || !statSync(path).isFile()) {
     problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'an existing file', message: 'the file does not exist' });
     return 0;
   }
+  return path.toLowerCase().endsWith('.parquet') ? readParquet(path, label, columns, problems, onRow) : readCsv(path, label, columns, problems, onRow);
+}
+
+export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
   let header: string[] | null = null;
+  let index: ColumnIndex = {};
   let usable = true;
   let line = 0;
   let rows = 0;
-  await new Promise<void>((resolve, reject) => {
-    Papa.parse<string[]>(createReadStream(path, { encoding: 'utf8' }), {
-      header: false,
-      skipEmptyLines: true,
-      step: (result) => {
-        line++;
-        const values = result.data;
-        if (header === null) {
-          header = values.map((name, k) => (k === 0 ? name.replace(/^\uFEFF/, '') : name).trim());
-          usable = checkHeader(header, label, columns, problems);
-          return;
-        }
-        if (!usable) return;
-        if (values.length !== header.length) {
-          problems.error({ code: 'field-count', file: label, line, column: '', value: String(values.length), expected: `${header.length} fields`, message: 'the row has the wrong number of fields' });
-          return;
-        }
-        const fields: Record<string, string> = {};
-        header.forEach((name, k) => (fields[name] = (values[k] ?? '').trim()));
-        rows++;
-        onRow(fields, line);
-      },
-      complete: () => resolve(),
-      error: (error: Error) => reject(error),
+  const decoded = createReadStream(path).pipe(new StrictUtf8());
+  try {
+    await new Promise<void>((resolve, reject) => {
+      decoded.on('error', reject);
+      Papa.parse<string[]>(decoded as unknown as File, {
+        header: false,
+        skipEmptyLines: true,
+        delimitersToGuess: [',', ';'],
+        chunk: (result) => {
+          for (const values of result.data) {
+            line++;
+            if (header === null) {
+              header = values.map((name) => name.trim());
+              index = columnIndex(header, columns);
+              usable = checkHeader(header, label, columns, problems);
+              continue;
+            }
+            if (!usable) continue;
+            if (values.length !== header.length) {
+              problems.error({ code: 'field-count', file: label, line, column: '', value: String(values.length), expected: `${header.length} fields, as in the header`, message: 'the row has the wrong number of fields' });
+              continue;
+            }
+            rows++;
+            onRow(values, line, index);
+          }
+        },
+        complete: () => resolve(),
+        error: (error: Error) => reject(error),
+      });
     });
+  } catch (error) {
+    if (!(error instanceof EncodingError)) throw error;
+    const guess = error.guess ? `; it looks like ${error.guess}: convert it to UTF-8` : '; convert it to UTF-8';
+    problems.error({ code: 'not-utf8', file: label, line: error.line, column: '', value: '', expected: 'UTF-8 text', message: `the file is not UTF-8${guess}` });
+    return rows;
+  }
+  finish(header !== null, usable, rows, label, problems);
+  return rows;
+}
+
+async function readParquet(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
+  let records: Array<Record<string, unknown>>;
+  try {
+    records = (await parquetReadObjects({ file: await asyncBufferFromFile(path) })) as Array<Record<string, unknown>>;
+  } catch (error) {
+    problems.error({ code: 'parquet-unreadable', file: label, line: 0, column: '', value: '', expected: 'a Parquet file', message: `cannot read the Parquet file: ${error instanceof Error ? error.message : String(error)}` });
+    return 0;
+  }
+  const header = records[0] ? Object.keys(records[0]) : [];
+  if (records.length === 0) {
+    problems.error({ code: 'no-rows', file: label, line: 1, column: '', value: '', expected: 'at least one data row', message: 'the file has no data rows' });
+    return 0;
+  }
+  const index = columnIndex(header, columns);
+  if (!checkHeader(header, label, columns, problems)) return 0;
+  records.forEach((record, k) => {
+    const values = header.map((name) => text(record[name]));
+    onRow(values, k + 2, index);
   });
-  if (header === null) {
+  return records.length;
+}
+
+/** Parquet cells as the text a CSV would hold: numbers in full precision, dates as ISO days. */
+function text(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  if (value instanceof Date) return value.toISOString().slice(0, 10);
+  if (typeof value === 'bigint') return value.toString();
+  return String(value);
+}
+
+function columnIndex(header: string[], columns: ColumnSpec[]): ColumnIndex {
+  const index: ColumnIndex = {};
+  for (const column of columns) index[column.name] = header.indexOf(column.name);
+  return index;
+}
+
+function finish(hadHeader: boolean, usable: boolean, rows: number, label: string, problems: ProblemList): void {
+  if (!hadHeader) {
     problems.error({ code: 'file-empty', file: label, line: 0, column: '', value: '', expected: 'a header line and data rows', message: 'the file is empty' });
   } else if (usable && rows === 0) {
     problems.error({ code: 'no-rows', file: label, line: 1, column: '', value: '', expected: 'at least one data row', message: 'the file has a header but no data rows' });
   }
-  return rows;
 }
 
 function checkHeader(header: string[], label: string, columns: ColumnSpec[], problems: ProblemList): boolean {
@@ -64,7 +127,13 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
       usable = false;
     }
   }
+  const seen = new Set<string>();
   for (const name of header) {
+    if (seen.has(name)) {
+      problems.error({ code: 'column-duplicate', file: label, line: 1, column: name, value: name, expected: 'each column once', message: 'a column name appears twice' });
+      usable = false;
+    }
+    seen.add(name);
     if (!columns.some((column) => column.name === name)) {
       problems.warning({ code: 'column-unknown', file: label, line: 1, column: name, value: name, expected: columns.map((c) => c.name).join(', '), message: 'an unknown column is ignored' });
     }

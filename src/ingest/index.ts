@@ -9,12 +9,16 @@ import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from './months.ts';
 import { ProblemList } from './problems.ts';
-import { readInventory, readRainfall, readSurfaceArea, type AreaRecord, type RainfallRecord, type WaterBody } from './tables.ts';
+import {
+  readDistributionBins, readField, readInventory, readQuality, readRainfall, readSurfaceArea,
+  type AreaTable, type DistributionBin, type FieldRecord, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody,
+} from './tables.ts';
 
 export type { BulletinConfig } from './config.ts';
 export type { SubRegion } from './geojson.ts';
-export type { AreaRecord, RainfallRecord, WaterBody } from './tables.ts';
-export { InputError, formatProblem, ProblemList, type Problem } from './problems.ts';
+export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tables.ts';
+export { QUALITY_PARAMETERS } from './tables.ts';
+export { describeFound, InputError, formatProblem, ProblemList, type Problem } from './problems.ts';
 export { monthLabel, parseMonth, calendarMonthOf, yearOf } from './months.ts';
 
 export const CONFIG_FILE = 'bulletin.json';
@@ -30,8 +34,11 @@ export interface BulletinInputs {
   config: BulletinConfig;
   bulletinMonth: number;
   bodies: WaterBody[];
-  area: AreaRecord[];
+  area: AreaTable;
+  quality: QualityTable | null;
+  distribution: DistributionBin[];
   rainfall: RainfallRecord[];
+  field: FieldRecord[];
   subRegions: SubRegion[];
   files: InputFile[];
 }
@@ -46,54 +53,67 @@ function hashFile(folder: string, path: string): InputFile {
   return { path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.length };
 }
 
+/** Reads and checks everything; `inputs` is null when any error was found. */
 export async function loadBulletin(folder: string): Promise<IngestResult> {
   const problems = new ProblemList();
   const config = readConfig(join(folder, CONFIG_FILE), CONFIG_FILE, problems);
   if (!config) return { inputs: null, problems };
 
   const paths = config.inputs;
-  const subRegions = readBoundaries(join(folder, paths.boundaries), paths.boundaries, problems);
-  const bodies = await readInventory(join(folder, paths.inventory), paths.inventory, problems);
-  const ids = new Set(bodies.map((body) => body.id));
-  const area = await readSurfaceArea(join(folder, paths.surfaceArea), paths.surfaceArea, ids, problems);
-  const rainfall = paths.rainfall ? await readRainfall(join(folder, paths.rainfall), paths.rainfall, problems) : [];
   const bulletinMonth = parseMonth(config.issue.month) as number;
+  const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal };
+  const subRegions = readBoundaries(join(folder, paths.boundaries), paths.boundaries, problems);
+  const regionIds = new Set(subRegions.map((region) => region.id));
+  const bodies = await readInventory(join(folder, paths.inventory), paths.inventory, context);
+  const area = await readSurfaceArea(join(folder, paths.surfaceArea), paths.surfaceArea, bodies, context);
+  const quality = paths.quality ? await readQuality(join(folder, paths.quality), paths.quality, bodies, context) : null;
+  const distribution = paths.distribution ? await readDistributionBins(join(folder, paths.distribution), paths.distribution, regionIds, context) : [];
+  const rainfall = paths.rainfall ? await readRainfall(join(folder, paths.rainfall), paths.rainfall, regionIds, context) : [];
+  const field = paths.field ? await readField(join(folder, paths.field), paths.field, bodies, context) : [];
 
   crossCheck(config, bulletinMonth, bodies, area, subRegions, problems);
   if (problems.errors.length > 0) return { inputs: null, problems };
 
-  // Months after the bulletin month belong to a later issue: left out, with a warning.
-  const kept = area.filter((record) => record.month <= bulletinMonth);
-  if (kept.length < area.length) {
-    problems.warning({ code: 'month-after-bulletin', file: paths.surfaceArea, line: 0, column: 'month', value: String(area.length - kept.length), expected: `months up to ${config.issue.month}`, message: 'rows after the bulletin month are ignored' });
-  }
-  const used = [paths.inventory, paths.surfaceArea, paths.boundaries, paths.rainfall].filter((path): path is string => Boolean(path));
+  const used = [paths.inventory, paths.surfaceArea, paths.quality, paths.distribution, paths.rainfall, paths.field, paths.boundaries].filter((path): path is string => Boolean(path));
   const files = [CONFIG_FILE, ...used].sort().map((path) => hashFile(folder, path));
-  return {
-    inputs: { config, bulletinMonth, bodies, area: kept, rainfall: rainfall.filter((r) => r.month <= bulletinMonth), subRegions, files },
-    problems,
-  };
+  return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files }, problems };
 }
 
-function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaRecord[], subRegions: SubRegion[], problems: ProblemList): void {
+function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaTable, subRegions: SubRegion[], problems: ProblemList): void {
   const paths = config.inputs;
   const regionIds = new Set(subRegions.map((region) => region.id));
   if (subRegions.length > 0) {
-    for (const id of new Set(bodies.map((body) => body.subRegionId))) {
+    const firstLine = new Map<string, number>();
+    for (const body of bodies) if (!firstLine.has(body.subRegionId)) firstLine.set(body.subRegionId, body.line);
+    for (const [id, line] of firstLine) {
       if (!regionIds.has(id)) {
-        problems.error({ code: 'subregion-without-boundary', file: paths.boundaries, line: 0, column: 'subregion_id', value: id, expected: 'a feature for every sub-region of the inventory', message: 'a sub-region of the inventory has no boundary' });
+        problems.error({ code: 'subregion-without-boundary', file: paths.inventory, line, column: 'subregion_id', value: id, expected: `a feature with this subregion_id in ${paths.boundaries}`, message: 'the sub-region has no boundary' });
       }
     }
   }
-  if (area.length === 0) return;
-  if (!area.some((record) => record.month === bulletinMonth)) {
-    problems.error({ code: 'bulletin-month-without-data', file: CONFIG_FILE, line: 0, column: 'issue.month', value: config.issue.month, expected: 'a month present in the surface-area table', message: 'the surface-area table has no row for the bulletin month' });
+  if (bodies.length === 0 || area.length === 0) return;
+  const hasData = new Uint8Array(bodies.length);
+  let inBulletinMonth = false;
+  let firstYear = Infinity;
+  let lastYear = -Infinity;
+  for (let k = 0; k < area.length; k++) {
+    hasData[area.body[k] as number] = 1;
+    const month = area.month[k] as number;
+    if (month === bulletinMonth) inBulletinMonth = true;
+    firstYear = Math.min(firstYear, yearOf(month));
+    lastYear = Math.max(lastYear, yearOf(month));
   }
-  const years = new Set(area.map((record) => yearOf(record.month)));
-  const { firstYear, lastYear } = config.baseline;
-  const first = Math.min(...years);
-  const last = Math.max(...years);
-  if (firstYear < first || lastYear > last) {
-    problems.error({ code: 'baseline-outside-data', file: CONFIG_FILE, line: 0, column: 'baseline', value: `${firstYear}-${lastYear}`, expected: `years within ${monthLabel(first * 12).slice(0, 4)}-${last}`, message: 'the baseline period reaches beyond the surface-area data' });
+  bodies.forEach((body, k) => {
+    if (!hasData[k]) problems.warning({ code: 'body-without-data', file: paths.inventory, line: body.line, column: 'body_id', value: body.id, expected: `rows in ${paths.surfaceArea}`, message: 'the water body has no surface-area data' });
+  });
+  if (!inBulletinMonth) {
+    problems.error({ code: 'bulletin-month-without-data', file: CONFIG_FILE, line: 0, column: 'issue.month', value: config.issue.month, expected: `a month present in ${paths.surfaceArea}`, message: 'the surface-area table has no row for the bulletin month' });
+  }
+  const { firstYear: baselineFirst, lastYear: baselineLast } = config.baseline;
+  if (baselineFirst < firstYear || baselineLast > lastYear) {
+    problems.error({ code: 'baseline-outside-data', file: CONFIG_FILE, line: 0, column: 'baseline', value: `${baselineFirst}-${baselineLast}`, expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`, message: 'the baseline period reaches beyond the surface-area data' });
+  }
+  if (baselineLast >= yearOf(bulletinMonth)) {
+    problems.warning({ code: 'baseline-includes-bulletin-year', file: CONFIG_FILE, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself` });
   }
 }

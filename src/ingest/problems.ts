@@ -18,11 +18,18 @@ export interface Problem {
   message: string;
 }
 
+/** Problems of one kind in one file kept in full; the rest are counted in one closing line. */
+export const PROBLEMS_KEPT_PER_KIND = 50;
+
 export class ProblemList {
   readonly items: Problem[] = [];
+  private readonly perKind = new Map<string, number>();
 
   add(problem: Problem): void {
-    this.items.push(problem);
+    const kind = `${problem.severity} ${problem.file} ${problem.code}`;
+    const count = (this.perKind.get(kind) ?? 0) + 1;
+    this.perKind.set(kind, count);
+    if (count <= PROBLEMS_KEPT_PER_KIND) this.items.push(problem);
   }
 
   error(fields: Omit<Problem, 'severity'>): void {
@@ -33,6 +40,17 @@ export class ProblemList {
     this.add({ severity: 'warning', ...fields });
   }
 
+  /** How many problems were found in all, those not kept in full included. */
+  get total(): { errors: number; warnings: number } {
+    let errors = 0;
+    let warnings = 0;
+    for (const [kind, count] of this.perKind) {
+      if (kind.startsWith('error ')) errors += count;
+      else warnings += count;
+    }
+    return { errors, warnings };
+  }
+
   get errors(): Problem[] {
     return this.items.filter((problem) => problem.severity === 'error');
   }
@@ -41,19 +59,36 @@ export class ProblemList {
     return this.items.filter((problem) => problem.severity === 'warning');
   }
 
-  /** Problems sorted by file, then line, then column, so a person can work down the list. */
+  /**
+   * Problems sorted by file, then line (errors before warnings), then column, so a person can work
+   * down the list; where a
+   * kind was cut short, a closing line per file says how many more there were.
+   */
   sorted(): Problem[] {
-    return [...this.items].sort(
-      (a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.column.localeCompare(b.column) || a.code.localeCompare(b.code),
+    const more: Problem[] = [];
+    for (const [kind, count] of this.perKind) {
+      if (count <= PROBLEMS_KEPT_PER_KIND) continue;
+      const sample = this.items.find((problem) => `${problem.severity} ${problem.file} ${problem.code}` === kind) as Problem;
+      more.push({ ...sample, line: Number.MAX_SAFE_INTEGER, column: '', value: '', expected: '', message: `${count - PROBLEMS_KEPT_PER_KIND} more problem(s) of this kind (${sample.code}) not listed` });
+    }
+    return [...this.items, ...more].sort(
+      (a, b) => a.file.localeCompare(b.file) || a.line - b.line || (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || a.column.localeCompare(b.column) || a.code.localeCompare(b.code),
     );
   }
 }
 
+/** The bracket after a message: what was found and what was expected (or a suggestion). */
+export function describeFound(problem: Problem): string {
+  const expected = problem.expected === '' ? '' : problem.expected.startsWith('did you mean') ? problem.expected : `expected ${problem.expected}`;
+  if (problem.value !== '') return ` (found "${problem.value}"${expected ? `; ${expected}` : ''})`;
+  return expected ? ` (${expected})` : '';
+}
+
 /** One line a problem: `file:line column: message (found "x", expected y)`. */
 export function formatProblem(problem: Problem): string {
-  const where = problem.line > 0 ? `${problem.file}:${problem.line}` : problem.file;
+  const where = problem.line > 0 && problem.line < Number.MAX_SAFE_INTEGER ? `${problem.file}:${problem.line}` : problem.file;
   const column = problem.column ? ` [${problem.column}]` : '';
-  const found = problem.value !== '' ? ` (found "${problem.value}"; expected ${problem.expected})` : problem.expected ? ` (expected ${problem.expected})` : '';
+  const found = describeFound(problem);
   return `${problem.severity} ${where}${column}: ${problem.message}${found}`;
 }
 

@@ -3,7 +3,7 @@
  * column, a value column and optionally a column naming the series. Every bad cell is a problem
  * with file, line and column; an empty value cell is a missing value.
  */
-import { readCsv } from './csv.ts';
+import { readTable } from './csv.ts';
 import type { ProblemList } from './problems.ts';
 
 export interface SeriesInput {
@@ -59,9 +59,9 @@ export interface SeriesColumns {
 export async function readSeriesTable(path: string, label: string, columns: SeriesColumns, problems: ProblemList): Promise<SeriesInput[]> {
   const rows = new Map<string, Array<{ time: ParsedTime; label: string; value: number; line: number }>>();
   const specs = [columns.time, columns.value, ...(columns.by ? [columns.by] : [])].map((name) => ({ name, required: true }));
-  await readCsv(path, label, specs, problems, (fields, line) => {
-    const timeText = fields[columns.time] ?? '';
-    const valueText = fields[columns.value] ?? '';
+  await readTable(path, label, specs, problems, (values, line, at) => {
+    const timeText = (values[at[columns.time]!] ?? '').trim();
+    const valueText = (values[at[columns.value]!] ?? '').trim();
     const time = parseTime(timeText);
     if (!time) {
       problems.error({ code: 'time-invalid', file: label, line, column: columns.time, value: timeText, expected: 'YYYY-MM, YYYY-MM-DD or a number of years', message: 'the time cannot be read' });
@@ -75,7 +75,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
         return;
       }
     }
-    const key = columns.by ? (fields[columns.by] ?? '') : 'all';
+    const key = columns.by ? (values[at[columns.by]!] ?? '').trim() : 'all';
     const list = rows.get(key) ?? [];
     list.push({ time, label: timeText, value, line });
     rows.set(key, list);

@@ -1,10 +1,13 @@
 /**
- * Readers for the bulletin's tables. Each turns text fields into typed records and reports every
- * bad value as a Problem naming file, line and column; a bad row is left out, never guessed at.
+ * Readers for the bulletin's tables (formats in docs/input-format.md). Large tables (surface area,
+ * water quality) are kept as typed columns, the small ones as records. A bad cell drops its row
+ * and is reported with file, line and column; nothing is guessed.
  */
+import { CellReader, type DecimalMark } from './cells.ts';
+import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
+import { readTable } from './csv.ts';
+import { monthLabel } from './months.ts';
 import type { ProblemList } from './problems.ts';
-import { readCsv } from './csv.ts';
-import { parseMonth } from './months.ts';
 
 export interface WaterBody {
   id: string;
@@ -15,142 +18,335 @@ export interface WaterBody {
   referenceHa: number;
   kind: string;
   ownPage: boolean;
+  /** Line in the inventory file. */
+  line: number;
 }
 
-export interface AreaRecord {
-  bodyId: string;
-  month: number;
-  waterHa: number;
-  observedShare: number;
-  scenes: number;
+/** Surface area by body and month, one entry per row, as columns. */
+export interface AreaTable {
+  length: number;
+  /** Position of the body in the inventory. */
+  body: Int32Array;
+  month: Int32Array;
+  waterHa: Float64Array;
+  observedShare: Float64Array;
+  scenes: Float64Array;
+  line: Int32Array;
+}
+
+export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
+export type QualityParameter = (typeof QUALITY_PARAMETERS)[number];
+/** Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). */
+export const QUALITY_UNITS: Record<QualityParameter, string[]> = {
+  chlorophyll_a: ['ug/L', 'µg/L', 'μg/L', 'mg/m3', 'mg/m³'],
+  turbidity: ['FNU'],
+};
+
+export interface QualityTable {
+  length: number;
+  body: Int32Array;
+  month: Int32Array;
+  /** Index into QUALITY_PARAMETERS. */
+  parameter: Int32Array;
+  /** NaN where the file has no such column or an empty cell. */
+  p10: Float64Array;
+  p25: Float64Array;
+  median: Float64Array;
+  p75: Float64Array;
+  p90: Float64Array;
+  pixels: Float64Array;
+  line: Int32Array;
 }
 
 export interface RainfallRecord {
   subRegionId: string;
   month: number;
   rainfallMm: number;
+  line: number;
 }
 
-/** Field parsing for one row: each method records a problem and returns null on a bad value. */
-class RowReader {
-  constructor(
-    private readonly fields: Record<string, string>,
-    private readonly line: number,
-    private readonly file: string,
-    private readonly problems: ProblemList,
-  ) {}
+export interface FieldRecord {
+  bodyId: string;
+  body: number;
+  /** Days since 1970-01-01. */
+  day: number;
+  month: number;
+  parameter: QualityParameter;
+  value: number;
+  line: number;
+}
 
-  ok = true;
+export interface DistributionBin {
+  subRegionId: string;
+  month: number;
+  parameter: QualityParameter;
+  lower: number;
+  upper: number;
+  count: number;
+  line: number;
+}
 
-  private fail(code: string, column: string, expected: string, message: string): null {
-    this.ok = false;
-    this.problems.error({ code, file: this.file, line: this.line, column, value: this.fields[column] ?? '', expected, message });
-    return null;
+export interface ReadContext {
+  problems: ProblemList;
+  bulletinMonth: number;
+  decimal: DecimalMark | 'auto';
+}
+
+/** The earliest month a table may hold; older rows are refused as out of range. */
+export const FIRST_MONTH = 1950 * 12;
+
+const spec = (required: string[], optional: string[] = []) => [...required.map((name) => ({ name, required: true })), ...optional.map((name) => ({ name, required: false }))];
+
+/** Months after the bulletin month belong to a later issue: skipped with one warning per file. */
+class LaterMonths {
+  private count = 0;
+  private firstLine = 0;
+  constructor(private readonly file: string, private readonly context: ReadContext) {}
+  skip(month: number, line: number): boolean {
+    if (month <= this.context.bulletinMonth) return false;
+    if (this.count++ === 0) this.firstLine = line;
+    return true;
   }
-
-  text(column: string): string {
-    const value = this.fields[column] ?? '';
-    if (value === '') this.fail('value-empty', column, 'a value', 'the value is empty');
-    return value;
+  report(): void {
+    if (this.count === 0) return;
+    this.context.problems.warning({ code: 'month-after-bulletin', file: this.file, line: this.firstLine, column: 'month', value: String(this.count), expected: `months up to ${monthLabel(this.context.bulletinMonth)}`, message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)` });
   }
+}
 
-  number(column: string, { min = -Infinity, max = Infinity } = {}): number {
-    const raw = this.fields[column] ?? '';
-    // Number('') is 0 and Number('1e') is NaN; only plain decimal notation is accepted.
-    if (!/^-?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(raw)) {
-      this.fail(raw === '' ? 'value-empty' : 'value-not-number', column, 'a finite number', raw === '' ? 'the value is empty' : 'the value is not a number');
-      return Number.NaN;
-    }
-    const value = Number(raw);
-    if (value < min || value > max) {
-      this.fail('value-out-of-range', column, max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
-    }
-    return value;
-  }
-
-  month(column: string): number {
-    const value = parseMonth(this.fields[column] ?? '');
-    if (value === null) {
-      this.fail('month-invalid', column, 'a month as YYYY-MM', 'the month cannot be read');
-      return Number.NaN;
-    }
-    return value;
-  }
-
-  flag(column: string): boolean {
-    const value = (this.fields[column] ?? '').toLowerCase();
-    if (value === 'yes' || value === 'no') return value === 'yes';
-    this.fail('value-not-flag', column, 'yes or no', 'the value is not yes or no');
+function monthInRange(cells: CellReader, month: number, raw: string, line: number): boolean {
+  if (Number.isNaN(month)) return false;
+  if (month < FIRST_MONTH) {
+    cells.fail(line, 'month', raw, 'month-out-of-range', `a month from ${monthLabel(FIRST_MONTH)} on`, 'the month is too early for satellite data');
     return false;
   }
+  return true;
 }
 
-export async function readInventory(path: string, label: string, problems: ProblemList): Promise<WaterBody[]> {
+export async function readInventory(path: string, label: string, context: ReadContext): Promise<WaterBody[]> {
   const bodies: WaterBody[] = [];
   const seen = new Map<string, number>();
-  const columns = ['body_id', 'name', 'subregion_id', 'lon', 'lat', 'reference_area_ha', 'kind', 'own_page'].map((name) => ({ name, required: true }));
-  await readCsv(path, label, columns, problems, (fields, line) => {
-    const row = new RowReader(fields, line, label, problems);
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const columns = spec(['body_id', 'name', 'subregion_id', 'lon', 'lat', 'reference_area_ha', 'kind', 'own_page']);
+  await readTable(path, label, columns, context.problems, (values, line, at) => {
+    cells.startRow();
     const body: WaterBody = {
-      id: row.text('body_id'),
-      name: row.text('name'),
-      subRegionId: row.text('subregion_id'),
-      lon: row.number('lon', { min: -180, max: 180 }),
-      lat: row.number('lat', { min: -90, max: 90 }),
-      referenceHa: row.number('reference_area_ha', { min: 0 }),
-      kind: row.text('kind'),
-      ownPage: row.flag('own_page'),
+      id: cells.text(values, at.body_id!, 'body_id', line),
+      name: cells.text(values, at.name!, 'name', line),
+      subRegionId: cells.text(values, at.subregion_id!, 'subregion_id', line),
+      lon: cells.number(values, at.lon!, 'lon', line, { min: -180, max: 180 }),
+      lat: cells.number(values, at.lat!, 'lat', line, { min: -90, max: 90 }),
+      referenceHa: cells.number(values, at.reference_area_ha!, 'reference_area_ha', line, { min: 0 }),
+      kind: cells.text(values, at.kind!, 'kind', line),
+      ownPage: cells.flag(values, at.own_page!, 'own_page', line),
+      line,
     };
+    if (body.referenceHa === 0) cells.fail(line, 'reference_area_ha', values[at.reference_area_ha!] ?? '', 'value-out-of-range', 'more than 0', 'a water body needs a reference area above 0');
     const earlier = seen.get(body.id);
     if (earlier !== undefined) {
-      problems.error({ code: 'duplicate-id', file: label, line, column: 'body_id', value: body.id, expected: 'each id once', message: `the id already appears on line ${earlier}` });
+      cells.fail(line, 'body_id', body.id, 'duplicate-id', 'each id once', `the id already appears on line ${earlier}`);
       return;
     }
     seen.set(body.id, line);
-    if (row.ok) bodies.push(body);
+    if (cells.rowOk) bodies.push(body);
   });
   return bodies;
 }
 
-export async function readSurfaceArea(path: string, label: string, knownIds: Set<string>, problems: ProblemList): Promise<AreaRecord[]> {
-  const records: AreaRecord[] = [];
-  const seen = new Map<string, number>();
-  const columns = ['body_id', 'month', 'water_area_ha', 'observed_share', 'scenes'].map((name) => ({ name, required: name !== 'scenes' }));
-  await readCsv(path, label, columns, problems, (fields, line) => {
-    const row = new RowReader(fields, line, label, problems);
-    const bodyId = row.text('body_id');
-    const month = row.month('month');
-    const record: AreaRecord = {
-      bodyId,
-      month,
-      waterHa: row.number('water_area_ha', { min: 0 }),
-      observedShare: row.number('observed_share', { min: 0, max: 1 }),
-      scenes: fields.scenes === undefined ? 0 : row.number('scenes', { min: 0 }),
-    };
-    if (!row.ok) return;
-    if (!knownIds.has(bodyId)) {
-      problems.error({ code: 'unknown-body', file: label, line, column: 'body_id', value: bodyId, expected: 'an id from the water-body inventory', message: 'the water body is not in the inventory' });
+export async function readSurfaceArea(path: string, label: string, bodies: WaterBody[], context: ReadContext): Promise<AreaTable> {
+  const index = new Map(bodies.map((body, k) => [body.id, k]));
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const later = new LaterMonths(label, context);
+  const seen = new SeenBits(bodies.length, FIRST_MONTH, Math.max(1, context.bulletinMonth - FIRST_MONTH + 1));
+  const body = new GrowableInt32();
+  const month = new GrowableInt32();
+  const water = new GrowableFloat64();
+  const share = new GrowableFloat64();
+  const scenes = new GrowableFloat64();
+  const lines = new GrowableInt32();
+  const duplicates: Array<{ body: number; month: number; line: number }> = [];
+  await readTable(path, label, spec(['body_id', 'month', 'water_area_ha', 'observed_share'], ['scenes']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const id = cells.text(values, at.body_id!, 'body_id', line);
+    const monthText = values[at.month!] ?? '';
+    const when = cells.month(values, at.month!, 'month', line);
+    const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, { min: 0 });
+    const observed = cells.number(values, at.observed_share!, 'observed_share', line, { min: 0, max: 1 });
+    const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, { min: 0, optional: true }) : Number.NaN;
+    if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
+    const position = index.get(id);
+    if (position === undefined) {
+      cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
       return;
     }
-    const key = `${bodyId} ${month}`;
+    if (seen.testAndSet(position, when)) {
+      duplicates.push({ body: position, month: when, line });
+      return;
+    }
+    const reference = (bodies[position] as WaterBody).referenceHa;
+    if (waterHa > 1.5 * reference) {
+      context.problems.warning({ code: 'area-above-reference', file: label, line, column: 'water_area_ha', value: values[at.water_area_ha!] ?? '', expected: `at most 1.5 × the reference area (${reference} ha)`, message: 'the water area is far above the reference area: check the units or the inventory' });
+    }
+    body.push(position);
+    month.push(when);
+    water.push(waterHa);
+    share.push(observed);
+    scenes.push(sceneCount);
+    lines.push(line);
+  });
+  later.report();
+  const table: AreaTable = { length: body.length, body: body.done(), month: month.done(), waterHa: water.done(), observedShare: share.done(), scenes: scenes.done(), line: lines.done() };
+  reportDuplicates(duplicates, table, label, context.problems, 'the same water body and month');
+  return table;
+}
+
+/** Names the first line of each repeated (body, month) by one scan over the kept rows. */
+function reportDuplicates(duplicates: Array<{ body: number; month: number; line: number }>, table: { body: Int32Array; month: Int32Array; line: Int32Array; length: number }, label: string, problems: ProblemList, what: string, parameter?: Int32Array, parameters?: number[]): void {
+  if (duplicates.length === 0) return;
+  const key = (b: number, m: number, p: number) => `${b} ${m} ${p}`;
+  const firstLine = new Map<string, number>();
+  for (let k = 0; k < table.length; k++) firstLine.set(key(table.body[k] as number, table.month[k] as number, parameter ? (parameter[k] as number) : 0), table.line[k] as number);
+  duplicates.forEach((duplicate, k) => {
+    const earlier = firstLine.get(key(duplicate.body, duplicate.month, parameters?.[k] ?? 0));
+    problems.error({ code: 'duplicate-row', file: label, line: duplicate.line, column: 'month', value: monthLabel(duplicate.month), expected: 'one row per water body and month', message: `${what} already appear on line ${earlier ?? '?'}` });
+  });
+}
+
+const QUANTILE_COLUMNS = ['p10', 'p25', 'median', 'p75', 'p90'] as const;
+
+export async function readQuality(path: string, label: string, bodies: WaterBody[], context: ReadContext): Promise<QualityTable> {
+  const index = new Map(bodies.map((body, k) => [body.id, k]));
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const later = new LaterMonths(label, context);
+  const seen = QUALITY_PARAMETERS.map(() => new SeenBits(bodies.length, FIRST_MONTH, Math.max(1, context.bulletinMonth - FIRST_MONTH + 1)));
+  const body = new GrowableInt32();
+  const month = new GrowableInt32();
+  const parameter = new GrowableInt32();
+  const quantiles = QUANTILE_COLUMNS.map(() => new GrowableFloat64());
+  const pixels = new GrowableFloat64();
+  const lines = new GrowableInt32();
+  const duplicates: Array<{ body: number; month: number; line: number }> = [];
+  const duplicateParameters: number[] = [];
+  await readTable(path, label, spec(['body_id', 'month', 'parameter', 'unit', 'median'], ['p10', 'p25', 'p75', 'p90', 'valid_pixels']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const id = cells.text(values, at.body_id!, 'body_id', line);
+    const monthText = values[at.month!] ?? '';
+    const when = cells.month(values, at.month!, 'month', line);
+    const name = cells.text(values, at.parameter!, 'parameter', line);
+    const unit = cells.text(values, at.unit!, 'unit', line);
+    const found = QUANTILE_COLUMNS.map((column) => (at[column]! >= 0 ? cells.number(values, at[column]!, column, line, { min: 0, optional: column !== 'median' }) : Number.NaN));
+    const validPixels = at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, { min: 0, optional: true }) : Number.NaN;
+    const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
+    if (name !== '' && code < 0) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
+    if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
+      cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].join(' or '), `the unit does not match ${name}`);
+    }
+    const present = found.filter((value) => !Number.isNaN(value));
+    if (present.some((value, k) => k > 0 && value < (present[k - 1] as number))) {
+      cells.fail(line, 'median', found.map((v) => (Number.isNaN(v) ? '' : String(v))).join(' '), 'quantiles-out-of-order', 'p10 ≤ p25 ≤ median ≤ p75 ≤ p90', 'the quantiles are not in rising order');
+    }
+    if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
+    const position = index.get(id);
+    if (position === undefined) {
+      cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+      return;
+    }
+    if ((seen[code] as SeenBits).testAndSet(position, when)) {
+      duplicates.push({ body: position, month: when, line });
+      duplicateParameters.push(code);
+      return;
+    }
+    body.push(position);
+    month.push(when);
+    parameter.push(code);
+    found.forEach((value, k) => quantiles[k]?.push(value));
+    pixels.push(validPixels);
+    lines.push(line);
+  });
+  later.report();
+  const [p10, p25, median, p75, p90] = quantiles.map((column) => column.done()) as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
+  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), p10, p25, median, p75, p90, pixels: pixels.done(), line: lines.done() };
+  reportDuplicates(duplicates, table, label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);
+  return table;
+}
+
+export async function readRainfall(path: string, label: string, subRegionIds: Set<string>, context: ReadContext): Promise<RainfallRecord[]> {
+  const records: RainfallRecord[] = [];
+  const seen = new Map<string, number>();
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const later = new LaterMonths(label, context);
+  await readTable(path, label, spec(['subregion_id', 'month', 'rainfall_mm']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
+    const monthText = values[at.month!] ?? '';
+    const month = cells.month(values, at.month!, 'month', line);
+    const rainfallMm = cells.number(values, at.rainfall_mm!, 'rainfall_mm', line, { min: 0 });
+    if (!cells.rowOk || !monthInRange(cells, month, monthText, line) || later.skip(month, line)) return;
+    if (subRegionIds.size > 0 && !subRegionIds.has(subRegionId)) {
+      cells.fail(line, 'subregion_id', subRegionId, 'unknown-subregion', 'a sub-region of the boundaries file', 'the sub-region has no boundary');
+      return;
+    }
+    const key = `${subRegionId} ${month}`;
     const earlier = seen.get(key);
     if (earlier !== undefined) {
-      problems.error({ code: 'duplicate-row', file: label, line, column: 'month', value: fields.month ?? '', expected: 'one row per water body and month', message: `the same water body and month already appear on line ${earlier}` });
+      cells.fail(line, 'month', monthText, 'duplicate-row', 'one row per sub-region and month', `the same sub-region and month already appear on line ${earlier}`);
       return;
     }
     seen.set(key, line);
-    records.push(record);
+    records.push({ subRegionId, month, rainfallMm, line });
   });
+  later.report();
   return records;
 }
 
-export async function readRainfall(path: string, label: string, problems: ProblemList): Promise<RainfallRecord[]> {
-  const records: RainfallRecord[] = [];
-  const columns = ['subregion_id', 'month', 'rainfall_mm'].map((name) => ({ name, required: true }));
-  await readCsv(path, label, columns, problems, (fields, line) => {
-    const row = new RowReader(fields, line, label, problems);
-    const record = { subRegionId: row.text('subregion_id'), month: row.month('month'), rainfallMm: row.number('rainfall_mm', { min: 0 }) };
-    if (row.ok) records.push(record);
+export async function readField(path: string, label: string, bodies: WaterBody[], context: ReadContext): Promise<FieldRecord[]> {
+  const index = new Map(bodies.map((body, k) => [body.id, k]));
+  const records: FieldRecord[] = [];
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const later = new LaterMonths(label, context);
+  await readTable(path, label, spec(['body_id', 'date', 'parameter', 'value', 'unit']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const bodyId = cells.text(values, at.body_id!, 'body_id', line);
+    const day = cells.date(values, at.date!, 'date', line);
+    const name = cells.text(values, at.parameter!, 'parameter', line);
+    const value = cells.number(values, at.value!, 'value', line, { min: 0 });
+    const unit = cells.text(values, at.unit!, 'unit', line);
+    const parameter = QUALITY_PARAMETERS.find((known) => known === name);
+    if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
+    if (parameter && unit !== '' && !QUALITY_UNITS[parameter].includes(unit)) cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[parameter].join(' or '), `the unit does not match ${name}`);
+    if (!cells.rowOk || !parameter) return;
+    const date = new Date(day * 86_400_000);
+    const month = date.getUTCFullYear() * 12 + date.getUTCMonth();
+    if (later.skip(month, line)) return;
+    const body = index.get(bodyId);
+    if (body === undefined) {
+      cells.fail(line, 'body_id', bodyId, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+      return;
+    }
+    records.push({ bodyId, body, day, month, parameter, value, line });
   });
+  later.report();
   return records;
+}
+
+export async function readDistributionBins(path: string, label: string, subRegionIds: Set<string>, context: ReadContext): Promise<DistributionBin[]> {
+  const bins: DistributionBin[] = [];
+  const cells = new CellReader(label, context.problems, context.decimal);
+  const later = new LaterMonths(label, context);
+  await readTable(path, label, spec(['subregion_id', 'month', 'parameter', 'bin_lower', 'bin_upper', 'pixel_count']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
+    const month = cells.month(values, at.month!, 'month', line);
+    const name = cells.text(values, at.parameter!, 'parameter', line);
+    const lower = cells.number(values, at.bin_lower!, 'bin_lower', line, { min: 0 });
+    const upper = cells.number(values, at.bin_upper!, 'bin_upper', line, { min: 0 });
+    const count = cells.number(values, at.pixel_count!, 'pixel_count', line, { min: 0 });
+    const parameter = QUALITY_PARAMETERS.find((known) => known === name);
+    if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
+    if (!Number.isNaN(lower) && !Number.isNaN(upper) && upper <= lower) cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', 'the bin has no width');
+    if (subRegionIds.size > 0 && subRegionId !== '' && !subRegionIds.has(subRegionId)) cells.fail(line, 'subregion_id', subRegionId, 'unknown-subregion', 'a sub-region of the boundaries file', 'the sub-region has no boundary');
+    if (!cells.rowOk || !parameter || later.skip(month, line)) return;
+    bins.push({ subRegionId, month, parameter, lower, upper, count, line });
+  });
+  later.report();
+  return bins;
 }

@@ -51,25 +51,27 @@ export interface SurfaceWater {
 }
 
 export function regionalSeries(inputs: BulletinInputs): RegionalMonth[] {
-  const referenceById = new Map(inputs.bodies.map((body) => [body.id, body.referenceHa]));
-  const totalReference = inputs.bodies.reduce((sum, body) => sum + body.referenceHa, 0);
-  const byMonth = new Map<number, { water: number; reference: number; count: number }>();
-  for (const record of inputs.area) {
-    if (record.observedShare < inputs.config.coverage.minObservedShare) continue;
-    const reference = referenceById.get(record.bodyId) ?? 0;
-    const sums = byMonth.get(record.month) ?? { water: 0, reference: 0, count: 0 };
-    sums.water += record.waterHa;
-    sums.reference += reference;
-    sums.count++;
-    byMonth.set(record.month, sums);
+  const { area, bodies } = inputs;
+  const totalReference = bodies.reduce((sum, body) => sum + body.referenceHa, 0);
+  let first = inputs.bulletinMonth;
+  for (let k = 0; k < area.length; k++) first = Math.min(first, area.month[k] as number);
+  const span = inputs.bulletinMonth - first + 1;
+  const water = new Float64Array(span);
+  const reference = new Float64Array(span);
+  const counted = new Int32Array(span);
+  for (let k = 0; k < area.length; k++) {
+    if ((area.observedShare[k] as number) < inputs.config.coverage.minObservedShare) continue;
+    const slot = (area.month[k] as number) - first;
+    water[slot] = (water[slot] as number) + (area.waterHa[k] as number);
+    reference[slot] = (reference[slot] as number) + (bodies[area.body[k] as number] as { referenceHa: number }).referenceHa;
+    counted[slot] = (counted[slot] as number) + 1;
   }
-  const first = Math.min(...inputs.area.map((record) => record.month));
   const series: RegionalMonth[] = [];
-  for (let month = first; month <= inputs.bulletinMonth; month++) {
-    const sums = byMonth.get(month) ?? { water: 0, reference: 0, count: 0 };
-    const coveragePercent = totalReference > 0 ? (100 * sums.reference) / totalReference : 0;
-    const enough = coveragePercent >= 100 * inputs.config.coverage.minRegionCoverage && sums.reference > 0;
-    series.push({ month, fillingPercent: enough ? (100 * sums.water) / sums.reference : null, coveragePercent, bodiesCounted: sums.count });
+  for (let slot = 0; slot < span; slot++) {
+    const seen = reference[slot] as number;
+    const coveragePercent = totalReference > 0 ? (100 * seen) / totalReference : 0;
+    const enough = coveragePercent >= 100 * inputs.config.coverage.minRegionCoverage && seen > 0;
+    series.push({ month: first + slot, fillingPercent: enough ? (100 * (water[slot] as number)) / seen : null, coveragePercent, bodiesCounted: counted[slot] as number });
   }
   return series;
 }

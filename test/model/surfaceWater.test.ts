@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { BulletinInputs } from '../../src/ingest/index.ts';
 import { configSchema } from '../../src/ingest/config.ts';
 import { bandFor, surfaceWater } from '../../src/model/surfaceWater.ts';
+import { areaTable, body } from '../support/inputs.ts';
 
 const config = configSchema.parse({
   title: 'T', publisher: 'P', region: { name: 'R' },
@@ -13,16 +14,12 @@ const config = configSchema.parse({
   inputs: { inventory: 'a', surfaceArea: 'b', boundaries: 'c' },
 });
 
-const body = (id: string, referenceHa: number) => ({ id, name: id, subRegionId: 'S', lon: 0, lat: 0, referenceHa, kind: 'lake', ownPage: false });
 const may = (year: number) => year * 12 + 4;
 
 /** Two bodies of 100 and 300 ha; May in 2020–2023. */
 function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
-  return {
-    config, bulletinMonth: may(2023), bodies: [body('A', 100), body('B', 300)],
-    area: area.map(([bodyId, month, waterHa, observedShare]) => ({ bodyId, month, waterHa, observedShare, scenes: 1 })),
-    rainfall: [], subRegions: [], files: [],
-  };
+  const bodies = [body('A', 100), body('B', 300)];
+  return { config, bulletinMonth: may(2023), bodies, area: areaTable(bodies, area), quality: null, distribution: [], rainfall: [], field: [], subRegions: [], files: [] };
 }
 
 describe('surfaceWater', () => {

@@ -1,0 +1,96 @@
+/**
+ * Reading one cell of a table into a typed value. One CellReader serves a whole file (no object
+ * per row): each method reports a bad cell as a problem with file, line and column and returns a
+ * marker (NaN, null) that the table reader uses to drop the row; the row's other cells are still
+ * checked, so one pass reports everything.
+ */
+import { parseMonth } from './months.ts';
+import type { ProblemList } from './problems.ts';
+
+export type DecimalMark = '.' | ',';
+
+export class CellReader {
+  /** True until a cell of the current row failed; reset by startRow. */
+  rowOk = true;
+  private decimalCommaSeen = false;
+
+  constructor(
+    private readonly file: string,
+    private readonly problems: ProblemList,
+    private readonly decimal: DecimalMark | 'auto' = 'auto',
+  ) {}
+
+  startRow(): void {
+    this.rowOk = true;
+  }
+
+  fail(line: number, column: string, value: string, code: string, expected: string, message: string): void {
+    this.rowOk = false;
+    this.problems.error({ code, file: this.file, line, column, value, expected, message });
+  }
+
+  text(values: string[], position: number, column: string, line: number): string {
+    const value = (values[position] ?? '').trim();
+    if (value === '') this.fail(line, column, value, 'value-empty', 'a value', 'the value is empty');
+    return value;
+  }
+
+  /** A finite number; `NaN`, `Infinity`, empty and other text are refused. */
+  number(values: string[], position: number, column: string, line: number, { min = -Infinity, max = Infinity, optional = false } = {}): number {
+    let raw = (values[position] ?? '').trim();
+    if (raw === '') {
+      if (!optional) this.fail(line, column, raw, 'value-empty', 'a number', 'the value is empty');
+      return Number.NaN;
+    }
+    if (this.decimal === ',' || (this.decimal === 'auto' && raw.includes(','))) raw = this.decimalComma(raw, line, column);
+    const value = Number(raw);
+    // Number() also takes hexadecimal and surrounding blanks; only decimal notation is data here.
+    if (!Number.isFinite(value) || /[xXbBoO_]/.test(raw)) {
+      this.fail(line, column, values[position] ?? '', 'value-not-number', 'a finite decimal number', 'the value is not a number');
+      return Number.NaN;
+    }
+    if (value < min || value > max) {
+      this.fail(line, column, values[position] ?? '', 'value-out-of-range', max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
+      return Number.NaN;
+    }
+    return value;
+  }
+
+  private decimalComma(raw: string, line: number, column: string): string {
+    if (!/^-?\d+,\d+$/.test(raw)) return raw;
+    if (this.decimal === 'auto' && !this.decimalCommaSeen) {
+      this.problems.warning({ code: 'decimal-comma-detected', file: this.file, line, column, value: raw, expected: 'a decimal point, or csv.decimal set to "," in bulletin.json', message: 'a decimal comma was read as a decimal point' });
+    }
+    this.decimalCommaSeen = true;
+    return raw.replace(',', '.');
+  }
+
+  month(values: string[], position: number, column: string, line: number): number {
+    const raw = (values[position] ?? '').trim();
+    const value = parseMonth(raw);
+    if (value === null) {
+      this.fail(line, column, raw, 'month-invalid', 'a month as YYYY-MM', 'the month cannot be read');
+      return Number.NaN;
+    }
+    return value;
+  }
+
+  /** A calendar date YYYY-MM-DD as days since 1970-01-01 (UTC). */
+  date(values: string[], position: number, column: string, line: number): number {
+    const raw = (values[position] ?? '').trim();
+    const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(raw);
+    const days = match ? Date.UTC(Number(match[1]), Number(match[2]) - 1, Number(match[3])) / 86_400_000 : Number.NaN;
+    if (!match || !Number.isFinite(days) || new Date(days * 86_400_000).toISOString().slice(0, 10) !== raw) {
+      this.fail(line, column, raw, 'date-invalid', 'a date as YYYY-MM-DD', 'the date cannot be read');
+      return Number.NaN;
+    }
+    return days;
+  }
+
+  flag(values: string[], position: number, column: string, line: number): boolean {
+    const raw = (values[position] ?? '').trim().toLowerCase();
+    if (raw === 'yes' || raw === 'no') return raw === 'yes';
+    this.fail(line, column, values[position] ?? '', 'value-not-flag', 'yes or no', 'the value is not yes or no');
+    return false;
+  }
+}

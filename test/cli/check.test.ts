@@ -1,0 +1,43 @@
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { EXAMPLE } from '../support/exampleSite.ts';
+import { miniFiles, writeMini } from '../support/miniBulletin.ts';
+
+const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const run = (...args: string[]) => spawnSync(process.execPath, [cli, 'check', ...args], { encoding: 'utf8' });
+
+describe('limnopress check', () => {
+  it('limnopress check example-bulletin is clean and exits 0', () => {
+    const result = run(EXAMPLE);
+    expect(result.stdout).toBe('No problems found.\n');
+    expect(result.status).toBe(0);
+  });
+
+  it('limnopress check groups problems by file in line order, counts them, and exits 1', () => {
+    const base = miniFiles();
+    const area = base['area.csv'].replace('A,2018-02,9.0,0.95,3', 'A,2018-02,9.0,1.95,3').replace('B,2018-01,180.0,0.9,2', 'B,2018-01,many,0.9,2');
+    const folder = writeMini({ 'area.csv': area, 'rain.csv': base['rain.csv'].replace('rainfall_mm', 'rain_mm') });
+    const result = run(folder);
+    expect(result.status).toBe(1);
+    expect(result.stdout).toBe(
+      [
+        'area.csv',
+        '  error line 3 [water_area_ha]: the value is not a number (found "many"; expected a finite decimal number)',
+        '  error line 4 [observed_share]: the value is out of range (found "1.95"; expected from 0 to 1)',
+        'rain.csv',
+        '  error line 1 [rainfall_mm]: a required column is missing (expected a column named rainfall_mm)',
+        '  warning line 1 [rain_mm]: an unknown column is ignored (found "rain_mm"; expected subregion_id, month, rainfall_mm)',
+        '3 errors, 1 warning in 2 files.',
+        '',
+      ].join('\n'),
+    );
+  });
+
+  it('limnopress check with warnings only exits 0, and without a folder exits 2', () => {
+    const warned = run(writeMini({ 'area.csv': miniFiles()['area.csv'].replace('A,2018-01,8.0', 'A,2018-01,16') }));
+    expect(warned.status).toBe(0);
+    expect(warned.stdout).toContain('0 errors, 1 warning in 1 file.');
+    expect(run().status).toBe(2);
+  });
+});
