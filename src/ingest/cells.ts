@@ -30,27 +30,33 @@ export class CellReader {
   }
 
   text(values: string[], position: number, column: string, line: number): string {
-    const value = (values[position] ?? '').trim();
+    const cell = values[position] ?? '';
+    const value = cell.length > 0 && cell.charCodeAt(0) > 32 && cell.charCodeAt(cell.length - 1) > 32 ? cell : cell.trim();
     if (value === '') this.fail(line, column, value, 'value-empty', 'a value', 'the value is empty');
     return value;
   }
 
   /** A finite number; `NaN`, `Infinity`, empty and other text are refused. */
-  number(values: string[], position: number, column: string, line: number, { min = -Infinity, max = Infinity, optional = false } = {}): number {
-    let raw = (values[position] ?? '').trim();
-    if (raw === '') {
-      if (!optional) this.fail(line, column, raw, 'value-empty', 'a number', 'the value is empty');
-      return Number.NaN;
-    }
-    if (this.decimal === ',' || (this.decimal === 'auto' && raw.includes(','))) raw = this.decimalComma(raw, line, column);
-    const value = Number(raw);
-    // Number() also takes hexadecimal and surrounding blanks; only decimal notation is data here.
-    if (!Number.isFinite(value) || /[xXbBoO_]/.test(raw)) {
-      this.fail(line, column, values[position] ?? '', 'value-not-number', 'a finite decimal number', 'the value is not a number');
-      return Number.NaN;
+  /** `min`, `max` bound the value; an `optional` empty cell gives NaN without a problem. */
+  number(values: string[], position: number, column: string, line: number, min = -Infinity, max = Infinity, optional = false): number {
+    const cell = values[position] ?? '';
+    // Fast path for plain decimal notation (digits, sign, point, exponent), the bulk of any table.
+    let value = isPlainDecimal(cell) ? +cell : Number.NaN;
+    if (value !== value) {
+      let raw = cell.trim();
+      if (raw === '') {
+        if (!optional) this.fail(line, column, raw, 'value-empty', 'a number', 'the value is empty');
+        return Number.NaN;
+      }
+      if (this.decimal === ',' || (this.decimal === 'auto' && raw.includes(','))) raw = this.decimalComma(raw, line, column);
+      value = isPlainDecimal(raw) ? +raw : Number.NaN;
+      if (value !== value) {
+        this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', 'the value is not a number');
+        return Number.NaN;
+      }
     }
     if (value < min || value > max) {
-      this.fail(line, column, values[position] ?? '', 'value-out-of-range', max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
+      this.fail(line, column, cell, 'value-out-of-range', max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
       return Number.NaN;
     }
     return value;
@@ -66,7 +72,8 @@ export class CellReader {
   }
 
   month(values: string[], position: number, column: string, line: number): number {
-    const raw = (values[position] ?? '').trim();
+    const cell = values[position] ?? '';
+    const raw = cell.length === 7 ? cell : cell.trim();
     const value = parseMonth(raw);
     if (value === null) {
       this.fail(line, column, raw, 'month-invalid', 'a month as YYYY-MM', 'the month cannot be read');
@@ -93,4 +100,21 @@ export class CellReader {
     this.fail(line, column, values[position] ?? '', 'value-not-flag', 'yes or no', 'the value is not yes or no');
     return false;
   }
+}
+
+/**
+ * Digits with at most one sign, point and exponent, nothing else: what `+text` may then convert
+ * (it would also take blanks, hexadecimal and "Infinity", which are not data here). The shape is
+ * checked by character codes, as this runs for every numeric cell.
+ */
+function isPlainDecimal(text: string): boolean {
+  const length = text.length;
+  if (length === 0) return false;
+  let digits = 0;
+  for (let k = 0; k < length; k++) {
+    const code = text.charCodeAt(k);
+    if (code >= 48 && code <= 57) digits++;
+    else if (code !== 46 && code !== 45 && code !== 43 && code !== 101 && code !== 69) return false; // . - + e E
+  }
+  return digits > 0;
 }

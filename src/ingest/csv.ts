@@ -8,7 +8,7 @@
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import Papa from 'papaparse';
 import { asyncBufferFromFile, parquetReadObjects } from 'hyparquet';
-import { EncodingError, StrictUtf8 } from './encoding.ts';
+import { EncodingError, lineAtOffset, StrictUtf8 } from './encoding.ts';
 import type { ProblemList } from './problems.ts';
 
 export interface ColumnSpec {
@@ -68,7 +68,7 @@ export async function readCsv(path: string, label: string, columns: ColumnSpec[]
   } catch (error) {
     if (!(error instanceof EncodingError)) throw error;
     const guess = error.guess ? `; it looks like ${error.guess}: convert it to UTF-8` : '; convert it to UTF-8';
-    problems.error({ code: 'not-utf8', file: label, line: error.line, column: '', value: '', expected: 'UTF-8 text', message: `the file is not UTF-8${guess}` });
+    problems.error({ code: 'not-utf8', file: label, line: lineAtOffset(path, error.offset), column: '', value: '', expected: 'UTF-8 text', message: `the file is not UTF-8${guess}` });
     return rows;
   }
   finish(header !== null, usable, rows, label, problems);

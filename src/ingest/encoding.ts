@@ -3,40 +3,62 @@
  * another encoding is reported with the line of the first bad byte and, where the bytes allow a
  * guess, the encoding to convert from, instead of turning into replacement characters.
  */
+import { closeSync, openSync, readSync } from 'node:fs';
 import { Transform, type TransformCallback } from 'node:stream';
 
 export class EncodingError extends Error {
   constructor(
-    readonly line: number,
+    /** Offset of the first bad byte in the file. */
+    readonly offset: number,
     readonly guess: string,
   ) {
-    super(`the file is not UTF-8 text (first bad byte on line ${line})`);
+    super(`the file is not UTF-8 text (first bad byte at offset ${offset})`);
     this.name = 'EncodingError';
   }
 }
 
-/** A guess from the bytes around the first invalid sequence. */
-export function guessEncoding(bytes: Uint8Array, badIndex: number): string {
-  if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) return 'UTF-16 (it starts with a UTF-16 byte-order mark)';
-  if (bytes.subarray(0, Math.min(bytes.length, 200)).some((byte, k) => byte === 0 && k % 2 === 1)) return 'UTF-16 (every other byte is zero)';
-  const byte = bytes[badIndex] ?? 0;
-  if (byte >= 0x80) return 'Windows-1252 or ISO-8859-1 (a lone byte above 127, typical of Western European exports)';
+/** A guess from the start of the file and the first invalid byte. */
+export function guessEncoding(head: Uint8Array, badByte: number): string {
+  if ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff)) return 'UTF-16 (it starts with a UTF-16 byte-order mark)';
+  if (head.subarray(0, Math.min(head.length, 200)).some((byte, k) => byte === 0 && k % 2 === 1)) return 'UTF-16 (every other byte is zero)';
+  if (badByte >= 0x80) return 'Windows-1252 or ISO-8859-1 (a lone byte above 127, typical of Western European spreadsheet exports)';
   return '';
 }
 
-/** Decodes UTF-8 strictly, strips a leading BOM, and counts lines so errors can name one. */
+/** 1-based line of a byte offset, counted in the file itself: only needed once a file has failed. */
+export function lineAtOffset(path: string, offset: number): number {
+  const handle = openSync(path, 'r');
+  const buffer = Buffer.alloc(1 << 16);
+  let line = 1;
+  let position = 0;
+  try {
+    while (position < offset) {
+      const read = readSync(handle, buffer, 0, Math.min(buffer.length, offset - position), position);
+      if (read <= 0) break;
+      for (let k = buffer.indexOf(10); k !== -1 && k < read; k = buffer.indexOf(10, k + 1)) line++;
+      position += read;
+    }
+  } finally {
+    closeSync(handle);
+  }
+  return line;
+}
+
+/** Decodes UTF-8 strictly and strips a leading BOM; counts bytes so a failure can name its offset. */
 export class StrictUtf8 extends Transform {
   private readonly decoder = new TextDecoder('utf-8', { fatal: true, ignoreBOM: false });
-  private lines = 1;
+  private bytesBefore = 0;
+  private first: Buffer | null = null;
 
   constructor() {
     super({ decodeStrings: true, readableObjectMode: false, encoding: 'utf8' });
   }
 
   override _transform(chunk: Buffer, _encoding: BufferEncoding, callback: TransformCallback): void {
+    this.first ??= chunk;
     try {
       const text = this.decoder.decode(chunk, { stream: true });
-      this.countLines(text);
+      this.bytesBefore += chunk.length;
       callback(null, text);
     } catch {
       callback(this.failure(chunk));
@@ -45,33 +67,26 @@ export class StrictUtf8 extends Transform {
 
   override _flush(callback: TransformCallback): void {
     try {
-      const text = this.decoder.decode();
-      callback(null, text);
+      callback(null, this.decoder.decode());
     } catch {
-      callback(new EncodingError(this.lines, ''));
+      callback(new EncodingError(Math.max(0, this.bytesBefore - 1), ''));
     }
   }
 
-  private countLines(text: string): void {
-    for (let k = text.indexOf('\n'); k !== -1; k = text.indexOf('\n', k + 1)) this.lines++;
-  }
-
-  /** Finds the first bad byte of the chunk to report its line. */
+  /** Finds the first bad byte of the chunk by the longest prefix that still decodes. */
   private failure(chunk: Buffer): EncodingError {
-    // Binary search for the longest valid prefix (cutting inside a character also fails, so step back 3).
     let low = 0;
     let high = chunk.length;
     while (low < high) {
       const middle = (low + high + 1) >>> 1;
       try {
+        // A prefix cut inside a character is fine in stream mode; only a bad byte throws.
         new TextDecoder('utf-8', { fatal: true }).decode(chunk.subarray(0, middle), { stream: true });
         low = middle;
       } catch {
         high = middle - 1;
       }
     }
-    const good = low;
-    for (let k = 0; k < good; k++) if (chunk[k] === 0x0a) this.lines++;
-    return new EncodingError(this.lines, guessEncoding(chunk, good));
+    return new EncodingError(this.bytesBefore + low, guessEncoding(this.first ?? chunk, chunk[low] ?? 0));
   }
 }

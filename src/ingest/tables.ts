@@ -133,9 +133,9 @@ export async function readInventory(path: string, label: string, context: ReadCo
       id: cells.text(values, at.body_id!, 'body_id', line),
       name: cells.text(values, at.name!, 'name', line),
       subRegionId: cells.text(values, at.subregion_id!, 'subregion_id', line),
-      lon: cells.number(values, at.lon!, 'lon', line, { min: -180, max: 180 }),
-      lat: cells.number(values, at.lat!, 'lat', line, { min: -90, max: 90 }),
-      referenceHa: cells.number(values, at.reference_area_ha!, 'reference_area_ha', line, { min: 0 }),
+      lon: cells.number(values, at.lon!, 'lon', line, -180, 180),
+      lat: cells.number(values, at.lat!, 'lat', line, -90, 90),
+      referenceHa: cells.number(values, at.reference_area_ha!, 'reference_area_ha', line, 0),
       kind: cells.text(values, at.kind!, 'kind', line),
       ownPage: cells.flag(values, at.own_page!, 'own_page', line),
       line,
@@ -169,9 +169,9 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
     const id = cells.text(values, at.body_id!, 'body_id', line);
     const monthText = values[at.month!] ?? '';
     const when = cells.month(values, at.month!, 'month', line);
-    const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, { min: 0 });
-    const observed = cells.number(values, at.observed_share!, 'observed_share', line, { min: 0, max: 1 });
-    const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, { min: 0, optional: true }) : Number.NaN;
+    const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0);
+    const observed = cells.number(values, at.observed_share!, 'observed_share', line, 0, 1);
+    const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, 0, Infinity, true) : Number.NaN;
     if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
     const position = index.get(id);
     if (position === undefined) {
@@ -233,8 +233,8 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     const when = cells.month(values, at.month!, 'month', line);
     const name = cells.text(values, at.parameter!, 'parameter', line);
     const unit = cells.text(values, at.unit!, 'unit', line);
-    const found = QUANTILE_COLUMNS.map((column) => (at[column]! >= 0 ? cells.number(values, at[column]!, column, line, { min: 0, optional: column !== 'median' }) : Number.NaN));
-    const validPixels = at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, { min: 0, optional: true }) : Number.NaN;
+    const found = QUANTILE_COLUMNS.map((column) => (at[column]! >= 0 ? cells.number(values, at[column]!, column, line, 0, Infinity, column !== 'median') : Number.NaN));
+    const validPixels = at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true) : Number.NaN;
     const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
     if (name !== '' && code < 0) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
     if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
@@ -279,7 +279,7 @@ export async function readRainfall(path: string, label: string, subRegionIds: Se
     const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
     const monthText = values[at.month!] ?? '';
     const month = cells.month(values, at.month!, 'month', line);
-    const rainfallMm = cells.number(values, at.rainfall_mm!, 'rainfall_mm', line, { min: 0 });
+    const rainfallMm = cells.number(values, at.rainfall_mm!, 'rainfall_mm', line, 0);
     if (!cells.rowOk || !monthInRange(cells, month, monthText, line) || later.skip(month, line)) return;
     if (subRegionIds.size > 0 && !subRegionIds.has(subRegionId)) {
       cells.fail(line, 'subregion_id', subRegionId, 'unknown-subregion', 'a sub-region of the boundaries file', 'the sub-region has no boundary');
@@ -308,7 +308,7 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
     const bodyId = cells.text(values, at.body_id!, 'body_id', line);
     const day = cells.date(values, at.date!, 'date', line);
     const name = cells.text(values, at.parameter!, 'parameter', line);
-    const value = cells.number(values, at.value!, 'value', line, { min: 0 });
+    const value = cells.number(values, at.value!, 'value', line, 0);
     const unit = cells.text(values, at.unit!, 'unit', line);
     const parameter = QUALITY_PARAMETERS.find((known) => known === name);
     if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
@@ -337,9 +337,9 @@ export async function readDistributionBins(path: string, label: string, subRegio
     const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
     const month = cells.month(values, at.month!, 'month', line);
     const name = cells.text(values, at.parameter!, 'parameter', line);
-    const lower = cells.number(values, at.bin_lower!, 'bin_lower', line, { min: 0 });
-    const upper = cells.number(values, at.bin_upper!, 'bin_upper', line, { min: 0 });
-    const count = cells.number(values, at.pixel_count!, 'pixel_count', line, { min: 0 });
+    const lower = cells.number(values, at.bin_lower!, 'bin_lower', line, 0);
+    const upper = cells.number(values, at.bin_upper!, 'bin_upper', line, 0);
+    const count = cells.number(values, at.pixel_count!, 'pixel_count', line, 0);
     const parameter = QUALITY_PARAMETERS.find((known) => known === name);
     if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
     if (!Number.isNaN(lower) && !Number.isNaN(upper) && upper <= lower) cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', 'the bin has no width');
