@@ -150,6 +150,22 @@ def monthly(n_years, trend, amplitude, noise, gaps=0.0, round_to=None, start_yea
     return months, y
 
 
+def weighted_median_cases():
+    """numpy lines: the smallest value whose cumulative weight reaches half (mean of two on an exact half)."""
+    out = []
+    for size in (1, 2, 5, 40):
+        values = np.round(rng.normal(10, 4, size), 1)
+        weights = np.round(rng.lognormal(2, 1, size), 2)
+        order = np.argsort(values, kind='stable')
+        v, w = values[order], weights[order]
+        cumulative = np.cumsum(w)
+        half = w.sum() / 2
+        k = int(np.argmax(cumulative >= half - 1e-12 * w.sum()))
+        median = (v[k] + v[min(k + 1, size - 1)]) / 2 if abs(cumulative[k] - half) <= 1e-12 * w.sum() else v[k]
+        out.append({'values': values, 'weights': weights, 'median': median})
+    return out
+
+
 cases = []
 
 
@@ -199,6 +215,10 @@ for case in cases:
     if months is not None:
         entry['months'] = months
         entry['seasonalKendall'] = seasonal(months, y)
+        ok = np.isfinite(y)
+        groups = [y[ok & (months % 12 == g)] for g in range(12)]
+        kw = stats.kruskal(*[g for g in groups if len(g) > 0])
+        entry['kruskalWallis'] = {'h': kw.statistic, 'p': kw.pvalue}
     out_cases.append(entry)
 
 p_values = np.array([c['mannKendall']['p'] for c in out_cases if 'p' in c['mannKendall']])
@@ -223,6 +243,9 @@ reference = {
                   'bias': np.mean(estimate - field), 'meanAbsoluteError': np.mean(np.abs(estimate - field)),
                   'rootMeanSquareError': np.sqrt(np.mean((estimate - field) ** 2)),
                   **(lambda r: {'slope': r.slope, 'intercept': r.intercept, 'rSquared': r.rvalue ** 2})(stats.linregress(field, estimate))},
+    'chiSquare': {'x': [0.5, 3, 11, 19.7, 40, 120, 0.01], 'df': [1, 2, 11, 11, 5, 30, 3],
+                  'survival': stats.chi2.sf([0.5, 3, 11, 19.7, 40, 120, 0.01], [1, 2, 11, 11, 5, 30, 3])},
+    'weightedMedian': weighted_median_cases(),
     'normal': {'z': [0, 0.3, 1, 1.96, 2.4, 2.6, 3.5, 6, 9, 15, 30],
                'survival': stats.norm.sf([0, 0.3, 1, 1.96, 2.4, 2.6, 3.5, 6, 9, 15, 30]),
                'p': [1e-12, 0.001, 0.025, 0.3, 0.5, 0.9, 0.975, 0.999999],

@@ -21,3 +21,6 @@ export { sensSlope, type SensSlopeResult } from './sensSlope.ts';
 export { tieCorrection } from './tieCorrection.ts';
 export { trophicClass, TROPHIC_BOUNDS, type TrophicClass } from './trophicClass.ts';
 export { trophicStateIndex } from './trophicStateIndex.ts';
+export { chiSquareSurvival } from './chiSquareSurvival.ts';
+export { kruskalWallis, type KruskalWallisResult } from './kruskalWallis.ts';
+export { weightedMedian } from './weightedMedian.ts';

@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  agreement, benjaminiHochberg, hamedRao, mannKendall, normalQuantile, normalSurvival, percentileRank, pettitt, quantile,
+  agreement, benjaminiHochberg, chiSquareSurvival, hamedRao, kruskalWallis, weightedMedian, mannKendall, normalQuantile, normalSurvival, percentileRank, pettitt, quantile,
   sampleStandardDeviation, seasonalKendall, sensSlope,
 } from '../../src/stats/index.ts';
 
@@ -22,6 +22,7 @@ interface Case {
   sensSlope?: Record<string, number>;
   hamedRao?: { correctionFactor: number; significantLags: number[]; varianceS: number | null; z: number | null; p: number | null };
   pettitt?: Record<string, number>;
+  kruskalWallis?: { h: number; p: number };
   seasonalKendall?: { s: number; varianceS: number; z: number; p: number; slope: number; covariance?: Record<string, number> };
 }
 const reference = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'fixtures', 'stats-reference.json'), 'utf8')) as {
@@ -32,6 +33,8 @@ const reference = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'fixtu
   standardDeviation: { sample: number[]; value: number };
   agreement: Record<string, number[] | number> & { reference: number[]; estimate: number[] };
   normal: { z: number[]; survival: number[]; p: number[]; quantile: number[] };
+  chiSquare: { x: number[]; df: number[]; survival: number[] };
+  weightedMedian: Array<{ values: number[]; weights: number[]; median: number }>;
 };
 
 /** |actual − expected| ≤ 1e-9 · |expected|, or ≤ 1e-12 when expected is 0 or near it. */
@@ -127,6 +130,23 @@ describe('statistics against the scipy and numpy reference', () => {
       });
     }
   }
+
+  for (const c of reference.cases.filter((entry) => entry.kruskalWallis && entry.months)) {
+    it(`kruskalWallis(${c.name}) by calendar month matches scipy kruskal`, () => {
+      const result = kruskalWallis((c.months as number[]).map((month) => month % 12), values(c.y));
+      close(result.h, c.kruskalWallis?.h, 'H');
+      close(result.p, c.kruskalWallis?.p, 'p');
+    });
+  }
+
+  it('chiSquareSurvival(x, k) matches scipy chi2.sf', () => {
+    const q = reference.chiSquare;
+    q.x.forEach((x, k) => close(chiSquareSurvival(x, q.df[k] as number), q.survival[k], `sf(${x}, ${q.df[k]})`));
+  });
+
+  it('weightedMedian(values, weights) matches the numpy lines', () => {
+    for (const { values: v, weights, median } of reference.weightedMedian) close(weightedMedian(v, weights), median, 'weighted median');
+  });
 
   it('benjaminiHochberg(p) matches scipy false_discovery_control', () => {
     for (const { p, adjusted } of reference.benjaminiHochberg) {
