@@ -51,6 +51,36 @@ export const configSchema = z.strictObject({
       quality: boundaries.default([1, 5, 10, 100]),
     })
     .default({ surface: [100, 10_000], quality: [1, 5, 10, 100] }),
+  grid: z
+    .strictObject({
+      /** Side of the square map cells, in degrees. */
+      cellDegrees: z.number().positive().max(10).default(0.25),
+      /** Fewest water bodies a cell needs before its anomaly is shown. */
+      minBodies: z.number().int().min(1).default(2),
+    })
+    .default({ cellDegrees: 0.25, minBodies: 2 }),
+  trends: z
+    .strictObject({
+      /** False discovery rate for the Benjamini-Hochberg adjustment across water bodies. */
+      falseDiscoveryRate: z.number().gt(0).lt(1).default(0.05),
+      /** Kruskal-Wallis p below which a monthly series is treated as seasonal. */
+      seasonalityP: z.number().gt(0).lt(1).default(0.05),
+      /** Fewest counted months a series needs for a trend test. */
+      minMonths: z.number().int().min(12).default(36),
+    })
+    .default({ falseDiscoveryRate: 0.05, seasonalityP: 0.05, minMonths: 36 }),
+  validation: z
+    .strictObject({
+      /** Days either side of a satellite month within which a field sample of water quality is matched to it. */
+      qualityWindowDays: z.number().int().min(0).max(31).default(10),
+    })
+    .default({ qualityWindowDays: 10 }),
+  quality: z
+    .strictObject({
+      /** Named seasons (calendar months 1–12) for the seasonal water-quality trends; none by default. */
+      seasons: z.array(z.strictObject({ key: z.string().regex(/^[a-z][a-z-]*$/), months: z.array(z.number().int().min(1).max(12)).min(1) })).default([]),
+    })
+    .default({ seasons: [] }),
   statusBands: z.array(statusBand).min(2),
   csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
   site: z.strictObject({ baseUrl: z.url() }),

@@ -1,14 +1,25 @@
 /**
- * Stage 2, model: turns the typed inputs into the bulletin model, every figure the site prints with
- * the words that go with it. The model is written out as JSON beside the site.
+ * Stage 2, model: turns the typed inputs into the bulletin model: every figure the site prints,
+ * the words that go with it, and the method each rests on (ids into METHODS). The model is written
+ * out as JSON beside the site.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, formatProblem, monthLabel } from '../ingest/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
+import { bodySeries } from './bodySeries.ts';
+import { grid, type Grid } from './grid.ts';
+import { keyMessages, type KeyMessage } from './keyMessages.ts';
+import { METHODS } from './methods.ts';
+import { quality, type Quality } from './quality.ts';
 import { surfaceWater, type SurfaceWater } from './surfaceWater.ts';
+import { bodyTrends, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary } from './trends.ts';
+import { validation, type ValidationSummary } from './validation.ts';
 
-export type { Comparison, SurfaceWater, RegionalMonth } from './surfaceWater.ts';
+export type { Status } from './status.ts';
+export type { GroupMonth } from './aggregate.ts';
+export type { SurfaceWater, GroupSurface, SizeClassSurface } from './surfaceWater.ts';
+export type { KeyMessage } from './keyMessages.ts';
 
 export interface Notice {
   kind: 'notice' | 'caveat' | 'caution';
@@ -34,48 +45,52 @@ export interface BulletinModel {
     baseline: { firstYear: number; lastYear: number; minYears: number };
     minObservedShare: number;
     minRegionCoverage: number;
+    maxFilledGap: number;
+    firstMonth: string;
     toolVersion: string;
   };
+  bodies: Array<{ id: string; name: string; subRegionId: string; kind: string; referenceHa: number; lon: number; lat: number; ownPage: boolean }>;
   surfaceWater: SurfaceWater;
-  /** The sentence the overview leads with, or the notice that replaces it. */
+  grid: Grid;
+  trends: { bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
+  quality: Quality | null;
+  validation: ValidationSummary[];
+  keyMessages: KeyMessage[];
+  /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
   headline: string;
-  /** Supporting sentences that carry the figures; empty when no figure is stated. */
-  details: string[];
   notices: Notice[];
+  methods: typeof METHODS;
   warnings: Array<Problem & { text: string }>;
   inputs: InputFile[];
 }
 
 export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string): BulletinModel {
-  const { config } = inputs;
+  const { config, bulletinMonth } = inputs;
   const locale = config.locales[0] ?? 'en';
-  const messages = loadMessages(locale);
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
-  const pct = (value: number, digits = 0) => formatPercent(locale, value, digits);
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
+  const pct = (value: number) => formatPercent(locale, value);
 
-  const water = surfaceWater(inputs);
-  const monthName = formatMonth(locale, inputs.bulletinMonth);
-  const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(inputs.bulletinMonth));
+  const series = bodySeries(inputs);
+  const surface = surfaceWater(inputs, series);
+  const trendsOfBodies = bodyTrends(series, inputs.bodies, config);
+  const trendsOfRegion = groupTrends([surface.region], config);
+  const waterQuality = quality(inputs);
+  const firstYear = Math.floor(series.firstMonth / 12);
+  const key = keyMessages({ locale, bulletinMonth, firstYear, surface, bodyTrends: trendsOfBodies, regionTrend: trendsOfRegion.entries[0]?.test ?? null, quality: waterQuality });
+
+  const monthName = formatMonth(locale, bulletinMonth);
+  const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(bulletinMonth));
   const baselineParams = { baselineFirst: config.baseline.firstYear, baselineLast: config.baseline.lastYear };
-
-  const notices: Notice[] = [];
-  const details: string[] = [];
-  let headline: string;
-  const comparison = water.bulletin;
-  if (comparison.kind === 'stated') {
-    headline = t('surface.headline', { month: monthName, percentOfBaseline: pct(comparison.percentOfBaseline), calendarMonth: calendarMonthName, band: t(`band.${comparison.bandKey}`) });
-    details.push(t('surface.detail', { filling: pct(comparison.fillingPercent), baselineMedian: pct(comparison.baselineMedianPercent), calendarMonth: calendarMonthName, ...baselineParams }));
-    details.push(t('surface.coverage', { coverage: pct(comparison.coveragePercent) }));
-  } else if (comparison.kind === 'low-coverage') {
-    headline = t('notice.lowCoverage', { month: monthName, coverage: pct(comparison.coveragePercent), threshold: pct(comparison.thresholdPercent) });
-    notices.push({ kind: 'notice', text: headline });
-  } else {
-    headline = t('notice.shortBaseline', { years: comparison.usableYears, needed: comparison.neededYears, calendarMonth: calendarMonthName });
-    notices.push({ kind: 'notice', text: headline });
-  }
+  const notices: Notice[] = key.caveats.map((text) => ({ kind: 'notice' as const, text }));
+  const region = surface.region.status;
+  if (region.kind === 'stated' && region.filledPercent >= 1) notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
+  const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
+  if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });
   notices.push({ kind: 'caveat', text: t('caveat.optical', { minShare: pct(100 * config.coverage.minObservedShare) }) });
-  notices.push({ kind: 'caution', text: t('caution.water') });
+  if (waterQuality) notices.push({ kind: 'caveat', text: t('caveat.estimate') });
+  if (region.kind === 'stated' && region.percentOfBaseline < 90) notices.push({ kind: 'caution', text: t('caution.lowWater') });
+  if (waterQuality) notices.push({ kind: 'caution', text: t('caution.algae') });
 
   return {
     meta: {
@@ -83,7 +98,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       publisher: config.publisher,
       region: config.region.name,
       locale,
-      month: monthLabel(inputs.bulletinMonth),
+      month: monthLabel(bulletinMonth),
       monthName,
       calendarMonthName,
       revision: config.issue.revision,
@@ -91,16 +106,24 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       publishedName: formatDate(locale, config.issue.published),
       draft: config.issue.draft,
       baseUrl: config.site.baseUrl,
-      issuePath: `/issues/${monthLabel(inputs.bulletinMonth)}/`,
+      issuePath: `/issues/${monthLabel(bulletinMonth)}/`,
       baseline: config.baseline,
       minObservedShare: config.coverage.minObservedShare,
       minRegionCoverage: config.coverage.minRegionCoverage,
+      maxFilledGap: config.coverage.maxFilledGap,
+      firstMonth: monthLabel(series.firstMonth),
       toolVersion,
     },
-    surfaceWater: water,
-    headline,
-    details,
+    bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
+    surfaceWater: surface,
+    grid: grid(inputs, series),
+    trends: { bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
+    quality: waterQuality,
+    validation: validation(inputs),
+    keyMessages: key.messages,
+    headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,
+    methods: METHODS,
     warnings: warnings.map((problem) => ({ ...problem, text: formatProblem(problem) })),
     inputs: inputs.files,
   };

@@ -9,7 +9,7 @@ import Eleventy from '@11ty/eleventy';
 import type { RenderedChart } from '../charts/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
-import { formatPercent } from '../text/format.ts';
+import { views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
 
@@ -23,28 +23,22 @@ export interface SiteFile {
 export function pageData(model: BulletinModel, charts: Record<string, RenderedChart>) {
   const messages = loadMessages(model.meta.locale);
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
-  const pct = (value: number) => formatPercent(model.meta.locale, value);
   const issue = model.meta.issuePath;
-  const comparison = model.surfaceWater.bulletin;
   return {
     bulletin: model,
     charts,
     t: messages,
+    view: views(model),
     navigation: [
       { key: 'home', href: '/', label: t('site.home') },
       { key: 'overview', href: issue, label: t('page.overview') },
       { key: 'surfaceWater', href: `${issue}surface-water/`, label: t('page.surfaceWater') },
+      { key: 'waterQuality', href: `${issue}water-quality/`, label: t('page.waterQuality') },
+      { key: 'trends', href: `${issue}trends/`, label: t('page.trends') },
       { key: 'dataMethods', href: `${issue}data-and-methods/`, label: t('page.dataMethods') },
     ],
     footer: t('site.footer', { publisher: model.meta.publisher, version: model.meta.toolVersion }),
     noticeLabels: { notice: 'Note', caveat: 'Caveat', caution: 'Caution' },
-    figures: {
-      percentOfBaseline: comparison.kind === 'stated' ? pct(comparison.percentOfBaseline) : '',
-      band: comparison.kind === 'stated' ? t(`band.${comparison.bandKey}`) : '',
-      coverage: pct(comparison.kind === 'low-coverage' ? comparison.coveragePercent : comparison.kind === 'stated' ? comparison.coveragePercent : 0),
-      minObservedShare: pct(100 * model.meta.minObservedShare),
-      minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
-    },
   };
 }
 

@@ -1,14 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import type { BulletinInputs } from '../../src/ingest/index.ts';
 import { configSchema } from '../../src/ingest/config.ts';
-import { bandFor, surfaceWater } from '../../src/model/surfaceWater.ts';
+import { aggregate } from '../../src/model/aggregate.ts';
+import { bodySeries, FILLED, fillShortGaps, OBSERVED } from '../../src/model/bodySeries.ts';
+import { bandFor, statusOf } from '../../src/model/status.ts';
+import { surfaceWater } from '../../src/model/surfaceWater.ts';
 import { areaTable, body } from '../support/inputs.ts';
 
 const config = configSchema.parse({
   title: 'T', publisher: 'P', region: { name: 'R' },
   issue: { month: '2023-05', published: '2023-06-02' },
   baseline: { firstYear: 2020, lastYear: 2022, minYears: 3 },
-  coverage: { minObservedShare: 0.6, minRegionCoverage: 0.5 },
+  coverage: { minObservedShare: 0.6, minRegionCoverage: 0.5, maxFilledGap: 2 },
   statusBands: [{ key: 'lower', fromPercent: null }, { key: 'near', fromPercent: 90 }, { key: 'higher', fromPercent: 110 }],
   site: { baseUrl: 'https://example.org/' },
   inputs: { inventory: 'a', surfaceArea: 'b', boundaries: 'c' },
@@ -16,42 +19,70 @@ const config = configSchema.parse({
 
 const may = (year: number) => year * 12 + 4;
 
-/** Two bodies of 100 and 300 ha; May in 2020–2023. */
+/** Two bodies of 100 and 300 ha. */
 function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
   const bodies = [body('A', 100), body('B', 300)];
   return { config, bulletinMonth: may(2023), bodies, area: areaTable(bodies, area), quality: null, distribution: [], rainfall: [], field: [], subRegions: [], files: [] };
 }
 
-describe('surfaceWater', () => {
-  it('surfaceWater(inputs) compares the bulletin month with the baseline median, by hand', () => {
-    const result = surfaceWater(inputs([
-      ['A', may(2020), 80, 1], ['B', may(2020), 240, 1], // (80 + 240) / 400 = 80 %
-      ['A', may(2021), 60, 1], ['B', may(2021), 240, 1], // 300 / 400 = 75 %
-      ['A', may(2022), 90, 1], ['B', may(2022), 270, 1], // 360 / 400 = 90 %
-      ['A', may(2023), 50, 1], ['B', may(2023), 150, 0.5], // B seen over 50 % < 60 %: only A counts, 50 / 100 = 50 %, coverage 100 / 400 = 25 %
-    ]));
-    // Coverage 25 % is below the 50 % threshold: no figure for May 2023.
-    expect(result.bulletin).toEqual({ kind: 'low-coverage', coveragePercent: 25, thresholdPercent: 50 });
+const MAY_ROWS: Array<[string, number, number, number]> = [
+  ['A', may(2020), 80, 1], ['B', may(2020), 240, 1], // (80 + 240) / 400 = 80 %
+  ['A', may(2021), 60, 1], ['B', may(2021), 240, 1], // 300 / 400 = 75 %
+  ['A', may(2022), 90, 1], ['B', may(2022), 270, 1], // 360 / 400 = 90 %
+];
+
+describe('surface water', () => {
+  it('statusOf(region) compares the bulletin month with the baseline median, by hand', () => {
+    const data = inputs([...MAY_ROWS, ['A', may(2023), 50, 1], ['B', may(2023), 150, 0.9]]); // 200 / 400 = 50 %
+    const status = surfaceWater(data, bodySeries(data)).region.status;
+    // Baseline fillings 80, 75, 90 → median 80, mean 81.667, sd √((1.667² + 6.667² + 8.333²)/2) = 7.638;
+    // 50 / 80 = 62.5 % of usual → lowest band; z = (50 − 81.667)/7.638 = −4.146; below all three → rank 0.
+    expect(status).toMatchObject({ kind: 'stated', fillingPercent: 50, coveragePercent: 100, percentOfBaseline: 62.5, anomalyPoints: -30, bandKey: 'lower', percentileRank: 0 });
+    if (status.kind !== 'stated') return;
+    expect(status.baseline.median).toBe(80);
+    expect(status.standardized).toBeCloseTo(-4.146, 3);
+    // Change from May 2022 (90 %): −40 points; April 2023 has no value.
+    expect(status.changeFromLastYear).toBe(-40);
+    expect(status.changeFromPreviousMonth).toBeNull();
   });
 
-  it('surfaceWater(inputs) states percent of baseline and the band when coverage suffices', () => {
-    const result = surfaceWater(inputs([
-      ['A', may(2020), 80, 1], ['B', may(2020), 240, 1],
-      ['A', may(2021), 60, 1], ['B', may(2021), 240, 1],
-      ['A', may(2022), 90, 1], ['B', may(2022), 270, 1],
-      ['A', may(2023), 50, 1], ['B', may(2023), 150, 0.9], // 200 / 400 = 50 %
-    ]));
-    // Baseline fillings 80, 75, 90 → median 80; 50 / 80 = 62.5 % of baseline → lowest band.
-    expect(result.bulletin).toMatchObject({ kind: 'stated', fillingPercent: 50, coveragePercent: 100, baselineMedianPercent: 80, percentOfBaseline: 62.5, bandKey: 'lower' });
+  it('statusOf(region) states no figure when too little of the region was seen', () => {
+    // B seen over 50 % < 60 %: only A counts; coverage 100 / 400 = 25 % < 50 %.
+    const data = inputs([...MAY_ROWS, ['A', may(2023), 50, 1], ['B', may(2023), 150, 0.5]]);
+    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({ kind: 'low-coverage', coveragePercent: 25, thresholdPercent: 50 });
   });
 
-  it('surfaceWater(inputs) refuses a comparison with fewer baseline years than minYears', () => {
-    const result = surfaceWater(inputs([['A', may(2021), 60, 1], ['B', may(2021), 240, 1], ['A', may(2023), 50, 1], ['B', may(2023), 150, 1]]));
-    expect(result.bulletin).toEqual({ kind: 'short-baseline', usableYears: 1, neededYears: 3 });
+  it('statusOf(region) refuses a comparison with fewer baseline years than minYears', () => {
+    const data = inputs([['A', may(2021), 60, 1], ['B', may(2021), 240, 1], ['A', may(2023), 50, 1], ['B', may(2023), 150, 1]]);
+    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({ kind: 'short-baseline', fillingPercent: 50, coveragePercent: 100, usableYears: 1, neededYears: 3 });
+  });
+
+  it('fillShortGaps fills gaps up to the limit linearly and flags them; longer gaps stay missing', () => {
+    const values = Float64Array.from([10, Number.NaN, Number.NaN, 40, Number.NaN, Number.NaN, Number.NaN, 0]);
+    const state = Uint8Array.from([OBSERVED, 0, 0, OBSERVED, 0, 0, 0, OBSERVED]);
+    fillShortGaps(values, state, 2);
+    // By hand: 10 → 40 over three steps gives 20 and 30; the three-month gap is too long.
+    expect(Array.from(values.slice(0, 4))).toEqual([10, 20, 30, 40]);
+    expect(Array.from(state)).toEqual([OBSERVED, FILLED, FILLED, OBSERVED, 0, 0, 0, OBSERVED]);
+    expect(values[5]).toBeNaN();
+  });
+
+  it('aggregate counts filled months in the filling but not in the coverage', () => {
+    const data = inputs([['A', may(2023) - 2, 40, 1], ['A', may(2023), 60, 1], ['B', may(2023) - 1, 150, 1]]);
+    const series = bodySeries(data);
+    const april = aggregate(series, [0, 1], [100, 300], 0).find((row) => row.month === may(2023) - 1);
+    // April: A filled at 50 %, B seen at 50 % → (50·100 + 50·300)/400 = 50 %; seen 300 of 400 = 75 %; filled 25 %.
+    expect(april).toMatchObject({ fillingPercent: 50, coveragePercent: 75, filledPercent: 25, bodiesWithValue: 2 });
   });
 
   it('bandFor(percent, bands) takes the highest band whose lower bound is reached', () => {
     const bands = config.statusBands;
     expect([50, 89.99, 90, 109, 110, 300].map((value) => bandFor(value, bands))).toEqual(['lower', 'lower', 'near', 'near', 'higher', 'higher']);
+  });
+
+  it('statusOf ignores months outside the baseline for the climatology', () => {
+    const data = inputs([...MAY_ROWS, ['A', may(2019), 10, 1], ['B', may(2019), 10, 1], ['A', may(2023), 80, 1], ['B', may(2023), 240, 1]]);
+    const status = statusOf(surfaceWater(data, bodySeries(data)).region.series, may(2023), config);
+    expect(status.kind === 'stated' && status.baseline.values).toEqual([75, 80, 90]);
   });
 });

@@ -31,8 +31,15 @@ function brokenCopy(name: string, edit: (html: string) => string): string {
 }
 
 describe('example site', () => {
-  it('has the pages of the walking skeleton', () => {
-    expect(htmlPages(site)).toEqual(['index.html', 'issues/2026-11/data-and-methods/index.html', 'issues/2026-11/index.html', 'issues/2026-11/surface-water/index.html']);
+  it('has the home page and the five pages of the issue', () => {
+    expect(htmlPages(site)).toEqual([
+      'index.html',
+      'issues/2026-11/data-and-methods/index.html',
+      'issues/2026-11/index.html',
+      'issues/2026-11/surface-water/index.html',
+      'issues/2026-11/trends/index.html',
+      'issues/2026-11/water-quality/index.html',
+    ]);
   });
 
   it('checkLinks(site) finds no broken link, fragments included', async () => {
@@ -44,13 +51,13 @@ describe('example site', () => {
   it('validateHtml(site) finds no error', async () => {
     const { pages, errors } = await validateHtml(site);
     expect(errors).toEqual([]);
-    expect(pages).toBe(4);
+    expect(pages).toBe(6);
   }, 60_000);
 
   it('auditAccessibility(site) finds no WCAG 2.x A or AA violation', async () => {
     const { pages, violations } = await auditAccessibility(site, browser);
     expect(violations).toEqual([]);
-    expect(pages).toBe(4);
+    expect(pages).toBe(6);
   }, 120_000);
 
   it('building twice gives byte-identical output', async () => {

@@ -1,0 +1,101 @@
+/**
+ * Key messages: 3–6 short statements for decision-makers, each made by a documented rule from the
+ * model's figures, each carrying the figure it rests on and the page that shows it. A message is
+ * left out, and a caveat says why, when coverage is below the threshold or the evidence does not
+ * support it. Strength words for tests come from evidence.ts.
+ *
+ * Rules, in order:
+ * 1. region: the regional status band and percent of usual (needs a stated status);
+ * 2. sub-region: the sub-region furthest below usual (needs two or more stated sub-regions and
+ *    one below 100 % of usual);
+ * 3. size class: the class whose dry share exceeds its baseline dry share the most (when > 0);
+ * 4. trend count: water bodies whose decline holds after the Benjamini-Hochberg adjustment;
+ * 5. region trend: the regional trend with its evidence words (only with at least moderate evidence);
+ * 6. chlorophyll-a: bodies above the WHO 10 µg/L level (when any);
+ * 7. change from a year ago (when rules 2–6 left room; at most six messages in all).
+ */
+import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatCalendarMonth, formatMonth, formatNumber, formatPercent } from '../text/format.ts';
+import { evidenceFor, type EvidenceKey } from './evidence.ts';
+import type { Quality } from './quality.ts';
+import type { SurfaceWater } from './surfaceWater.ts';
+import type { TrendSummary, TrendTest } from './trends.ts';
+
+export interface KeyMessage {
+  id: string;
+  text: string;
+  /** The figure the message rests on, as printed and as a number. */
+  figure: { value: number; unit: string; method: string };
+  /** Page (relative to the issue) and anchor that show the figure. */
+  link: string;
+  evidence?: EvidenceKey;
+}
+
+export interface KeyMessageInputs {
+  locale: string;
+  bulletinMonth: number;
+  firstYear: number;
+  surface: SurfaceWater;
+  bodyTrends: TrendSummary;
+  regionTrend: TrendTest | null;
+  quality: Quality | null;
+}
+
+export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; caveats: string[] } {
+  const messages: KeyMessage[] = [];
+  const caveats: string[] = [];
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(input.locale), key, params);
+  const pct = (value: number) => formatPercent(input.locale, value);
+  const month = formatMonth(input.locale, input.bulletinMonth);
+  const calendarMonth = formatCalendarMonth(input.locale, (input.bulletinMonth % 12) + 1);
+  const region = input.surface.region.status;
+
+  if (region.kind === 'stated') {
+    messages.push({ id: 'region', text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(`band.${region.bandKey}`) }), figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' }, link: 'surface-water/#status' });
+  } else if (region.kind === 'low-coverage') {
+    caveats.push(t('caveat.keyCoverage', { month, coverage: pct(region.coveragePercent), threshold: pct(region.thresholdPercent) }));
+  } else {
+    caveats.push(t('caveat.keyBaseline', { month, years: region.usableYears, needed: region.neededYears, calendarMonth }));
+  }
+
+  const stated = input.surface.subRegions.filter((entry) => entry.status.kind === 'stated');
+  const lowest = [...stated].sort((a, b) => percentOf(a.status) - percentOf(b.status))[0];
+  if (region.kind === 'stated' && stated.length >= 2 && lowest && percentOf(lowest.status) < 100) {
+    messages.push({ id: 'sub-region', text: t('key.subRegion', { name: lowest.name, percentOfBaseline: pct(percentOf(lowest.status)) }), figure: { value: percentOf(lowest.status), unit: '% of baseline median', method: 'status' }, link: 'surface-water/#sub-regions' });
+  }
+
+  const classes = input.surface.sizeClasses.filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null && entry.status.kind === 'stated');
+  const worst = [...classes].sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
+  if (region.kind === 'stated' && worst && (worst.lossPercent as number) > (worst.baselineLossPercent as number)) {
+    messages.push({ id: 'size-class', text: t('key.sizeClass', { label: worst.name, loss: pct(worst.lossPercent as number), baselineLoss: pct(worst.baselineLossPercent as number), calendarMonth }), figure: { value: worst.lossPercent as number, unit: '% of reference area dry', method: 'size-class-loss' }, link: 'surface-water/#size-classes' });
+  }
+
+  const trends = input.bodyTrends;
+  if (trends.tested > 0) {
+    const text = trends.declining > 0 ? t('key.trendCount', { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
+    messages.push({ id: 'trend-count', text, figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' }, link: 'trends/#bodies' });
+  }
+
+  const regionTrend = input.regionTrend;
+  if (regionTrend && Number.isFinite(regionTrend.p)) {
+    const evidence = evidenceFor(regionTrend.p);
+    if (evidence === 'very-strong' || evidence === 'strong' || evidence === 'moderate') {
+      const slope = `${regionTrend.slopePerYear > 0 ? '+' : '−'}${formatNumber(input.locale, Math.abs(regionTrend.slopePerYear), 1)}`;
+      messages.push({ id: 'region-trend', text: t('key.regionTrend', { evidence: t(`evidence.${evidence}`), slope, firstYear: input.firstYear }), figure: { value: regionTrend.slopePerYear, unit: 'percentage points of reference area a year', method: 'trend-region' }, link: 'trends/#region', evidence });
+    }
+  }
+
+  const who = input.quality?.who;
+  const above10 = who?.levels.find((level) => level.level === 10);
+  if (who && above10 && above10.bodiesAbove > 0) {
+    messages.push({ id: 'chlorophyll', text: t('key.chlorophyll', { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
+  }
+
+  if (region.kind === 'stated' && region.changeFromLastYear !== null && messages.length < 6) {
+    const change = region.changeFromLastYear;
+    messages.push({ id: 'last-year', text: t('key.lastYear', { points: formatNumber(input.locale, Math.abs(change), 1), direction: t(change < 0 ? 'direction.less' : 'direction.more'), lastYearMonth: formatMonth(input.locale, input.bulletinMonth - 12) }), figure: { value: change, unit: 'percentage points of reference area', method: 'status' }, link: 'surface-water/#status' });
+  }
+  return { messages: messages.slice(0, 6), caveats };
+}
+
+const percentOf = (status: SurfaceWater['region']['status']) => (status.kind === 'stated' ? status.percentOfBaseline : Number.POSITIVE_INFINITY);

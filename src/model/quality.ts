@@ -1,0 +1,193 @@
+/**
+ * Water quality (chlorophyll-a and turbidity) from the per-body monthly medians of valid pixels.
+ *
+ * - Region medians per month, two ways: the plain median of the body medians (every body counts
+ *   once) and the median weighted by reference area (large bodies count more).
+ * - Distributions: body medians per month in bins, on a log scale for chlorophyll-a (four bins a
+ *   decade) and a linear one for turbidity.
+ * - Quantiles (10th, 25th, 50th, 75th, 90th, type 7) of the bulletin month's body medians by
+ *   quality size class.
+ * - Carlson (1977) trophic state index per body and counts per OECD (1982) trophic class.
+ * - The share of bodies above the WHO (2003) recreational guidance levels for chlorophyll-a.
+ * - Trends per body (as for surface water) and, where the configuration names seasons, the trend
+ *   of each size class's seasonal median year by year.
+ */
+import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
+import { QUALITY_PARAMETERS } from '../ingest/index.ts';
+import { mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
+import { sizeClassBounds } from './surfaceWater.ts';
+import { trendTest, type TrendTest } from './trends.ts';
+import { benjaminiHochberg } from '../stats/index.ts';
+
+/**
+ * WHO (2003), Guidelines for Safe Recreational Water Environments, Vol. 1, ch. 8: chlorophyll-a of
+ * 10 µg/L with cyanobacterial dominance marks a relatively low probability of adverse health
+ * effects, 50 µg/L a moderate one.
+ */
+export const WHO_LEVELS = [10, 50] as const;
+
+export interface ParameterMonths {
+  firstMonth: number;
+  months: number;
+  /** Body median per body and month; NaN = no value. */
+  values: Float64Array[];
+}
+
+export interface QualityParameterSummary {
+  parameter: QualityParameter;
+  unit: string;
+  /** Region medians per month: plain and area-weighted; null where no body had a value. */
+  monthly: Array<{ month: number; bodies: number; median: number | null; weightedMedian: number | null }>;
+  distribution: { edges: number[]; months: Array<{ month: number; counts: number[] }> };
+  bySizeClass: Array<{ label: string; fromHa: number; toHa: number | null; bodies: number; p10: number | null; p25: number | null; p50: number | null; p75: number | null; p90: number | null }>;
+  bodiesThisMonth: number;
+  trends: { tested: number; rising: number; falling: number; falseDiscoveryRate: number; entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }> };
+  seasonal: Array<{ season: string; sizeClass: string; years: number; slopePerYear: number | null; p: number | null }>;
+}
+
+export interface Quality {
+  parameters: QualityParameterSummary[];
+  trophic: {
+    bodies: Array<{ id: string; chlorophyll: number; index: number; trophicClass: TrophicClass }>;
+    counts: Array<{ trophicClass: TrophicClass; upperBound: number | null; bodies: number }>;
+  };
+  who: { bodiesWithValue: number; levels: Array<{ level: number; bodiesAbove: number; sharePercent: number | null }> };
+}
+
+export function parameterMonths(inputs: BulletinInputs, parameter: QualityParameter): ParameterMonths {
+  const table = inputs.quality;
+  const code = QUALITY_PARAMETERS.indexOf(parameter);
+  let firstMonth = inputs.bulletinMonth;
+  if (table) for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) firstMonth = Math.min(firstMonth, table.month[k] as number);
+  const months = inputs.bulletinMonth - firstMonth + 1;
+  const values = inputs.bodies.map(() => new Float64Array(months).fill(Number.NaN));
+  if (table) for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) (values[table.body[k] as number] as Float64Array)[(table.month[k] as number) - firstMonth] = table.median[k] as number;
+  return { firstMonth, months, values };
+}
+
+const round = (value: number) => Math.round(value * 1e6) / 1e6;
+const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);
+
+function edgesFor(parameter: QualityParameter): number[] {
+  // Chlorophyll-a: 0.1 to 1000 µg/L, four bins a decade. Turbidity: 0 to 100 FNU in steps of 5.
+  return parameter === 'chlorophyll_a' ? Array.from({ length: 17 }, (_, k) => round(10 ** (k / 4 - 1))) : Array.from({ length: 21 }, (_, k) => 5 * k);
+}
+
+/** Bin index of a value, or −1 below the first edge; values at or above the last edge go in the last bin. */
+function binOf(value: number, edges: number[]): number {
+  if (value < (edges[0] as number)) return -1;
+  for (let k = 1; k < edges.length; k++) if (value < (edges[k] as number)) return k - 1;
+  return edges.length - 2;
+}
+
+function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths): QualityParameterSummary {
+  const { bodies, config, bulletinMonth } = inputs;
+  const reference = bodies.map((body) => body.referenceHa);
+  const monthly = Array.from({ length: data.months }, (_, slot) => {
+    const values = data.values.map((series) => series[slot] as number);
+    const bodiesWithValue = values.filter(Number.isFinite).length;
+    return { month: data.firstMonth + slot, bodies: bodiesWithValue, median: finiteOrNull(median(values)), weightedMedian: finiteOrNull(weightedMedian(values, reference)) };
+  });
+  const edges = edgesFor(parameter);
+  const distribution = {
+    edges,
+    months: monthly.slice(-24).map(({ month }) => {
+      const counts = new Array<number>(edges.length - 1).fill(0);
+      for (const series of data.values) {
+        const value = series[month - data.firstMonth] as number;
+        const bin = Number.isFinite(value) ? binOf(value, edges) : -1;
+        if (bin >= 0) counts[bin] = (counts[bin] as number) + 1;
+      }
+      return { month, counts };
+    }),
+  };
+  const now = data.values.map((series) => series[bulletinMonth - data.firstMonth] as number);
+  const bySizeClass = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => {
+    const values = now.filter((value, k) => Number.isFinite(value) && (reference[k] as number) >= fromHa && (toHa === null || (reference[k] as number) < toHa));
+    const q = (p: number) => (values.length > 0 ? quantile(values, p) : null);
+    const label = toHa === null ? `over ${fromHa.toLocaleString('en')} ha` : `${fromHa.toLocaleString('en')}–${toHa.toLocaleString('en')} ha`;
+    return { label, fromHa, toHa, bodies: values.length, p10: q(0.1), p25: q(0.25), p50: q(0.5), p75: q(0.75), p90: q(0.9) };
+  });
+
+  const months = Int32Array.from({ length: data.months }, (_, k) => data.firstMonth + k);
+  const tests = data.values.map((series) => trendTest(months, series, config));
+  const adjusted = benjaminiHochberg(tests.map((test) => test?.p ?? null), config.trends.falseDiscoveryRate);
+  const entries = bodies.map((body, k) => {
+    const test = tests[k] ?? null;
+    const pAdjusted = finiteOrNull(adjusted.adjusted[k] as number);
+    const direction = !test || pAdjusted === null ? 'untested' : adjusted.rejected[k] ? (test.slopePerYear > 0 ? 'rise' : test.slopePerYear < 0 ? 'fall' : 'none') : 'none';
+    return { id: body.id, test, pAdjusted, direction };
+  });
+
+  return {
+    parameter,
+    unit: parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU',
+    monthly,
+    distribution,
+    bySizeClass,
+    bodiesThisMonth: now.filter(Number.isFinite).length,
+    trends: { tested: entries.filter((e) => e.direction !== 'untested').length, rising: entries.filter((e) => e.direction === 'rise').length, falling: entries.filter((e) => e.direction === 'fall').length, falseDiscoveryRate: config.trends.falseDiscoveryRate, entries },
+    seasonal: seasonalClassTrends(inputs, data, config),
+  };
+}
+
+/**
+ * For each configured season and quality size class: the median over the class's bodies of their
+ * seasonal mean, year by year, tested with Mann-Kendall and Sen's slope per year (years with no
+ * value are left out).
+ */
+function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig): QualityParameterSummary['seasonal'] {
+  const out: QualityParameterSummary['seasonal'] = [];
+  const reference = inputs.bodies.map((body) => body.referenceHa);
+  const firstYear = Math.floor(data.firstMonth / 12);
+  const lastYear = Math.floor(inputs.bulletinMonth / 12);
+  for (const season of config.quality.seasons) {
+    for (const { fromHa, toHa } of sizeClassBounds(config.sizeClasses.quality, false)) {
+      const members = reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0);
+      const years: number[] = [];
+      const values: number[] = [];
+      for (let year = firstYear; year <= lastYear; year++) {
+        const means = members.map((body) => {
+          const inSeason = season.months.map((month) => (data.values[body] as Float64Array)[year * 12 + month - 1 - data.firstMonth]).filter((value): value is number => value !== undefined && Number.isFinite(value));
+          return inSeason.length > 0 ? inSeason.reduce((sum, value) => sum + value, 0) / inSeason.length : Number.NaN;
+        });
+        const value = median(means);
+        if (Number.isFinite(value)) {
+          years.push(year);
+          values.push(value);
+        }
+      }
+      const label = toHa === null ? `over ${fromHa.toLocaleString('en')} ha` : `${fromHa.toLocaleString('en')}–${toHa.toLocaleString('en')} ha`;
+      const test = mannKendall(values);
+      out.push({ season: season.key, sizeClass: label, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
+    }
+  }
+  return out;
+}
+
+export function quality(inputs: BulletinInputs): Quality | null {
+  if (!inputs.quality || inputs.quality.length === 0) return null;
+  const byParameter = QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter) }));
+  const chlorophyll = byParameter.find((entry) => entry.parameter === 'chlorophyll_a')?.data;
+  const now = chlorophyll ? chlorophyll.values.map((series) => series[inputs.bulletinMonth - chlorophyll.firstMonth] as number) : [];
+  const trophicBodies = inputs.bodies.flatMap((body, k) => {
+    const value = now[k];
+    const trophic = value === undefined ? null : trophicClass(value);
+    return value !== undefined && Number.isFinite(value) && trophic ? [{ id: body.id, chlorophyll: value, index: trophicStateIndex(value), trophicClass: trophic }] : [];
+  });
+  const withValue = now.filter(Number.isFinite);
+  return {
+    parameters: byParameter.map(({ parameter, data }) => parameterSummary(inputs, parameter, data)),
+    trophic: {
+      bodies: trophicBodies,
+      counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({ trophicClass: trophicClassName, upperBound: Number.isFinite(upper) ? upper : null, bodies: trophicBodies.filter((entry) => entry.trophicClass === trophicClassName).length })),
+    },
+    who: {
+      bodiesWithValue: withValue.length,
+      levels: WHO_LEVELS.map((level) => {
+        const above = withValue.filter((value) => value > level).length;
+        return { level, bodiesAbove: above, sharePercent: withValue.length > 0 ? (100 * above) / withValue.length : null };
+      }),
+    },
+  };
+}

@@ -1,0 +1,46 @@
+/**
+ * Agreement of the satellite estimates with field measurements. A field sample is matched to the
+ * body's satellite median of the month that contains its date; when that month has no value, to
+ * the month before or after if the date lies within validation.qualityWindowDays of that month.
+ * Per parameter: n, bias, MAE, RMSE, R² and the least-squares line of satellite on field.
+ */
+import type { BulletinInputs, QualityParameter } from '../ingest/index.ts';
+import { QUALITY_PARAMETERS } from '../ingest/index.ts';
+import { agreement, type AgreementResult } from '../stats/index.ts';
+import { parameterMonths } from './quality.ts';
+
+export interface ValidationSummary {
+  parameter: QualityParameter;
+  windowDays: number;
+  pairs: Array<{ bodyId: string; date: string; field: number; satellite: number; satelliteMonth: number }>;
+  agreement: AgreementResult;
+}
+
+const DAY = 86_400_000;
+
+export function validation(inputs: BulletinInputs): ValidationSummary[] {
+  if (!inputs.quality || inputs.field.length === 0) return [];
+  const windowDays = inputs.config.validation.qualityWindowDays;
+  return QUALITY_PARAMETERS.flatMap((parameter) => {
+    const samples = inputs.field.filter((record) => record.parameter === parameter);
+    if (samples.length === 0) return [];
+    const data = parameterMonths(inputs, parameter);
+    const valueAt = (body: number, month: number) => {
+      const slot = month - data.firstMonth;
+      return slot >= 0 && slot < data.months ? ((data.values[body] as Float64Array)[slot] as number) : Number.NaN;
+    };
+    const pairs: ValidationSummary['pairs'] = [];
+    for (const sample of samples) {
+      const date = new Date(sample.day * DAY);
+      const monthStart = Date.UTC(date.getUTCFullYear(), date.getUTCMonth(), 1) / DAY;
+      const nextStart = Date.UTC(date.getUTCFullYear(), date.getUTCMonth() + 1, 1) / DAY;
+      const candidates = [sample.month];
+      if (sample.day - monthStart < windowDays) candidates.push(sample.month - 1);
+      if (nextStart - 1 - sample.day < windowDays) candidates.push(sample.month + 1);
+      const month = candidates.find((candidate) => Number.isFinite(valueAt(sample.body, candidate)));
+      if (month === undefined) continue;
+      pairs.push({ bodyId: sample.bodyId, date: date.toISOString().slice(0, 10), field: sample.value, satellite: valueAt(sample.body, month), satelliteMonth: month });
+    }
+    return [{ parameter, windowDays, pairs, agreement: agreement(pairs.map((pair) => pair.field), pairs.map((pair) => pair.satellite)) }];
+  });
+}
