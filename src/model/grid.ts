@@ -28,6 +28,7 @@ export interface GridCell {
 }
 
 export interface Grid {
+  method: 'grid';
   cellDegrees: number;
   minBodies: number;
   cells: GridCell[];
@@ -46,6 +47,7 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
   });
   const sorted = [...cells.values()].sort((a, b) => b.row - a.row || a.column - b.column);
   return {
+    method: 'grid',
     cellDegrees,
     minBodies,
     cells: sorted.map(({ column, row, members }) => {

@@ -52,8 +52,9 @@ export interface BulletinModel {
   bodies: Array<{ id: string; name: string; subRegionId: string; kind: string; referenceHa: number; lon: number; lat: number; ownPage: boolean }>;
   surfaceWater: SurfaceWater;
   grid: Grid;
-  trends: { bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
+  trends: { methods: string[]; bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
   quality: Quality | null;
+  /** Method 'validation'. */
   validation: ValidationSummary[];
   keyMessages: KeyMessage[];
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
@@ -117,7 +118,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
     bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
     surfaceWater: surface,
     grid: grid(inputs, series),
-    trends: { bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
+    trends: { methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'], bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
     quality: waterQuality,
     validation: validation(inputs),
     keyMessages: key.messages,

@@ -46,6 +46,7 @@ export interface QualityParameterSummary {
 }
 
 export interface Quality {
+  methods: string[];
   parameters: QualityParameterSummary[];
   trophic: {
     bodies: Array<{ id: string; chlorophyll: number; index: number; trophicClass: TrophicClass }>;
@@ -177,6 +178,7 @@ export function quality(inputs: BulletinInputs): Quality | null {
   });
   const withValue = now.filter(Number.isFinite);
   return {
+    methods: ['quality-medians', 'quality-classes', 'trend-bodies', 'trophic', 'who-levels'],
     parameters: byParameter.map(({ parameter, data }) => parameterSummary(inputs, parameter, data)),
     trophic: {
       bodies: trophicBodies,

@@ -30,6 +30,8 @@ export interface SizeClassSurface extends GroupSurface {
 }
 
 export interface SurfaceWater {
+  /** Ids in METHODS of the methods behind these figures. */
+  methods: string[];
   region: GroupSurface;
   subRegions: GroupSurface[];
   sizeClasses: SizeClassSurface[];
@@ -90,5 +92,5 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
     p10: entry.enough ? entry.p10 : null,
     p90: entry.enough ? entry.p90 : null,
   }));
-  return { region, subRegions, sizeClasses, sameMonthEachYear, regionEnvelope };
+  return { methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'], region, subRegions, sizeClasses, sameMonthEachYear, regionEnvelope };
 }
