@@ -1,14 +1,44 @@
-/** Stage 3, charts: chart definitions from the model, rendered to accessible SVG. */
+/** Stage 3, charts: chart definitions from the model, rendered to accessible SVG and PNG. */
 import type { BulletinModel } from '../model/index.ts';
-import { renderChart, type RenderedChart } from './render.ts';
-import { regionalSeriesChart, sameMonthChart } from './surfaceWaterCharts.ts';
+import { cardSvg } from './card.ts';
+import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
+import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';
+import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from './render.ts';
+import { anomalyBarsChart, rainfallChart, regionalSeriesChart, sameMonthChart, sizeClassChart, sparklineChart, subRegionChart } from './surfaceWaterCharts.ts';
 
 export type { RenderedChart, DataTable } from './render.ts';
 
-export async function buildCharts(model: BulletinModel): Promise<Record<string, RenderedChart>> {
+export interface ChartSet {
+  /** Charts by id, each with SVG, PNG, data CSV and spec. */
+  charts: Record<string, RenderedChart>;
+  /** Sparkline SVG per monitored body id (no PNG or downloads: the table row carries the figures). */
+  sparklines: Record<string, string>;
+  card: { svg: string; png: Buffer };
+}
+
+export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
+  const quality = model.quality?.parameters ?? [];
+  return [
+    regionalSeriesChart(model),
+    sameMonthChart(model),
+    anomalyBarsChart(model),
+    subRegionChart(model),
+    sizeClassChart(model),
+    rainfallChart(model),
+    gridMapChart(model),
+    subRegionMapChart(model),
+    bodiesMapChart(model),
+    ...quality.flatMap((parameter) => [distributionChart(model, parameter), medianTrendChart(model, parameter), sizeClassQuantileChart(model, parameter)]),
+    trophicChart(model),
+    ...model.validation.map((_, k) => validationChart(model, k)),
+  ].filter((chart): chart is ChartDefinition => chart !== null);
+}
+
+export async function buildCharts(model: BulletinModel): Promise<ChartSet> {
   const charts: Record<string, RenderedChart> = {};
-  for (const definition of [regionalSeriesChart(model), sameMonthChart(model)]) {
-    charts[definition.id] = await renderChart(definition);
-  }
-  return charts;
+  for (const definition of chartDefinitions(model)) charts[definition.id] = await renderChart(definition, { png: true });
+  const sparklines: Record<string, string> = {};
+  for (const body of model.monitored) sparklines[body.id] = (await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false })).svg;
+  const svg = cardSvg(model);
+  return { charts, sparklines, card: { svg, png: await svgToPng(svg) } };
 }

@@ -2,11 +2,11 @@
  * Server-side chart rendering: Vega-Lite spec → Vega → headless SVG string, made accessible and
  * safe to inline many times on one page.
  */
+import sharp from 'sharp';
 import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 
-/** The one font for every chart, SVG and PNG alike (installed by fonts-dejavu-core). */
-export const CHART_FONT = 'DejaVu Sans';
+import { CHART_FONT } from './palettes.ts';
 
 export interface DataTable {
   caption: string;
@@ -31,7 +31,14 @@ export interface RenderedChart {
   svg: string;
   specJson: string;
   csv: string;
+  /** PNG copy for print and slides, at twice the SVG's size; null when not asked for. */
+  png: Buffer | null;
   table: DataTable;
+}
+
+/** PNG from SVG with sharp (libvips and the system fonts); `density` 144 doubles the 72-dpi size. */
+export async function svgToPng(svg: string, density = 72): Promise<Buffer> {
+  return sharp(Buffer.from(svg), { density }).png({ compressionLevel: 9, adaptiveFiltering: false }).toBuffer();
 }
 
 const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
@@ -45,10 +52,10 @@ export function toCsv(table: DataTable): string {
   return [table.columns, ...table.rows].map((row) => row.map(field).join(',')).join('\r\n') + '\r\n';
 }
 
-export async function renderChart(chart: ChartDefinition): Promise<RenderedChart> {
+export async function renderChart(chart: ChartDefinition, { png = false } = {}): Promise<RenderedChart> {
   const spec: TopLevelSpec = {
     ...chart.spec,
-    config: { font: CHART_FONT, ...(chart.spec.config ?? {}) },
+    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400 }, ...(chart.spec.config ?? {}) },
   } as TopLevelSpec;
   const compiled = compile(spec).spec;
   // Vega numbers clip paths and gradients with process-wide counters: reset them so each chart's
@@ -57,11 +64,13 @@ export async function renderChart(chart: ChartDefinition): Promise<RenderedChart
   const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
   const raw = await view.toSVG();
   view.finalize();
+  const svg = accessibleSvg(prefixIds(raw, chart.id), chart);
   return {
     id: chart.id,
     title: chart.title,
     description: chart.description,
-    svg: accessibleSvg(prefixIds(raw, chart.id), chart),
+    svg,
+    png: png ? await svgToPng(svg, 144) : null,
     specJson: JSON.stringify(spec, null, 2) + '\n',
     csv: toCsv(chart.table),
     table: chart.table,

@@ -1,50 +1,57 @@
-/** Chart definitions for the surface-water page, built from the model alone. */
+/** Chart definitions for surface water, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
+import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
 import type { ChartDefinition } from './render.ts';
 
-/** Okabe & Ito (2008) colour-universal-design palette: blue, vermillion; a mid grey; a light blue band. */
-const INK = '#0072B2';
-const HIGHLIGHT = '#D55E00';
-const MUTED = '#6b6b6b';
 const ENVELOPE = '#c6dbef';
-
+const SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
 const monthText = (index: number) => `${Math.floor(index / 12)}-${String((index % 12) + 1).padStart(2, '0')}`;
-const round = (value: number | null, digits = 1) => (value === null ? null : Math.round(value * 10 ** digits) / 10 ** digits);
+const round = (value: number | null | undefined, digits = 1) => (value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits);
+const cell = (value: number | null) => (value === null ? '–' : value);
 
 export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   const messages = loadMessages(model.meta.locale);
   const series = model.surfaceWater.region.series;
   const envelope = model.surfaceWater.regionEnvelope;
-  const last = series[series.length - 1]?.month;
+  const bulletinYear = Number(model.meta.month.slice(0, 4));
   const values = series.map((entry) => {
     const band = envelope[entry.month % 12];
-    return { month: monthText(entry.month), filling: round(entry.fillingPercent), coverage: round(entry.coveragePercent), median: round(band?.median ?? null), p10: round(band?.p10 ?? null), p90: round(band?.p90 ?? null), isBulletin: entry.month === last };
+    return {
+      month: monthText(entry.month),
+      filling: round(entry.fillingPercent),
+      thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
+      coverage: round(entry.coveragePercent),
+      median: round(band?.median),
+      p10: round(band?.p10),
+      p90: round(band?.p90),
+    };
   });
   const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
   const spec: TopLevelSpec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    $schema: SCHEMA,
     width: 640,
     height: 240,
     padding: 12,
     data: { values },
     layer: [
       { mark: { type: 'area', color: ENVELOPE, opacity: 0.9 }, encoding: { x, y: { field: 'p10', type: 'quantitative', title: 'Water, % of reference area', scale: { zero: false } }, y2: { field: 'p90' } } },
-      { mark: { type: 'line', color: MUTED, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative' } } },
-      { mark: { type: 'line', color: INK, strokeWidth: 2 }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
-      { transform: [{ filter: 'datum.isBulletin' }], mark: { type: 'point', shape: 'diamond', size: 120, filled: true, color: HIGHLIGHT }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
+      { mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative' } } },
+      { mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
+      { mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 3, point: { filled: true, size: 30, color: OKABE_ITO.vermillion } }, encoding: { x, y: { field: 'thisYear', type: 'quantitative' } } },
     ],
   };
   return {
     id: 'regional-series',
     title: formatMessage(messages, 'chart.regional.title', { first: values[0]?.month ?? '', last: model.meta.month }),
-    description: formatMessage(messages, 'chart.regional.desc', { headline: model.headline }),
+    description: `${formatMessage(messages, 'chart.regional.desc', { headline: model.headline })} ${bulletinYear} is drawn thick in orange-red; the shaded band is the 10th–90th percentile of the baseline years, the dashed line their median.`,
     spec,
     table: {
       caption: 'Regional filling, coverage and baseline by month',
       columns: ['Month', 'Water, % of reference area', 'Coverage, %', 'Baseline median, %', 'Baseline 10th percentile, %', 'Baseline 90th percentile, %'],
-      rows: values.map((row) => [row.month, row.filling ?? 'not stated', row.coverage ?? 0, row.median ?? '–', row.p10 ?? '–', row.p90 ?? '–']),
+      rows: values.map((row) => [row.month, row.filling ?? 'not stated', row.coverage ?? 0, cell(row.median), cell(row.p10), cell(row.p90)]),
     },
   };
 }
@@ -55,36 +62,176 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
   const status = model.surfaceWater.region.status;
   const values = entries.map((entry) => ({ year: String(entry.year), filling: round(entry.fillingPercent), group: entry.inBaseline ? 'baseline year' : 'other year' }));
   const spec = {
-    $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
+    $schema: SCHEMA,
     width: 480,
     height: 220,
     padding: 12,
     data: { values },
     layer: [
       {
-        mark: { type: 'bar', stroke: '#1a1a1a', strokeWidth: 0.5 },
+        mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
         encoding: {
           x: { field: 'year', type: 'ordinal', title: null, axis: { labelAngle: 0 } },
           y: { field: 'filling', type: 'quantitative', title: 'Water, % of reference area' },
-          color: { field: 'group', type: 'nominal', title: null, scale: { domain: ['baseline year', 'other year'], range: [MUTED, INK] }, legend: { orient: 'bottom' } },
+          color: { field: 'group', type: 'nominal', title: null, scale: { domain: ['baseline year', 'other year'], range: [GREY, OKABE_ITO.blue] }, legend: { orient: 'bottom' } },
         },
       },
       ...(status.kind === 'stated'
-        ? [{ data: { values: [{ median: round(status.baseline.median) }] }, mark: { type: 'rule', color: HIGHLIGHT, strokeWidth: 2, strokeDash: [6, 3] }, encoding: { y: { field: 'median', type: 'quantitative' } } }]
+        ? [{ data: { values: [{ median: round(status.baseline.median) }] }, mark: { type: 'rule', color: OKABE_ITO.vermillion, strokeWidth: 2, strokeDash: [6, 3] }, encoding: { y: { field: 'median', type: 'quantitative' } } }]
         : []),
     ],
   } as TopLevelSpec;
-  const first = entries[0]?.year ?? 0;
-  const last = entries[entries.length - 1]?.year ?? 0;
   return {
     id: 'same-month',
     title: formatMessage(messages, 'chart.calendar.title', { calendarMonth: model.meta.calendarMonthName }),
-    description: formatMessage(messages, 'chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first, last, headline: model.headline }),
+    description: formatMessage(messages, 'chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first: entries[0]?.year ?? 0, last: entries[entries.length - 1]?.year ?? 0, headline: model.headline }),
     spec,
     table: {
       caption: `Regional filling in ${model.meta.calendarMonthName} of each year`,
       columns: ['Year', 'Water, % of reference area', 'In baseline'],
       rows: entries.map((entry) => [entry.year, round(entry.fillingPercent) ?? 'not stated', entry.inBaseline ? 'yes' : 'no']),
     },
+  };
+}
+
+export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
+  const locale = model.meta.locale;
+  const rows = model.surfaceWater.regionAnomalies.slice(-36);
+  const values = rows.map((row) => ({ month: monthText(row.month), points: round(row.points), sign: row.points < 0 ? 'below the baseline median' : 'at or above the baseline median' }));
+  const below = rows.filter((row) => row.points < 0).length;
+  const spec: TopLevelSpec = {
+    $schema: SCHEMA,
+    width: 640,
+    height: 200,
+    padding: 12,
+    data: { values },
+    mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
+    encoding: {
+      x: { field: 'month', type: 'ordinal', title: null, axis: { labelAngle: -90, labelExpr: "substring(datum.value, 5) == '01' || substring(datum.value, 5) == '07' ? datum.value : ''" } },
+      y: { field: 'points', type: 'quantitative', title: 'Difference from baseline median, points' },
+      color: { field: 'sign', type: 'nominal', title: null, scale: { domain: ['below the baseline median', 'at or above the baseline median'], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] }, legend: { orient: 'bottom' } },
+    },
+  };
+  const first = rows[0] ? formatMonth(locale, rows[0].month) : '';
+  return {
+    id: 'anomaly-bars',
+    title: `Monthly difference from usual, ${first} to ${model.meta.monthName}`,
+    description: `Bar chart of the regional filling minus the baseline median of the same calendar month, in percentage points of reference area. ${below} of the last ${rows.length} months with a figure were below the baseline median.`,
+    spec,
+    table: { caption: 'Difference from the baseline median by month', columns: ['Month', 'Difference, percentage points'], rows: values.map((row) => [row.month, row.points ?? '–']) },
+  };
+}
+
+export function subRegionChart(model: BulletinModel): ChartDefinition {
+  const locale = model.meta.locale;
+  const t = (key: string) => formatMessage(loadMessages(locale), key);
+  const values = model.surfaceWater.subRegions.map((group) => {
+    const stated = group.status.kind === 'stated' ? group.status : null;
+    return { name: group.name, percent: round(stated?.percentOfBaseline ?? null, 0), label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : 'not stated' };
+  });
+  const lowest = [...values].filter((row) => row.percent !== null).sort((a, b) => (a.percent as number) - (b.percent as number))[0];
+  const spec: TopLevelSpec = {
+    $schema: SCHEMA,
+    width: 460,
+    height: { step: 36 },
+    padding: 12,
+    data: { values },
+    layer: [
+      { mark: { type: 'bar', color: OKABE_ITO.blue }, encoding: { y: { field: 'name', type: 'nominal', title: null, sort: null }, x: { field: 'percent', type: 'quantitative', title: 'Percent of usual', scale: { domain: [0, 150] } } } },
+      { data: { values: [{ usual: 100 }] }, mark: { type: 'rule', color: OUTLINE, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x: { field: 'usual', type: 'quantitative' } } },
+      { mark: { type: 'text', align: 'left', dx: 4, color: OUTLINE }, encoding: { y: { field: 'name', type: 'nominal', sort: null }, x: { field: 'percent', type: 'quantitative' }, text: { field: 'label' } } },
+    ],
+  };
+  return {
+    id: 'sub-regions',
+    title: `Sub-regions against usual, ${model.meta.monthName}`,
+    description: lowest ? `Bar chart of each sub-region's water as percent of its baseline median; the dashed line marks usual (100 %). ${lowest.name} is lowest at ${formatPercent(locale, lowest.percent as number)}.` : 'No sub-region has a figure this month.',
+    spec,
+    table: { caption: 'Sub-regions, percent of usual', columns: ['Sub-region', 'Percent of usual', 'Status'], rows: values.map((row) => [row.name, row.percent ?? '–', row.label]) },
+  };
+}
+
+export function sizeClassChart(model: BulletinModel): ChartDefinition {
+  const locale = model.meta.locale;
+  const values = model.surfaceWater.sizeClasses.flatMap((entry) => [
+    { sizeClass: entry.name, when: model.meta.monthName, dry: round(entry.lossPercent) },
+    { sizeClass: entry.name, when: `usual ${model.meta.calendarMonthName}`, dry: round(entry.baselineLossPercent) },
+  ]);
+  const worst = [...model.surfaceWater.sizeClasses].filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null).sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
+  const spec: TopLevelSpec = {
+    $schema: SCHEMA,
+    width: 460,
+    height: 220,
+    padding: 12,
+    data: { values },
+    mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
+    encoding: {
+      x: { field: 'sizeClass', type: 'nominal', title: null, sort: null, axis: { labelAngle: 0 } },
+      xOffset: { field: 'when', sort: null },
+      y: { field: 'dry', type: 'quantitative', title: 'Dry share of reference area, %' },
+      color: { field: 'when', type: 'nominal', title: null, sort: null, scale: { range: [OKABE_ITO.vermillion, GREY] }, legend: { orient: 'bottom' } },
+    },
+  };
+  return {
+    id: 'size-classes',
+    title: `Loss from maximum filling by size class, ${model.meta.monthName}`,
+    description: worst ? `Grouped bars of the share of each size class's reference area that is dry, now and in a usual ${model.meta.calendarMonthName}. Water bodies of ${worst.name} lost the most: ${formatPercent(locale, worst.lossPercent as number)} dry against ${formatPercent(locale, worst.baselineLossPercent as number)} usually.` : 'No size class has a figure this month.',
+    spec,
+    table: { caption: 'Dry share by size class', columns: ['Size class', model.meta.monthName, `Usual ${model.meta.calendarMonthName}`], rows: model.surfaceWater.sizeClasses.map((entry) => [entry.name, round(entry.lossPercent) ?? '–', round(entry.baselineLossPercent) ?? '–']) },
+  };
+}
+
+export function rainfallChart(model: BulletinModel): ChartDefinition | null {
+  const rain = model.rainfall;
+  if (!rain) return null;
+  const locale = model.meta.locale;
+  const values = rain.subRegions.flatMap((entry) => entry.monthly.slice(-36).map((row) => ({ month: monthText(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })));
+  const names = rain.subRegions.map((entry) => entry.name);
+  const spec: TopLevelSpec = {
+    $schema: SCHEMA,
+    width: 640,
+    height: 200,
+    padding: 12,
+    data: { values },
+    mark: { type: 'line', strokeWidth: 2, point: { filled: true, size: 24 } },
+    encoding: {
+      x: { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%b %Y', tickCount: 6 } },
+      y: { field: 'rainfall', type: 'quantitative', title: 'Rainfall, mm' },
+      color: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange] }, legend: { orient: 'bottom' } },
+      shape: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: ['circle', 'square', 'triangle-up', 'diamond', 'cross'] } },
+    },
+  };
+  const parts = rain.subRegions.map((entry) => `${entry.name} ${entry.percentOfBaseline === null ? 'no figure' : formatPercent(locale, entry.percentOfBaseline)}`);
+  return {
+    id: 'rainfall',
+    title: `Rainfall by sub-region, last 36 months`,
+    description: `Line chart of monthly rainfall per sub-region, for context. ${model.meta.monthName} as percent of the baseline median: ${parts.join(', ')}.`,
+    spec,
+    table: { caption: 'Monthly rainfall by sub-region, mm', columns: ['Month', ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthText(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
+  };
+}
+
+/** A small line per monitored body for tables: the last 36 months of filling, no axes. */
+export function sparklineChart(model: BulletinModel, bodyIndex: number, values: Array<number | null>, firstMonth: number): ChartDefinition {
+  const body = model.bodies[bodyIndex] as BulletinModel['bodies'][number];
+  const rows = values.map((value, k) => ({ month: monthText(firstMonth + k), filling: round(value) }));
+  const known = rows.filter((row) => row.filling !== null);
+  const last = known[known.length - 1];
+  const spec: TopLevelSpec = {
+    $schema: SCHEMA,
+    width: 120,
+    height: 28,
+    padding: 2,
+    data: { values: rows },
+    mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 },
+    encoding: { x: { field: 'month', type: 'ordinal', axis: null }, y: { field: 'filling', type: 'quantitative', axis: null, scale: { zero: false } } },
+    config: { view: { stroke: null } },
+  };
+  return {
+    id: `spark-${body.id.toLowerCase().replace(/[^a-z0-9-]/g, '-')}`,
+    title: `${body.name}: filling over 36 months`,
+    description: last ? `Small line of ${body.name}'s water as percent of its reference area, last value ${formatNumber(model.meta.locale, last.filling as number, 0)} % in ${last.month}.` : `${body.name} has no value in the last 36 months.`,
+    spec,
+    table: { caption: `${body.name}, filling by month`, columns: ['Month', 'Water, % of reference area'], rows: rows.map((row) => [row.month, row.filling ?? '–']) },
   };
 }

@@ -7,11 +7,14 @@ import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, formatProblem, monthLabel } from '../ingest/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
+import { aggregate } from './aggregate.ts';
 import { bodySeries } from './bodySeries.ts';
+import { statusOf } from './status.ts';
 import { grid, type Grid } from './grid.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
 import { METHODS } from './methods.ts';
 import { quality, type Quality } from './quality.ts';
+import { rainfall, type RainfallSummary } from './rainfall.ts';
 import { surfaceWater, type SurfaceWater } from './surfaceWater.ts';
 import { bodyTrends, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary } from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
@@ -48,12 +51,21 @@ export interface BulletinModel {
     maxFilledGap: number;
     firstMonth: string;
     toolVersion: string;
+    /** The configured status band keys, lowest first. */
+    statusBands: string[];
   };
   bodies: Array<{ id: string; name: string; subRegionId: string; kind: string; referenceHa: number; lon: number; lat: number; ownPage: boolean }>;
   surfaceWater: SurfaceWater;
+  /** Each body's own status in the bulletin month (its band, or why none), in inventory order. */
+  bodyStatus: Array<{ bandKey: string | null; percentOfBaseline: number | null; state: 'stated' | 'low-coverage' | 'short-baseline' }>;
+  /** Water bodies flagged for their own page: the last 36 months of filling (observed or filled) and the trend. */
+  monitored: Array<{ body: number; id: string; name: string; firstMonth: number; filling: Array<number | null>; direction: string; slopePerYear: number | null }>;
   grid: Grid;
   trends: { methods: string[]; bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
   quality: Quality | null;
+  rainfall: RainfallSummary | null;
+  /** Boundaries of the sub-regions, rings rewound for drawing (exterior clockwise). */
+  boundaries: Array<{ id: string; name: string; polygons: Array<Array<Array<[number, number]>>> }>;
   /** Method 'validation'. */
   validation: ValidationSummary[];
   keyMessages: KeyMessage[];
@@ -114,12 +126,25 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       maxFilledGap: config.coverage.maxFilledGap,
       firstMonth: monthLabel(series.firstMonth),
       toolVersion,
+      statusBands: config.statusBands.map((band) => band.key),
     },
     bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
     surfaceWater: surface,
+    bodyStatus: inputs.bodies.map((_, k) => {
+      const status = statusOf(aggregate(series, [k], inputs.bodies.map((body) => body.referenceHa), 100 * config.coverage.minObservedShare), bulletinMonth, config);
+      return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
+    }),
+    monitored: inputs.bodies.flatMap((body, k) => {
+      if (!body.ownPage) return [];
+      const from = Math.max(0, series.months - 36);
+      const trend = trendsOfBodies.entries[k];
+      return [{ body: k, id: body.id, name: body.name, firstMonth: series.firstMonth + from, filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)), direction: trend?.direction ?? 'untested', slopePerYear: trend?.test?.slopePerYear ?? null }];
+    }),
     grid: grid(inputs, series),
     trends: { methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'], bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
     quality: waterQuality,
+    rainfall: rainfall(inputs),
+    boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
     validation: validation(inputs),
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',

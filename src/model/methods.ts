@@ -16,5 +16,6 @@ export const METHODS = {
   trophic: 'Carlson (1977) trophic state index from chlorophyll-a in the original form TSI = 10 (6 − (2.04 − 0.68 ln Chl) / ln 2); trophic classes on the OECD (1982) fixed boundaries for chlorophyll-a (1, 2.5, 8, 25 µg/L), applied to one month\'s estimate.',
   'who-levels': 'Share of water bodies with a chlorophyll-a estimate whose median exceeds the WHO (2003) recreational guidance levels of 10 and 50 µg/L. A satellite estimate of algae, not a toxin test.',
   validation: 'Field samples matched to the satellite median of the month containing the sample date, or of the neighbouring month when the sample lies within the configured window of it; n, bias (satellite − field), MAE, RMSE, R² and the least-squares line of satellite on field.',
+  rainfall: 'Rainfall per sub-region and month as supplied; the bulletin month as percent of the median of its calendar month in the baseline years.',
   evidence: 'Words for the strength of evidence from a p value: below 0.001 very strong, below 0.01 strong, below 0.05 moderate, below 0.1 weak, otherwise little or no evidence (Muff et al. 2022). They describe evidence against "no trend", not the probability that a statement is true.',
 } as const;

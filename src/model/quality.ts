@@ -41,6 +41,8 @@ export interface QualityParameterSummary {
   distribution: { edges: number[]; months: Array<{ month: number; counts: number[] }> };
   bySizeClass: Array<{ label: string; fromHa: number; toHa: number | null; bodies: number; p10: number | null; p25: number | null; p50: number | null; p75: number | null; p90: number | null }>;
   bodiesThisMonth: number;
+  /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
+  medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
   trends: { tested: number; rising: number; falling: number; falseDiscoveryRate: number; entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }> };
   seasonal: Array<{ season: string; sizeClass: string; years: number; slopePerYear: number | null; p: number | null }>;
 }
@@ -127,9 +129,17 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
     distribution,
     bySizeClass,
     bodiesThisMonth: now.filter(Number.isFinite).length,
+    medianTrend: medianTrend(monthly),
     trends: { tested: entries.filter((e) => e.direction !== 'untested').length, rising: entries.filter((e) => e.direction === 'rise').length, falling: entries.filter((e) => e.direction === 'fall').length, falseDiscoveryRate: config.trends.falseDiscoveryRate, entries },
     seasonal: seasonalClassTrends(inputs, data, config),
   };
+}
+
+function medianTrend(monthly: Array<{ month: number; median: number | null }>): QualityParameterSummary['medianTrend'] {
+  const rows = monthly.filter((row) => row.median !== null);
+  if (rows.length < 3) return null;
+  const result = sensSlope(rows.map((row) => row.month / 12), rows.map((row) => row.median as number));
+  return Number.isFinite(result.slope) ? { slopePerYear: result.slope, intercept: result.intercept, lower: result.lower, upper: result.upper } : null;
 }
 
 /**

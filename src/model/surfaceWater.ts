@@ -37,6 +37,8 @@ export interface SurfaceWater {
   sizeClasses: SizeClassSurface[];
   /** The bulletin's calendar month in every year of the record (for the year-by-year chart). */
   sameMonthEachYear: Array<{ year: number; fillingPercent: number | null; inBaseline: boolean }>;
+  /** Regional filling minus the baseline median of its calendar month, percentage points, per month with both. */
+  regionAnomalies: Array<{ month: number; points: number }>;
   /** Regional baseline per calendar month (1–12): median and 10th–90th percentile envelope; null without enough years. */
   regionEnvelope: Array<{ calendarMonth: number; median: number | null; p10: number | null; p90: number | null }>;
 }
@@ -92,5 +94,9 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
     p10: entry.enough ? entry.p10 : null,
     p90: entry.enough ? entry.p90 : null,
   }));
-  return { methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'], region, subRegions, sizeClasses, sameMonthEachYear, regionEnvelope };
+  const regionAnomalies = region.series.flatMap((row) => {
+    const baseline = regionEnvelope[row.month % 12]?.median ?? null;
+    return row.fillingPercent === null || baseline === null ? [] : [{ month: row.month, points: row.fillingPercent - baseline }];
+  });
+  return { methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'], region, subRegions, sizeClasses, sameMonthEachYear, regionAnomalies, regionEnvelope };
 }

@@ -6,7 +6,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
-import type { RenderedChart } from '../charts/index.ts';
+import type { ChartSet } from '../charts/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { views } from './views.ts';
@@ -16,17 +16,19 @@ const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
 export interface SiteFile {
   /** Path inside the site folder, forward slashes. */
   path: string;
-  content: string;
+  content: string | Buffer;
 }
 
 /** Everything the templates read, computed here so templates only place it. */
-export function pageData(model: BulletinModel, charts: Record<string, RenderedChart>) {
+export function pageData(model: BulletinModel, chartSet: ChartSet) {
   const messages = loadMessages(model.meta.locale);
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
   const issue = model.meta.issuePath;
   return {
     bulletin: model,
-    charts,
+    charts: chartSet.charts,
+    sparklines: chartSet.sparklines,
+    cardUrl: new URL(`${issue.replace(/^\//, '')}card.png`, model.meta.baseUrl).href,
     t: messages,
     view: views(model),
     navigation: [
@@ -43,18 +45,22 @@ export function pageData(model: BulletinModel, charts: Record<string, RenderedCh
 }
 
 /** The files written beside the pages: the model and each chart's data and specification. */
-export function downloadFiles(model: BulletinModel, charts: Record<string, RenderedChart>): SiteFile[] {
+export function downloadFiles(model: BulletinModel, chartSet: ChartSet): SiteFile[] {
   const issue = model.meta.issuePath.replace(/^\//, '');
-  const files: SiteFile[] = [{ path: `${issue}data/bulletin-model.json`, content: JSON.stringify(model, null, 2) + '\n' }];
-  for (const chart of Object.values(charts)) {
+  const files: SiteFile[] = [
+    { path: `${issue}data/bulletin-model.json`, content: JSON.stringify(model, null, 2) + '\n' },
+    { path: `${issue}card.png`, content: chartSet.card.png },
+  ];
+  for (const chart of Object.values(chartSet.charts)) {
     files.push({ path: `${issue}charts/${chart.id}.csv`, content: chart.csv });
     files.push({ path: `${issue}charts/${chart.id}.vl.json`, content: chart.specJson });
+    if (chart.png) files.push({ path: `${issue}charts/${chart.id}.png`, content: chart.png });
   }
   return files;
 }
 
-export async function renderSite(model: BulletinModel, charts: Record<string, RenderedChart>, outDir: string): Promise<void> {
-  const data = pageData(model, charts);
+export async function renderSite(model: BulletinModel, chartSet: ChartSet, outDir: string): Promise<void> {
+  const data = pageData(model, chartSet);
   const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
     configPath: join(projectRoot, '.eleventy.js'),
     quietMode: true,
@@ -65,7 +71,7 @@ export async function renderSite(model: BulletinModel, charts: Record<string, Re
   // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
   eleventy.disableLogger();
   await eleventy.write();
-  for (const file of downloadFiles(model, charts)) {
+  for (const file of downloadFiles(model, chartSet)) {
     const target = join(outDir, file.path);
     mkdirSync(dirname(target), { recursive: true });
     writeFileSync(target, file.content);

@@ -131,7 +131,20 @@ export function views(model: BulletinModel) {
     note: `Field samples are matched to the satellite month that contains them, or to the next or previous month when within ${model.validation[0]?.windowDays ?? 0} days of it.`,
   }];
 
+  const monitored = model.monitored.map((entry) => {
+    const status = model.bodyStatus[entry.body];
+    const last = [...entry.filling].reverse().find((value) => value !== null) ?? null;
+    return {
+      id: entry.id,
+      name: entry.name,
+      last: pct(last),
+      status: status?.bandKey ? t(`band.${status.bandKey}`) : status?.state === 'low-coverage' ? 'not seen well enough' : 'baseline too short',
+      trend: entry.slopePerYear === null ? 'not tested' : `${signed(entry.slopePerYear, 2)} points a year (${directionWords[entry.direction] ?? entry.direction})`,
+    };
+  });
+
   return {
+    monitored,
     surfaceTables,
     trendTables,
     qualityTables,

@@ -2,13 +2,14 @@
  * The four quality gates on a fresh build of the example, and for each gate a deliberately broken
  * copy of a page that the gate must catch (so no gate can pass by checking nothing).
  */
-import { cpSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { auditAccessibility, checkLinks, diffTrees, htmlPages, launchChromium, validateHtml } from '../support/gates.ts';
-import { buildExample } from '../support/exampleSite.ts';
+import { buildExample, EXAMPLE } from '../support/exampleSite.ts';
 
+const BASE_URL = (JSON.parse(readFileSync(join(EXAMPLE, 'bulletin.json'), 'utf8')) as { site: { baseUrl: string } }).site.baseUrl;
 let site: string;
 let browser: Browser;
 
@@ -43,7 +44,7 @@ describe('example site', () => {
   });
 
   it('checkLinks(site) finds no broken link, fragments included', async () => {
-    const { checked, broken } = await checkLinks(site);
+    const { checked, broken } = await checkLinks(site, BASE_URL);
     expect(broken).toEqual([]);
     expect(checked).toBeGreaterThanOrEqual(10);
   }, 60_000);
@@ -60,6 +61,16 @@ describe('example site', () => {
     expect(pages).toBe(6);
   }, 120_000);
 
+  it('no page repeats an id, though every chart of the page is inlined', () => {
+    for (const page of htmlPages(site)) {
+      const ids = [...readFileSync(join(site, page), 'utf8').matchAll(/\sid="([^"]+)"/g)].map((match) => match[1]);
+      const repeated = ids.filter((id, k) => ids.indexOf(id) !== k);
+      expect(repeated, page).toEqual([]);
+    }
+    const surface = readFileSync(join(site, 'issues', '2026-11', 'surface-water', 'index.html'), 'utf8');
+    expect(surface.match(/<svg/g)?.length).toBeGreaterThan(20);
+  });
+
   it('building twice gives byte-identical output', async () => {
     const again = (await buildExample('again')).dir;
     expect(diffTrees(site, again)).toEqual([]);
@@ -69,10 +80,14 @@ describe('example site', () => {
 describe('each gate fails on a broken page', () => {
   it('checkLinks reports a missing page and a missing fragment', async () => {
     const copy = brokenCopy('links', (html) => html.replace('</main>', '<p><a href="/issues/2026-11/no-such-page/">gone</a> <a href="#no-such-fragment">nowhere</a></p></main>'));
-    const { broken } = await checkLinks(copy);
+    const { broken } = await checkLinks(copy, BASE_URL);
     const urls = broken.map((link) => link.url);
     expect(urls.some((url) => url.includes('/no-such-page/'))).toBe(true);
     expect(urls.some((url) => url.includes('#no-such-fragment'))).toBe(true);
+    // The preview card is linked by its future absolute address; a missing card is caught too.
+    rmSync(join(copy, 'issues', '2026-11', 'card.png'));
+    const again = await checkLinks(copy, BASE_URL);
+    expect(again.broken.some((link) => link.url.includes('card.png'))).toBe(true);
   }, 60_000);
 
   it('validateHtml reports a duplicate id and a stray end tag', async () => {

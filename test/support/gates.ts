@@ -36,15 +36,38 @@ export function treeHashes(dir: string): Record<string, string> {
 
 export const htmlPages = (dir: string) => listFiles(dir).filter((file) => file.endsWith('.html'));
 
+async function freePort(): Promise<number> {
+  const server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const address = server.address();
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  return typeof address === 'object' && address ? address.port : 0;
+}
+
 export interface BrokenLink {
   url: string;
   parent: string;
   status: number | undefined;
 }
 
-export async function checkLinks(dir: string): Promise<{ checked: number; broken: BrokenLink[] }> {
+/**
+ * Links of a built site, fragments included. Absolute links to the site's own future address
+ * (`baseUrl`, as in og:image) are checked against the built files instead, since the site is not
+ * published yet; any other outside link counts as broken, as there is no network here.
+ */
+export async function checkLinks(dir: string, baseUrl?: string): Promise<{ checked: number; broken: BrokenLink[] }> {
   const checker = new LinkChecker();
-  const result = await checker.check({ path: dir, recurse: true, checkFragments: true, concurrency: 8 });
+  const escaped = baseUrl?.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
+  // linkinator serves the folder on this port; the site's own absolute links are sent there.
+  const port = await freePort();
+  const result = await checker.check({
+    path: dir,
+    port,
+    recurse: true,
+    checkFragments: true,
+    concurrency: 8,
+    ...(escaped ? { urlRewriteExpressions: [{ pattern: new RegExp(`^${escaped}`), replacement: `http://localhost:${port}/` }] } : {}),
+  });
   const broken = result.links.filter((link) => link.state === 'BROKEN').map((link) => ({ url: link.url, parent: link.parent ?? '', status: link.status }));
   return { checked: result.links.length, broken };
 }

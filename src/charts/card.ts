@@ -1,0 +1,48 @@
+/**
+ * The issue's preview card (1200 × 630, the size link previews expect): title, month, and the
+ * headline figure with its status words, drawn as SVG in the chart font and turned into PNG.
+ */
+import type { BulletinModel } from '../model/index.ts';
+import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatPercent } from '../text/format.ts';
+import { CHART_FONT, OKABE_ITO } from './palettes.ts';
+
+export const CARD_WIDTH = 1200;
+export const CARD_HEIGHT = 630;
+
+const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+
+/** Greedy line breaking by an average glyph width (0.55 em for DejaVu Sans, measured by eye: common practice). */
+function wrap(text: string, size: number, width: number): string[] {
+  const perLine = Math.max(10, Math.floor(width / (size * 0.55)));
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/)) {
+    if (line && (line + ' ' + word).length > perLine) {
+      lines.push(line);
+      line = word;
+    } else line = line ? `${line} ${word}` : word;
+  }
+  if (line) lines.push(line);
+  return lines;
+}
+
+export function cardSvg(model: BulletinModel): string {
+  const t = (key: string) => formatMessage(loadMessages(model.meta.locale), key);
+  const status = model.surfaceWater.region.status;
+  const figure = status.kind === 'stated' ? formatPercent(model.meta.locale, status.percentOfBaseline) : '–';
+  const words = status.kind === 'stated' ? `of usual surface water: ${t(`band.${status.bandKey}`)}` : 'no regional figure this month';
+  const title = wrap(model.meta.title, 54, 1080).slice(0, 2);
+  const text = (x: number, y: number, size: number, content: string, weight = 'normal', fill = '#1a1a1a') => `<text x="${x}" y="${y}" font-family="${CHART_FONT}" font-size="${size}" font-weight="${weight}" fill="${fill}">${escapeXml(content)}</text>`;
+  return [
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${CARD_WIDTH}" height="${CARD_HEIGHT}" viewBox="0 0 ${CARD_WIDTH} ${CARD_HEIGHT}">`,
+    `<rect width="${CARD_WIDTH}" height="${CARD_HEIGHT}" fill="#ffffff"/>`,
+    `<rect width="${CARD_WIDTH}" height="18" fill="${OKABE_ITO.blue}"/>`,
+    ...title.map((line, k) => text(60, 110 + k * 64, 54, line, 'bold')),
+    text(60, 110 + title.length * 64 + 10, 34, `${model.meta.region} · ${model.meta.monthName}`, 'normal', '#404040'),
+    text(60, 470, 150, figure, 'bold', OKABE_ITO.blue),
+    text(60, 540, 40, words),
+    text(60, 600, 24, model.meta.publisher, 'normal', '#404040'),
+    '</svg>',
+  ].join('\n');
+}
