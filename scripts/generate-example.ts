@@ -11,9 +11,13 @@
  * 4. chlorophyll-a rising year on year in bodies over 100 ha during the dry months June–September;
  * 5. turbidity following rainfall, so it peaks in the rainy months November–March.
  *
+ * It also writes the archive of earlier issues (example-bulletin/archive/): September and October
+ * 2026, each with its inputs cut at its own month, and October twice: revision 1 as first published
+ * with one water area entered ten times too large, and revision 2 with the correction.
+ *
  * Usage: npm run example:generate [-- --out <folder>]
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
 const SEED = 20181;
@@ -242,8 +246,55 @@ function main(): void {
   write('rainfall.csv', rain.rows);
   write('field-measurements.csv', field);
   writeFileSync(join(outDir, 'subregions.geojson'), `${geojson}\n`);
+  if (outIndex < 0) writeArchive(join('example-bulletin'), { inventory, area, quality, rainfall: rain.rows, field }, geojson);
   process.stdout.write(`wrote ${bodies.length} water bodies, ${area.length - 1} surface-area rows, ${quality.length - 1} quality rows and ${field.length - 1} field measurements to ${outDir}\n`);
   process.stdout.write(`declining reservoirs: ${bodies.filter((body) => body.declining).map((body) => body.id).join(' ')}\n`);
+}
+
+interface Tables { inventory: string[]; area: string[]; quality: string[]; rainfall: string[]; field: string[] }
+
+/** Rows of a table whose month column (or date) is at most `month` (YYYY-MM); the header stays. */
+function upTo(rows: string[], column: number, month: string): string[] {
+  return rows.filter((row, k) => k === 0 || (row.split(',')[column] ?? '').slice(0, 7) <= month);
+}
+
+const ARCHIVE: Array<{ folder: string; month: string; published: string; revision: number; corrections: Array<{ date: string; text: string }>; tenfold?: string }> = [
+  { folder: '2026-09', month: '2026-09', published: '2026-10-02', revision: 1, corrections: [] },
+  { folder: '2026-10-r1', month: '2026-10', published: '2026-11-03', revision: 1, corrections: [], tenfold: 'WB079,2026-10,' },
+  {
+    folder: '2026-10',
+    month: '2026-10',
+    published: '2026-11-10',
+    revision: 2,
+    corrections: [{ date: '2026-11-10', text: 'The October 2026 water area of water body WB079 had been entered ten times too large. All figures of this issue are recomputed with the corrected value.' }],
+  },
+];
+
+function writeArchive(root: string, tables: Tables, geojson: string): void {
+  const config = JSON.parse(readFileSync(join(root, 'bulletin.json'), 'utf8')) as Record<string, unknown> & { issue: Record<string, unknown> };
+  rmSync(join(root, 'archive'), { recursive: true, force: true });
+  for (const issue of ARCHIVE) {
+    const folder = join(root, 'archive', issue.folder);
+    mkdirSync(join(folder, 'data'), { recursive: true });
+    let area = upTo(tables.area, 1, issue.month);
+    if (issue.tenfold) {
+      area = area.map((row) => {
+        if (!row.startsWith(issue.tenfold as string)) return row;
+        const cells = row.split(',');
+        cells[2] = (Number(cells[2]) * 10).toFixed(2);
+        return cells.join(',');
+      });
+    }
+    const write = (name: string, rows: string[]) => writeFileSync(join(folder, 'data', name), `${rows.join('\n')}\n`);
+    write('water-bodies.csv', tables.inventory);
+    write('surface-area.csv', area);
+    write('water-quality.csv', upTo(tables.quality, 1, issue.month));
+    write('rainfall.csv', upTo(tables.rainfall, 1, issue.month));
+    write('field-measurements.csv', upTo(tables.field, 1, issue.month));
+    writeFileSync(join(folder, 'data', 'subregions.geojson'), `${geojson}\n`);
+    const issueConfig = { ...config, issue: { ...config.issue, month: issue.month, published: issue.published, revision: issue.revision, corrections: issue.corrections } };
+    writeFileSync(join(folder, 'bulletin.json'), `${JSON.stringify(issueConfig, null, 2)}\n`);
+  }
 }
 
 /**

@@ -1,13 +1,15 @@
 /**
  * The whole build as numbered stages, each handing the next a typed value:
- * 1 ingest → 2 model (stats inside) → 3 charts → 4 render → 5 publish.
+ * 1 ingest (every issue of the folder) → 2 model (stats inside) → 3 charts → 4 render → 5 publish.
  */
 import { readFileSync } from 'node:fs';
+import { relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildCharts } from './charts/index.ts';
-import { InputError, loadBulletin, type Problem } from './ingest/index.ts';
+import { buildCharts, type ChartSet } from './charts/index.ts';
+import { InputError, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
+import { issueFolders } from './ingest/issues.ts';
 import { buildModel, type BulletinModel } from './model/index.ts';
-import { renderSite } from './render/index.ts';
+import { renderSite, type IssueBundle } from './render/index.ts';
 import { publishAtomically } from './site/publish.ts';
 
 export interface BuildOptions {
@@ -18,7 +20,9 @@ export interface BuildOptions {
 }
 
 export interface BuildResult {
+  /** The current issue's model (the folder itself). */
   model: BulletinModel;
+  issues: BulletinModel[];
   warnings: Problem[];
   outDir: string;
 }
@@ -28,23 +32,51 @@ export function toolVersion(): string {
   return pkg.version;
 }
 
+/** Site path of each issue: the latest revision of a month at /issues/YYYY-MM/, earlier ones below it. */
+export function issuePaths(issues: Array<{ month: number; revision: number }>): string[] {
+  const latest = new Map<number, number>();
+  for (const issue of issues) latest.set(issue.month, Math.max(latest.get(issue.month) ?? 0, issue.revision));
+  return issues.map((issue) => {
+    const base = `/issues/${monthLabel(issue.month)}/`;
+    return issue.revision === latest.get(issue.month) ? base : `${base}revisions/${issue.revision}/`;
+  });
+}
+
 export async function build(options: BuildOptions): Promise<BuildResult> {
   const log = options.log ?? (() => {});
 
-  log('1/5 reading and checking inputs');
-  const { inputs, problems } = await loadBulletin(options.bulletinFolder);
-  if (!inputs || problems.errors.length > 0) throw new InputError(problems.sorted());
-  const warnings = problems.warnings;
+  const folders = issueFolders(options.bulletinFolder);
+  log(`1/5 reading and checking inputs of ${folders.length} issue(s)`);
+  const loaded: Array<{ inputs: BulletinInputs; warnings: Problem[] }> = [];
+  const problems: Problem[] = [];
+  for (const folder of folders) {
+    const prefix = relative(options.bulletinFolder, folder);
+    const result = await loadBulletin(folder, prefix ? `${prefix.split('\\').join('/')}/` : '');
+    problems.push(...result.problems.sorted());
+    if (result.inputs) loaded.push({ inputs: result.inputs, warnings: result.problems.warnings });
+  }
+  const seen = new Map<string, string>();
+  loaded.forEach(({ inputs }, k) => {
+    const key = `${inputs.bulletinMonth} ${inputs.config.issue.revision}`;
+    const other = seen.get(key);
+    if (other !== undefined) problems.push({ severity: 'error', code: 'issue-twice', file: relative(options.bulletinFolder, folders[k] as string) || '.', line: 0, column: 'issue', value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`, expected: 'each month and revision once', message: `the same issue and revision is also in ${other}` });
+    seen.set(key, relative(options.bulletinFolder, folders[k] as string) || '.');
+  });
+  if (problems.some((problem) => problem.severity === 'error') || loaded.length < folders.length) throw new InputError(problems);
+  const warnings = problems.filter((problem) => problem.severity === 'warning');
 
-  log('2/5 computing the bulletin model');
-  const model = buildModel(inputs, warnings, toolVersion());
+  log('2/5 computing the bulletin models');
+  const paths = issuePaths(loaded.map(({ inputs }) => ({ month: inputs.bulletinMonth, revision: inputs.config.issue.revision })));
+  const models = loaded.map(({ inputs, warnings: own }, k) => buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string }));
 
   log('3/5 rendering charts');
-  const charts = await buildCharts(model);
+  const chartSets: ChartSet[] = [];
+  for (const model of models) chartSets.push(await buildCharts(model));
 
   log('4/5 rendering pages');
-  await publishAtomically(options.outDir, (staging) => renderSite(model, charts, staging));
+  const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string, inputs: loaded[k]?.inputs as BulletinInputs }));
+  await publishAtomically(options.outDir, (staging) => renderSite(bundles, staging));
 
   log(`5/5 published to ${options.outDir}`);
-  return { model, warnings, outDir: options.outDir };
+  return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir };
 }

@@ -9,6 +9,7 @@ Usage: limnopress <command> [options]
 Commands:
   build <bulletin-folder> --out <dir>      check the inputs and build the bulletin site
   check <bulletin-folder>                  check the inputs only, and list every problem
+  verify <site-folder>                     check a built site against its manifests
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
   help [command]                           show help for a command
 
@@ -36,6 +37,12 @@ error.
 
 Options:
   -h, --help   show this help
+`,
+  verify: `Usage: limnopress verify <site-folder>
+
+Recomputes the SHA-256 of every file of a built site and compares it with the manifests written by
+the build (manifest.json at the top, and one per issue). Lists every file that changed, is missing,
+or is not listed. Exit status: 0 when everything matches, 1 otherwise, 2 on a usage error.
 `,
   trend: `Usage: limnopress trend <table.csv> --time <col> --value <col> [--by <col>] [--seasonal]
                         [--format csv|json] [--confidence 0.95] [--fdr 0.05] [--workers N]

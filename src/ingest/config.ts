@@ -28,6 +28,8 @@ export const configSchema = z.strictObject({
     revision: z.number().int().min(1).default(1),
     published: date,
     draft: z.boolean().default(false),
+    /** Corrections made in this revision, shown at the top of every page of the issue. */
+    corrections: z.array(z.strictObject({ date, text: z.string().min(1) })).default([]),
   }),
   baseline: z.strictObject({
     firstYear: z.number().int(),

@@ -53,25 +53,30 @@ function hashFile(folder: string, path: string): InputFile {
   return { path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.length };
 }
 
-/** Reads and checks everything; `inputs` is null when any error was found. */
-export async function loadBulletin(folder: string): Promise<IngestResult> {
+/**
+ * Reads and checks everything; `inputs` is null when any error was found. `labelPrefix` goes in
+ * front of every file name in problems (for archived issues: "archive/2026-10/").
+ */
+export async function loadBulletin(folder: string, labelPrefix = ''): Promise<IngestResult> {
   const problems = new ProblemList();
-  const config = readConfig(join(folder, CONFIG_FILE), CONFIG_FILE, problems);
+  const config = readConfig(join(folder, CONFIG_FILE), `${labelPrefix}${CONFIG_FILE}`, problems);
   if (!config) return { inputs: null, problems };
 
   const paths = config.inputs;
+  const at = (path: string) => join(folder, path);
+  const label = (path: string) => `${labelPrefix}${path}`;
   const bulletinMonth = parseMonth(config.issue.month) as number;
   const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal };
-  const subRegions = readBoundaries(join(folder, paths.boundaries), paths.boundaries, problems);
+  const subRegions = readBoundaries(at(paths.boundaries), label(paths.boundaries), problems);
   const regionIds = new Set(subRegions.map((region) => region.id));
-  const bodies = await readInventory(join(folder, paths.inventory), paths.inventory, context);
-  const area = await readSurfaceArea(join(folder, paths.surfaceArea), paths.surfaceArea, bodies, context);
-  const quality = paths.quality ? await readQuality(join(folder, paths.quality), paths.quality, bodies, context) : null;
-  const distribution = paths.distribution ? await readDistributionBins(join(folder, paths.distribution), paths.distribution, regionIds, context) : [];
-  const rainfall = paths.rainfall ? await readRainfall(join(folder, paths.rainfall), paths.rainfall, regionIds, context) : [];
-  const field = paths.field ? await readField(join(folder, paths.field), paths.field, bodies, context) : [];
+  const bodies = await readInventory(at(paths.inventory), label(paths.inventory), context);
+  const area = await readSurfaceArea(at(paths.surfaceArea), label(paths.surfaceArea), bodies, context);
+  const quality = paths.quality ? await readQuality(at(paths.quality), label(paths.quality), bodies, context) : null;
+  const distribution = paths.distribution ? await readDistributionBins(at(paths.distribution), label(paths.distribution), regionIds, context) : [];
+  const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
+  const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
 
-  crossCheck(config, bulletinMonth, bodies, area, subRegions, problems);
+  crossCheck(config, bulletinMonth, bodies, area, subRegions, problems, label);
   if (problems.errors.length > 0) return { inputs: null, problems };
 
   const used = [paths.inventory, paths.surfaceArea, paths.quality, paths.distribution, paths.rainfall, paths.field, paths.boundaries].filter((path): path is string => Boolean(path));
@@ -79,8 +84,9 @@ export async function loadBulletin(folder: string): Promise<IngestResult> {
   return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files }, problems };
 }
 
-function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaTable, subRegions: SubRegion[], problems: ProblemList): void {
-  const paths = config.inputs;
+function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaTable, subRegions: SubRegion[], problems: ProblemList, label: (path: string) => string): void {
+  const paths = Object.fromEntries(Object.entries(config.inputs).map(([key, value]) => [key, value === undefined ? undefined : label(value)])) as BulletinConfig['inputs'];
+  const configLabel = label(CONFIG_FILE);
   const regionIds = new Set(subRegions.map((region) => region.id));
   if (subRegions.length > 0) {
     const firstLine = new Map<string, number>();
@@ -107,13 +113,13 @@ function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: Water
     if (!hasData[k]) problems.warning({ code: 'body-without-data', file: paths.inventory, line: body.line, column: 'body_id', value: body.id, expected: `rows in ${paths.surfaceArea}`, message: 'the water body has no surface-area data' });
   });
   if (!inBulletinMonth) {
-    problems.error({ code: 'bulletin-month-without-data', file: CONFIG_FILE, line: 0, column: 'issue.month', value: config.issue.month, expected: `a month present in ${paths.surfaceArea}`, message: 'the surface-area table has no row for the bulletin month' });
+    problems.error({ code: 'bulletin-month-without-data', file: configLabel, line: 0, column: 'issue.month', value: config.issue.month, expected: `a month present in ${paths.surfaceArea}`, message: 'the surface-area table has no row for the bulletin month' });
   }
   const { firstYear: baselineFirst, lastYear: baselineLast } = config.baseline;
   if (baselineFirst < firstYear || baselineLast > lastYear) {
-    problems.error({ code: 'baseline-outside-data', file: CONFIG_FILE, line: 0, column: 'baseline', value: `${baselineFirst}-${baselineLast}`, expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`, message: 'the baseline period reaches beyond the surface-area data' });
+    problems.error({ code: 'baseline-outside-data', file: configLabel, line: 0, column: 'baseline', value: `${baselineFirst}-${baselineLast}`, expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`, message: 'the baseline period reaches beyond the surface-area data' });
   }
   if (baselineLast >= yearOf(bulletinMonth)) {
-    problems.warning({ code: 'baseline-includes-bulletin-year', file: CONFIG_FILE, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself` });
+    problems.warning({ code: 'baseline-includes-bulletin-year', file: configLabel, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself` });
   }
 }

@@ -45,6 +45,7 @@ export interface BulletinModel {
     baseUrl: string;
     /** Site path of the issue, with leading and trailing slash. */
     issuePath: string;
+    corrections: Array<{ date: string; text: string }>;
     baseline: { firstYear: number; lastYear: number; minYears: number };
     minObservedShare: number;
     minRegionCoverage: number;
@@ -77,7 +78,12 @@ export interface BulletinModel {
   inputs: InputFile[];
 }
 
-export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string): BulletinModel {
+export interface ModelOptions {
+  /** Site path of the issue; by default /issues/YYYY-MM/. Earlier revisions live below it. */
+  issuePath?: string;
+}
+
+export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
   const { config, bulletinMonth } = inputs;
   const locale = config.locales[0] ?? 'en';
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
@@ -119,7 +125,8 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       publishedName: formatDate(locale, config.issue.published),
       draft: config.issue.draft,
       baseUrl: config.site.baseUrl,
-      issuePath: `/issues/${monthLabel(bulletinMonth)}/`,
+      issuePath: options.issuePath ?? `/issues/${monthLabel(bulletinMonth)}/`,
+      corrections: config.issue.corrections,
       baseline: config.baseline,
       minObservedShare: config.coverage.minObservedShare,
       minRegionCoverage: config.coverage.minRegionCoverage,

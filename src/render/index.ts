@@ -1,14 +1,18 @@
 /**
- * Stage 4, render: Eleventy and the Nunjucks templates turn the model and rendered charts into
- * pages inside a given folder, and the downloads are written beside them.
+ * Stage 4, render: Eleventy and the Nunjucks templates turn every issue's model and charts into
+ * pages inside a given folder; downloads, feeds, the sitemap and the manifests are written beside
+ * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
+import type { BulletinInputs } from '../ingest/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
+import { renderMarkdown } from './markdown.ts';
+import { siteFiles } from './siteFiles.ts';
 import { views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
@@ -19,18 +23,40 @@ export interface SiteFile {
   content: string | Buffer;
 }
 
-/** Everything the templates read, computed here so templates only place it. */
-export function pageData(model: BulletinModel, chartSet: ChartSet) {
-  const messages = loadMessages(model.meta.locale);
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
+export interface IssueBundle {
+  model: BulletinModel;
+  charts: ChartSet;
+  /** The issue's bulletin folder, for its content and its input files. */
+  folder: string;
+  inputs: BulletinInputs;
+}
+
+/** Everything one issue's pages read, computed here so templates only place it. */
+export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
+  const { model, charts } = bundle;
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(model.meta.locale), key, params);
   const issue = model.meta.issuePath;
+  const current = all.filter((other) => !other.model.meta.issuePath.includes('/revisions/'));
+  const position = current.findIndex((other) => other.model.meta.month === model.meta.month);
+  const link = (other: IssueBundle | undefined) => (other ? { href: other.model.meta.issuePath, label: other.model.meta.monthName } : null);
+  const revisions = all
+    .filter((other) => other.model.meta.month === model.meta.month)
+    .map((other) => ({ revision: other.model.meta.revision, published: other.model.meta.published, publishedName: other.model.meta.publishedName, href: other.model.meta.issuePath, corrections: other.model.meta.corrections, current: other === bundle }))
+    .sort((a, b) => a.revision - b.revision);
   return {
     bulletin: model,
-    charts: chartSet.charts,
-    sparklines: chartSet.sparklines,
-    cardUrl: new URL(`${issue.replace(/^\//, '')}card.png`, model.meta.baseUrl).href,
-    t: messages,
+    charts: charts.charts,
+    sparklines: charts.sparklines,
     view: views(model),
+    content: renderMarkdown(bundle.folder),
+    cardUrl: new URL(`${issue.replace(/^\//, '')}card.png`, model.meta.baseUrl).href,
+    pageUrl: new URL(issue.replace(/^\//, ''), model.meta.baseUrl).href,
+    isRevisionCopy: issue.includes('/revisions/'),
+    previous: position >= 0 ? link(current[position - 1]) : null,
+    next: position >= 0 ? link(current[position + 1]) : null,
+    revisions,
+    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${issue}data/inputs/${file.path}` })),
+    jsonLd: jsonLd(model),
     navigation: [
       { key: 'home', href: '/', label: t('site.home') },
       { key: 'overview', href: issue, label: t('page.overview') },
@@ -38,13 +64,81 @@ export function pageData(model: BulletinModel, chartSet: ChartSet) {
       { key: 'waterQuality', href: `${issue}water-quality/`, label: t('page.waterQuality') },
       { key: 'trends', href: `${issue}trends/`, label: t('page.trends') },
       { key: 'dataMethods', href: `${issue}data-and-methods/`, label: t('page.dataMethods') },
+      { key: 'archive', href: '/archive/', label: t('page.archive') },
     ],
     footer: t('site.footer', { publisher: model.meta.publisher, version: model.meta.toolVersion }),
     noticeLabels: { notice: 'Note', caveat: 'Caveat', caution: 'Caution' },
   };
 }
 
-/** The files written beside the pages: the model and each chart's data and specification. */
+/**
+ * schema.org Dataset metadata for the issue (JSON-LD), escaped so that no text of the inputs can
+ * close the script element.
+ */
+function jsonLd(model: BulletinModel): string {
+  const url = (path: string) => new URL(path.replace(/^\//, ''), model.meta.baseUrl).href;
+  const data = {
+    '@context': 'https://schema.org',
+    '@type': 'Dataset',
+    name: `${model.meta.title}: ${model.meta.monthName}`,
+    description: model.headline,
+    url: url(model.meta.issuePath),
+    datePublished: model.meta.published,
+    version: String(model.meta.revision),
+    temporalCoverage: `${model.meta.firstMonth}/${model.meta.month}`,
+    spatialCoverage: { '@type': 'Place', name: model.meta.region },
+    publisher: { '@type': 'Organization', name: model.meta.publisher },
+    isAccessibleForFree: true,
+    distribution: [{ '@type': 'DataDownload', encodingFormat: 'application/json', contentUrl: url(`${model.meta.issuePath}data/bulletin-model.json`) }],
+  };
+  return JSON.stringify(data).replace(/</g, '\\u003c').replace(/>/g, '\\u003e').replace(/&/g, '\\u0026');
+}
+
+/** The site-level data: the latest issue and the archive by year. */
+export function siteData(issues: Array<ReturnType<typeof issueData>>) {
+  const current = issues.filter((issue) => !issue.isRevisionCopy);
+  const latest = current[current.length - 1] as ReturnType<typeof issueData>;
+  const years = [...new Set(current.map((issue) => issue.bulletin.meta.month.slice(0, 4)))].sort().reverse();
+  return {
+    latest,
+    archive: years.map((year) => ({ year, issues: current.filter((issue) => issue.bulletin.meta.month.startsWith(year)).reverse() })),
+    t: loadMessages(latest.bulletin.meta.locale),
+  };
+}
+
+export async function renderSite(bundles: IssueBundle[], outDir: string): Promise<void> {
+  const issues = bundles.map((bundle) => issueData(bundle, bundles));
+  const site = siteData(issues);
+  const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
+    configPath: join(projectRoot, '.eleventy.js'),
+    quietMode: true,
+    config: (eleventyConfig) => {
+      eleventyConfig.addGlobalData('issues', issues);
+      eleventyConfig.addGlobalData('site', site);
+      eleventyConfig.addGlobalData('t', site.t);
+    },
+  });
+  // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
+  eleventy.disableLogger();
+  await eleventy.write();
+  const write = (file: SiteFile) => {
+    const target = join(outDir, file.path);
+    mkdirSync(dirname(target), { recursive: true });
+    writeFileSync(target, file.content);
+  };
+  for (const bundle of bundles) {
+    for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
+    // Every input table, as published, for download.
+    for (const input of bundle.model.inputs) {
+      const target = join(outDir, bundle.model.meta.issuePath, 'data', 'inputs', input.path);
+      mkdirSync(dirname(target), { recursive: true });
+      copyFileSync(join(bundle.folder, input.path), target);
+    }
+  }
+  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir)) write(file);
+}
+
+/** The files written beside an issue's pages: the model, the card and each chart's data, spec and PNG. */
 export function downloadFiles(model: BulletinModel, chartSet: ChartSet): SiteFile[] {
   const issue = model.meta.issuePath.replace(/^\//, '');
   const files: SiteFile[] = [
@@ -57,23 +151,4 @@ export function downloadFiles(model: BulletinModel, chartSet: ChartSet): SiteFil
     if (chart.png) files.push({ path: `${issue}charts/${chart.id}.png`, content: chart.png });
   }
   return files;
-}
-
-export async function renderSite(model: BulletinModel, chartSet: ChartSet, outDir: string): Promise<void> {
-  const data = pageData(model, chartSet);
-  const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
-    configPath: join(projectRoot, '.eleventy.js'),
-    quietMode: true,
-    config: (eleventyConfig) => {
-      for (const [name, value] of Object.entries(data)) eleventyConfig.addGlobalData(name, value);
-    },
-  });
-  // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
-  eleventy.disableLogger();
-  await eleventy.write();
-  for (const file of downloadFiles(model, chartSet)) {
-    const target = join(outDir, file.path);
-    mkdirSync(dirname(target), { recursive: true });
-    writeFileSync(target, file.content);
-  }
 }

@@ -1,0 +1,117 @@
+/**
+ * Site-level files: the Atom feed (RFC 4287), the JSON Feed (version 1.1), the sitemap
+ * (sitemaps.org 0.9), and the manifests: one per issue listing its input hashes, tool version,
+ * configuration summary and the SHA-256 of every file under its path, and one for the site that
+ * covers every other file. `limnopress verify` checks a site against them.
+ */
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { join, relative, sep } from 'node:path';
+import type { BulletinModel } from '../model/index.ts';
+import type { SiteFile } from './index.ts';
+
+export const MANIFEST = 'manifest.json';
+
+const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&apos;');
+const absolute = (model: BulletinModel, path: string) => new URL(path.replace(/^\//, ''), model.meta.baseUrl).href;
+
+function atom(models: BulletinModel[]): string {
+  const latest = models[0] as BulletinModel;
+  const entries = models.map((model) => [
+    '  <entry>',
+    `    <id>${escapeXml(absolute(model, model.meta.issuePath))}</id>`,
+    `    <title>${escapeXml(`${model.meta.title}: ${model.meta.monthName}`)}</title>`,
+    `    <updated>${model.meta.published}T00:00:00Z</updated>`,
+    `    <link rel="alternate" type="text/html" href="${escapeXml(absolute(model, model.meta.issuePath))}"/>`,
+    `    <summary>${escapeXml(model.headline)}</summary>`,
+    '  </entry>',
+  ].join('\n'));
+  return [
+    '<?xml version="1.0" encoding="utf-8"?>',
+    `<feed xmlns="http://www.w3.org/2005/Atom" xml:lang="${escapeXml(latest.meta.locale)}">`,
+    `  <id>${escapeXml(absolute(latest, '/'))}</id>`,
+    `  <title>${escapeXml(latest.meta.title)}</title>`,
+    `  <updated>${latest.meta.published}T00:00:00Z</updated>`,
+    `  <author><name>${escapeXml(latest.meta.publisher)}</name></author>`,
+    `  <link rel="self" type="application/atom+xml" href="${escapeXml(absolute(latest, '/feed.xml'))}"/>`,
+    `  <link rel="alternate" type="text/html" href="${escapeXml(absolute(latest, '/'))}"/>`,
+    ...entries,
+    '</feed>',
+    '',
+  ].join('\n');
+}
+
+function jsonFeed(models: BulletinModel[]): string {
+  const latest = models[0] as BulletinModel;
+  return `${JSON.stringify(
+    {
+      version: 'https://jsonfeed.org/version/1.1',
+      title: latest.meta.title,
+      home_page_url: absolute(latest, '/'),
+      feed_url: absolute(latest, '/feed.json'),
+      language: latest.meta.locale,
+      authors: [{ name: latest.meta.publisher }],
+      items: models.map((model) => ({
+        id: absolute(model, model.meta.issuePath),
+        url: absolute(model, model.meta.issuePath),
+        title: `${model.meta.title}: ${model.meta.monthName}`,
+        content_text: [model.headline, ...model.keyMessages.slice(1).map((message) => message.text)].join('\n'),
+        date_published: `${model.meta.published}T00:00:00Z`,
+        image: absolute(model, `${model.meta.issuePath}card.png`),
+      })),
+    },
+    null,
+    2,
+  )}\n`;
+}
+
+function listFiles(dir: string): string[] {
+  const found: string[] = [];
+  const walk = (folder: string) => {
+    for (const entry of readdirSync(folder).sort()) {
+      const path = join(folder, entry);
+      if (statSync(path).isDirectory()) walk(path);
+      else found.push(relative(dir, path).split(sep).join('/'));
+    }
+  };
+  walk(dir);
+  return found;
+}
+
+export const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
+
+/** Feeds and sitemap first; then the manifests over everything written, the site manifest last. */
+export function siteFiles(models: BulletinModel[], outDir: string): SiteFile[] {
+  const current = models.filter((model) => !model.meta.issuePath.includes('/revisions/')).sort((a, b) => b.meta.month.localeCompare(a.meta.month));
+  const latest = current[0] as BulletinModel;
+  const files: SiteFile[] = [
+    { path: 'feed.xml', content: atom(current) },
+    { path: 'feed.json', content: jsonFeed(current) },
+  ];
+  const pages = [...listFiles(outDir).filter((path) => path.endsWith('index.html')).map((path) => `/${path.replace(/index\.html$/, '')}`)].sort();
+  files.push({
+    path: 'sitemap.xml',
+    content: ['<?xml version="1.0" encoding="UTF-8"?>', '<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">', ...pages.map((page) => `  <url><loc>${escapeXml(absolute(latest, page))}</loc></url>`), '</urlset>', ''].join('\n'),
+  });
+  // Manifests cover the files on disk plus the feed files above (not yet written).
+  const pending = new Map(files.map((file) => [file.path, file.content]));
+  const all = [...new Set([...listFiles(outDir), ...pending.keys()])].sort();
+  const hashOf = (path: string) => sha256(pending.get(path) ?? readFileSync(join(outDir, path)));
+  const issuePrefixes = models.map((model) => model.meta.issuePath.replace(/^\//, ''));
+  const ownerOf = (path: string) => issuePrefixes.filter((prefix) => path.startsWith(prefix)).sort((a, b) => b.length - a.length)[0] ?? null;
+  const manifests: SiteFile[] = models.map((model) => {
+    const prefix = model.meta.issuePath.replace(/^\//, '');
+    const owned = all.filter((path) => ownerOf(path) === prefix && path !== `${prefix}${MANIFEST}`);
+    return {
+      path: `${prefix}${MANIFEST}`,
+      content: `${JSON.stringify({ issue: model.meta.month, revision: model.meta.revision, published: model.meta.published, tool: { name: 'limnopress', version: model.meta.toolVersion }, configuration: { baseline: model.meta.baseline, minObservedShare: model.meta.minObservedShare, minRegionCoverage: model.meta.minRegionCoverage, maxFilledGap: model.meta.maxFilledGap, statusBands: model.meta.statusBands }, inputs: model.inputs, outputs: owned.map((path) => ({ path: path.slice(prefix.length), sha256: hashOf(path) })) }, null, 2)}\n`,
+    };
+  });
+  for (const manifest of manifests) pending.set(manifest.path, manifest.content);
+  const rest = all.filter((path) => ownerOf(path) === null && path !== MANIFEST);
+  const siteManifest: SiteFile = {
+    path: MANIFEST,
+    content: `${JSON.stringify({ tool: { name: 'limnopress', version: latest.meta.toolVersion }, issues: manifests.map((manifest) => ({ path: manifest.path, sha256: sha256(manifest.content) })), outputs: rest.map((path) => ({ path, sha256: hashOf(path) })) }, null, 2)}\n`,
+  };
+  return [...files, ...manifests, siteManifest];
+}

@@ -1,0 +1,142 @@
+/**
+ * The published archive on the example: four issues (September, October in two revisions,
+ * November), previous/next links, the earlier revision at its own path, corrections shown, feeds
+ * with their required fields, the sitemap, and verify catching a changed byte.
+ */
+import { cpSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { verifySite } from '../../src/site/verify.ts';
+import { launchChromium, serveFolder } from '../support/gates.ts';
+
+let site: string;
+const read = (path: string) => readFileSync(join(site, path), 'utf8');
+
+beforeAll(() => {
+  site = inject('exampleSite');
+});
+
+describe('the archive', () => {
+  it('links each issue to the one before and after it', () => {
+    expect(read('issues/2026-10/index.html')).toContain('<a rel="prev" href="/issues/2026-09/">Previous issue: September 2026</a>');
+    expect(read('issues/2026-10/index.html')).toContain('<a rel="next" href="/issues/2026-11/">Next issue: November 2026</a>');
+    expect(read('issues/2026-09/index.html')).not.toContain('rel="prev"');
+    expect(read('issues/2026-11/index.html')).not.toContain('rel="next"');
+  });
+
+  it('shows the correction at the top of the corrected issue, and keeps revision 1 at its own path', () => {
+    const current = read('issues/2026-10/index.html');
+    expect(current).toContain('Corrections in this revision');
+    expect(current).toContain('entered ten times too large');
+    const first = read('issues/2026-10/revisions/1/index.html');
+    expect(first).toContain('this is revision 1 of the October 2026 issue');
+    expect(first).toContain('href="/issues/2026-10/"');
+    expect(read('issues/2026-10/data-and-methods/index.html')).toContain('<a href="/issues/2026-10/revisions/1/">Revision 1</a>');
+  });
+
+  it('lists the issues by year in the archive, and points the latest address at the newest issue', () => {
+    const archive = read('archive/index.html');
+    expect(archive).toContain('<h2>2026</h2>');
+    expect(archive.indexOf('November 2026')).toBeLessThan(archive.indexOf('September 2026'));
+    expect(read('latest/index.html')).toContain('<a href="/issues/2026-11/">November 2026</a>');
+    expect(read('index.html')).toContain('Read the November 2026 issue');
+  });
+
+  it('writes an Atom feed (RFC 4287) with the required elements', () => {
+    const atom = read('feed.xml');
+    const feedHead = atom.slice(0, atom.indexOf('<entry>'));
+    for (const element of ['<id>', '<title>', '<updated>', '<author><name>']) expect(feedHead).toContain(element);
+    const entries = atom.split('<entry>').slice(1);
+    expect(entries).toHaveLength(3);
+    for (const entry of entries) for (const element of ['<id>https://bulletin.example.org/issues/', '<title>', '<updated>2026-', '<link rel="alternate"']) expect(entry).toContain(element);
+    expect(entries[0]).toContain('2026-11');
+  });
+
+  it('writes a JSON Feed 1.1 with the required fields', () => {
+    const feed = JSON.parse(read('feed.json')) as { version: string; title: string; items: Array<{ id: string; content_text?: string; url: string }> };
+    expect(feed.version).toBe('https://jsonfeed.org/version/1.1');
+    expect(feed.title).toBe('Velduran Lakeland Water Bulletin');
+    expect(feed.items).toHaveLength(3);
+    for (const item of feed.items) {
+      expect(item.id).toMatch(/^https:\/\/bulletin\.example\.org\/issues\/2026-\d\d\/$/);
+      expect(item.content_text?.length).toBeGreaterThan(20);
+    }
+  });
+
+  it('lists every page in the sitemap, and carries schema.org Dataset metadata on each overview', () => {
+    const sitemap = read('sitemap.xml');
+    expect(sitemap.match(/<url>/g)).toHaveLength(24 - 1);
+    expect(sitemap).toContain('<loc>https://bulletin.example.org/issues/2026-10/revisions/1/trends/</loc>');
+    const ld = /<script type="application\/ld\+json">(.*?)<\/script>/.exec(read('issues/2026-11/index.html'))?.[1] ?? '';
+    expect(JSON.parse(ld)).toMatchObject({ '@type': 'Dataset', datePublished: '2026-12-03', version: '1' });
+  });
+});
+
+describe('verify', () => {
+  it('verifySite(site) finds every file matching its manifest', () => {
+    const { checked, findings } = verifySite(site);
+    expect(findings).toEqual([]);
+    expect(checked).toBeGreaterThan(200);
+  });
+
+  it('verifySite(copy) reports one changed byte in any kind of file, a missing file and an extra one', () => {
+    for (const path of ['issues/2026-09/trends/index.html', 'issues/2026-11/card.png', 'feed.xml', 'issues/2026-10/revisions/1/data/bulletin-model.json']) {
+      const copy = `${site}-verify-${path.replace(/\W/g, '-')}`;
+      cpSync(site, copy, { recursive: true });
+      const bytes = readFileSync(join(copy, path));
+      bytes[bytes.length >> 1] = (bytes[bytes.length >> 1] as number) ^ 1;
+      writeFileSync(join(copy, path), bytes);
+      expect(verifySite(copy).findings, path).toEqual([{ path, kind: 'changed' }]);
+    }
+    const copy = `${site}-verify-extra`;
+    cpSync(site, copy, { recursive: true });
+    mkdirSync(join(copy, 'extra'));
+    writeFileSync(join(copy, 'extra', 'note.txt'), 'x');
+    expect(verifySite(copy).findings).toEqual([{ path: 'extra/note.txt', kind: 'unlisted' }]);
+  });
+
+  it('limnopress verify exits 1 on a changed site and 0 on the built one', () => {
+    const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+    expect(spawnSync(process.execPath, [cli, 'verify', site], { encoding: 'utf8' }).status).toBe(0);
+    const copy = `${site}-verify-cli`;
+    cpSync(site, copy, { recursive: true });
+    writeFileSync(join(copy, 'index.html'), `${readFileSync(join(copy, 'index.html'), 'utf8')} `);
+    const changed = spawnSync(process.execPath, [cli, 'verify', copy], { encoding: 'utf8' });
+    expect(changed.status).toBe(1);
+    expect(changed.stdout).toContain('index.html: changed since it was built');
+  });
+});
+
+describe('the overview on narrow and wide screens', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchChromium();
+  }, 60_000);
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it('has no horizontal overflow at 320 px and 1280 px, and leaves a screenshot of each', async () => {
+    const server = await serveFolder(site);
+    const shots = join(import.meta.dirname, '..', '..', '.tmp', 'screenshots');
+    mkdirSync(shots, { recursive: true });
+    try {
+      for (const width of [320, 1280]) {
+        const context = await browser.newContext({ viewport: { width, height: 900 } });
+        const page = await context.newPage();
+        await page.goto(`${server.origin}/issues/2026-11/`);
+        const { scrollWidth, clientWidth } = await page.evaluate(() => {
+          const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
+          return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
+        });
+        await page.screenshot({ path: join(shots, `overview-${width}.png`), fullPage: true });
+        expect(scrollWidth, `width ${width}`).toBeLessThanOrEqual(clientWidth);
+        await context.close();
+      }
+    } finally {
+      await server.close();
+    }
+  }, 60_000);
+});
