@@ -13,7 +13,7 @@ import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
 import { siteFiles } from './siteFiles.ts';
-import { views } from './views.ts';
+import { bodyView, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
 
@@ -57,10 +57,13 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     revisions,
     inputDownloads: model.inputs.map((file) => ({ ...file, href: `${issue}data/inputs/${file.path}` })),
     jsonLd: jsonLd(model),
+    subRegions: model.boundaries.map((region) => subRegionView(model, region.id)),
+    monitoredBodies: model.monitored.map((entry) => bodyView(model, entry.body)),
     navigation: [
       { key: 'home', href: '/', label: t('site.home') },
       { key: 'overview', href: issue, label: t('page.overview') },
       { key: 'surfaceWater', href: `${issue}surface-water/`, label: t('page.surfaceWater') },
+      { key: 'places', href: `${issue}water-bodies/`, label: t('page.places') },
       { key: 'waterQuality', href: `${issue}water-quality/`, label: t('page.waterQuality') },
       { key: 'trends', href: `${issue}trends/`, label: t('page.trends') },
       { key: 'dataMethods', href: `${issue}data-and-methods/`, label: t('page.dataMethods') },
@@ -114,6 +117,8 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     quietMode: true,
     config: (eleventyConfig) => {
       eleventyConfig.addGlobalData('issues', issues);
+      eleventyConfig.addGlobalData('subRegionPages', issues.flatMap((issue) => issue.subRegions.map((subRegion) => ({ issue, subRegion }))));
+      eleventyConfig.addGlobalData('bodyPages', issues.flatMap((issue) => issue.monitoredBodies.map((body) => ({ issue, body }))));
       eleventyConfig.addGlobalData('site', site);
       eleventyConfig.addGlobalData('t', site.t);
     },

@@ -166,3 +166,67 @@ const parseIndex = (label: string) => Number(label.slice(0, 4)) * 12 + Number(la
 const cellWords: Record<string, string> = { stated: 'shown', 'too-few-bodies': 'too few water bodies', 'low-coverage': 'too little seen', 'short-baseline': 'baseline too short' };
 const methodWords: Record<string, string> = { 'seasonal-kendall': 'seasonal Kendall', 'seasonal-kendall-covariance': 'seasonal Kendall, covariance-corrected', 'mann-kendall-hamed-rao': 'Mann-Kendall, autocorrelation-corrected' };
 const directionWords: Record<string, string> = { decline: 'decline holds', rise: 'rise holds', none: 'no trend shown', untested: 'not tested' };
+
+/** One sub-region's page: its status, trend, water bodies and rainfall, formatted. */
+export function subRegionView(model: BulletinModel, id: string) {
+  const locale = model.meta.locale;
+  const t = (key: string) => formatMessage(loadMessages(locale), key);
+  const pct = (value: number | null | undefined) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : formatPercent(locale, value));
+  const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
+  const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
+  const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
+  const status = group?.status;
+  const bodies = model.bodies
+    .map((body, k) => ({ body, k }))
+    .filter(({ body }) => body.subRegionId === id)
+    .map(({ body, k }) => {
+      const own = model.bodyStatus[k];
+      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? 'not seen well enough' : 'baseline too short', percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
+    });
+  return {
+    id,
+    slug: slugOf(id),
+    name: group?.name ?? id,
+    bodies,
+    summary: [
+      ['Water bodies', String(group?.bodies ?? 0)],
+      ['Reference area', `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],
+      ['Water, % of reference area', pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
+      ['Percent of usual', pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
+      ['Status', status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? 'not stated: too little seen' : 'not stated: baseline too short'],
+      ['Seen by satellite', pct(status?.coveragePercent)],
+      ['Trend since the first month, points a year', trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : 'not tested'],
+      ['Trend after adjustment for testing many at once', trend ? (directionWords[trend.direction] ?? trend.direction) : 'not tested'],
+      [`Rainfall in ${model.meta.monthName}`, rain?.bulletinMonthMm === null || rain?.bulletinMonthMm === undefined ? '–' : `${formatNumber(locale, rain.bulletinMonthMm, 0)} mm (${pct(rain.percentOfBaseline)} of usual)`],
+    ],
+  };
+}
+
+/** One monitored water body's page, formatted. */
+export function bodyView(model: BulletinModel, index: number) {
+  const locale = model.meta.locale;
+  const t = (key: string) => formatMessage(loadMessages(locale), key);
+  const body = model.bodies[index] as BulletinModel['bodies'][number];
+  const own = model.bodyStatus[index];
+  const monitored = model.monitored.find((entry) => entry.body === index);
+  const trophic = model.quality?.trophic.bodies.find((entry) => entry.id === body.id);
+  const subRegion = model.boundaries.find((entry) => entry.id === body.subRegionId);
+  return {
+    id: body.id,
+    slug: slugOf(body.id),
+    name: body.name,
+    subRegion: { name: subRegion?.name ?? body.subRegionId, href: `${model.meta.issuePath}sub-regions/${slugOf(body.subRegionId)}/` },
+    summary: [
+      ['Kind', body.kind],
+      ['Reference area', `${formatNumber(locale, body.referenceHa, 1)} ha`],
+      ['Location', `${formatNumber(locale, Math.abs(body.lat), 3)}° ${body.lat < 0 ? 'S' : 'N'}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${body.lon < 0 ? 'W' : 'E'}`],
+      ['Percent of usual', own?.percentOfBaseline === null || own?.percentOfBaseline === undefined ? '–' : formatPercent(locale, own.percentOfBaseline)],
+      ['Status', own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? 'not seen well enough this month' : 'baseline too short'],
+      ['Trend since the first month, points a year', monitored?.slopePerYear === null || monitored?.slopePerYear === undefined ? 'not tested' : formatNumber(locale, monitored.slopePerYear, 2)],
+      ['Trend after adjustment for testing many at once', directionWords[monitored?.direction ?? 'untested'] ?? 'not tested'],
+      ['Chlorophyll-a this month', trophic ? `${formatNumber(locale, trophic.chlorophyll, 1)} µg/L (trophic state index ${formatNumber(locale, trophic.index, 0)}, ${trophic.trophicClass})` : 'no estimate'],
+    ],
+  };
+}
+
+export const slugOf = (id: string) => id.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'item';
