@@ -7,11 +7,12 @@ import { formatProblem, InputError } from '../ingest/index.ts';
 import { runBuild } from './build.ts';
 import { runCheck } from './check.ts';
 import { runInit, runNewIssue } from './init.ts';
+import { runPreview } from './preview.ts';
 import { runTrend } from './trend.ts';
 import { runVerify } from './verify.ts';
 import { HELP, UsageError } from './usage.ts';
 
-const COMMANDS: Record<string, (args: string[]) => Promise<number>> = { build: runBuild, check: runCheck, init: runInit, 'new-issue': runNewIssue, trend: runTrend, verify: runVerify };
+const COMMANDS: Record<string, (args: string[]) => Promise<number>> = { build: runBuild, check: runCheck, init: runInit, 'new-issue': runNewIssue, preview: runPreview, trend: runTrend, verify: runVerify };
 
 const isParseArgsError = (error: unknown) => error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS');
 

@@ -12,6 +12,7 @@ Commands:
   verify <site-folder>                     check a built site against its manifests
   init <folder> --month YYYY-MM            start a new bulletin folder that builds at once
   new-issue <bulletin-folder>              archive the current issue and start next month's
+  preview <bulletin-folder> [--port N]     build, serve on 127.0.0.1 and rebuild on every change
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
   help [command]                           show help for a command
 
@@ -52,6 +53,12 @@ Copies the current issue (bulletin.json, every input it names, content/) into ar
 where it keeps its address and its inputs, then moves bulletin.json on to the next month as a
 draft, first revision, with a fresh foreword. --published sets the new issue's publication date
 (default: the 3rd of the month after the new bulletin month).
+`,
+  preview: `Usage: limnopress preview <bulletin-folder> [--port 8080]
+
+Builds the bulletin into a temporary folder and serves it on http://127.0.0.1:<port>/ (port 0
+picks a free one). Every change in the bulletin folder rebuilds the site; a build with errors
+prints them and the last good site stays served. Ctrl-C stops.
 `,
   verify: `Usage: limnopress verify <site-folder>
 

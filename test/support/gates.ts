@@ -5,8 +5,8 @@
  */
 import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
-import { createServer, type Server } from 'node:http';
-import { extname, join, normalize, relative, sep } from 'node:path';
+import { createServer } from 'node:http';
+import { join, relative, sep } from 'node:path';
 import { createRequire } from 'node:module';
 import { HtmlValidate } from 'html-validate';
 import { LinkChecker } from 'linkinator';
@@ -93,25 +93,8 @@ export async function validateHtml(dir: string): Promise<{ pages: number; errors
   return { pages: pages.length, errors };
 }
 
-const MIME: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.css': 'text/css', '.json': 'application/json', '.csv': 'text/csv', '.svg': 'image/svg+xml', '.png': 'image/png', '.xml': 'application/xml' };
-
-/** A static server on 127.0.0.1 with a random free port, serving `dir/index.html` for folders. */
-export async function serveFolder(dir: string): Promise<{ origin: string; close: () => Promise<void> }> {
-  const server: Server = createServer((request, response) => {
-    const path = normalize(decodeURIComponent(new URL(request.url ?? '/', 'http://x').pathname));
-    let file = join(dir, path);
-    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
-    if (!file.startsWith(dir) || !existsSync(file)) {
-      response.writeHead(404).end('not found');
-      return;
-    }
-    response.writeHead(200, { 'content-type': MIME[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
-  });
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : 0;
-  return { origin: `http://127.0.0.1:${port}`, close: () => new Promise((resolve) => server.close(() => resolve())) };
-}
+export { serveFolder } from '../../src/site/serve.ts';
+import { serveFolder } from '../../src/site/serve.ts';
 
 export async function launchChromium(): Promise<Browser> {
   if (!existsSync(CHROMIUM_PATH)) {
