@@ -19,22 +19,13 @@
  */
 import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { mulberry32 } from './random.ts';
 
 const SEED = 20181;
 const FIRST_YEAR = 2018;
 const LAST_MONTH = '2026-11';
 const DRY_SPELL_FROM = '2024-12';
 
-function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const random = mulberry32(SEED);
 const uniform = (low: number, high: number) => low + (high - low) * random();

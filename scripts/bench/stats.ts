@@ -17,22 +17,13 @@ import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parallelTrends } from '../../src/model/parallelTrends.ts';
 import { mannKendall, seasonalKendall, sensSlope } from '../../src/stats/index.ts';
+import { mulberry32 } from '../random.ts';
 
 const seriesArg = process.argv.indexOf('--series');
 const SERIES = seriesArg > 0 ? Number(process.argv[seriesArg + 1]) : 2000;
 const LOOP_SERIES = 300;
 const LENGTHS = [48, 120, 240];
 
-function mulberry32(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function makeCase(n: number) {
   const random = mulberry32(1000 + n);

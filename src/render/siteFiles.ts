@@ -4,9 +4,9 @@
  * configuration summary and the SHA-256 of every file under its path, and one for the site that
  * covers every other file. `limnopress verify` checks a site against them.
  */
-import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative, sep } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { listFiles, sha256 } from '../site/files.ts';
 import type { BulletinModel } from '../model/index.ts';
 import type { SiteFile } from './index.ts';
 
@@ -64,21 +64,6 @@ function jsonFeed(models: BulletinModel[]): string {
     2,
   )}\n`;
 }
-
-function listFiles(dir: string): string[] {
-  const found: string[] = [];
-  const walk = (folder: string) => {
-    for (const entry of readdirSync(folder).sort()) {
-      const path = join(folder, entry);
-      if (statSync(path).isDirectory()) walk(path);
-      else found.push(relative(dir, path).split(sep).join('/'));
-    }
-  };
-  walk(dir);
-  return found;
-}
-
-export const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
 
 /** Feeds and sitemap first; then the manifests over everything written, the site manifest last. */
 export function siteFiles(models: BulletinModel[], outDir: string): SiteFile[] {

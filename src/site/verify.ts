@@ -3,16 +3,14 @@
  * SHA-256, every issue manifest must match the hash the site manifest records for it, and no file
  * may stand in the site without being listed.
  */
-import { createHash } from 'node:crypto';
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative, sep } from 'node:path';
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { listFiles, sha256 } from './files.ts';
 
 export interface VerifyFinding {
   path: string;
   kind: 'changed' | 'missing' | 'unlisted' | 'manifest-unreadable';
 }
-
-const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
 interface Listed { path: string; sha256: string }
 
@@ -22,19 +20,6 @@ function readJson<T>(path: string): T | null {
   } catch {
     return null;
   }
-}
-
-function allFiles(dir: string): string[] {
-  const found: string[] = [];
-  const walk = (folder: string) => {
-    for (const entry of readdirSync(folder).sort()) {
-      const path = join(folder, entry);
-      if (statSync(path).isDirectory()) walk(path);
-      else found.push(relative(dir, path).split(sep).join('/'));
-    }
-  };
-  walk(dir);
-  return found;
 }
 
 export function verifySite(dir: string): { checked: number; findings: VerifyFinding[] } {
@@ -61,6 +46,6 @@ export function verifySite(dir: string): { checked: number; findings: VerifyFind
     const prefix = manifest.path.slice(0, -'manifest.json'.length);
     for (const output of issue.outputs) check(`${prefix}${output.path}`, output.sha256);
   }
-  for (const path of allFiles(dir)) if (!listed.has(path)) findings.push({ path, kind: 'unlisted' });
+  for (const path of listFiles(dir)) if (!listed.has(path)) findings.push({ path, kind: 'unlisted' });
   return { checked, findings: findings.sort((a, b) => a.path.localeCompare(b.path)) };
 }

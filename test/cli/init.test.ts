@@ -20,7 +20,7 @@ describe('limnopress init and new-issue', () => {
     expect(overview).toContain('<meta name="robots" content="noindex">');
     expect(overview).toContain('Draft: this issue is not yet published');
     expect(overview).toContain('Write the foreword of this issue here');
-  }, 120_000);
+  }, 240_000);
 
   it('init refuses a folder that is not empty, and needs --month', () => {
     const folder = mkdtempSync(join(tmpdir(), 'limnopress-init-'));

@@ -9,7 +9,8 @@ describe('renderSite', () => {
   it('renderSite escapes text from the configuration in pages', async () => {
     const root = mkdtempSync(join(tmpdir(), 'limnopress-escape-'));
     const folder = join(root, 'bulletin');
-    cpSync(EXAMPLE, folder, { recursive: true });
+    // The current issue alone is enough here: the archive would only make the build longer.
+    cpSync(EXAMPLE, folder, { recursive: true, filter: (source) => !source.includes(`${EXAMPLE}/archive`) });
     const configPath = join(folder, 'bulletin.json');
     const config = JSON.parse(readFileSync(configPath, 'utf8'));
     config.title = 'Lakes <script>alert(1)</script> & "more"';
@@ -21,5 +22,5 @@ describe('renderSite', () => {
     expect(overview).not.toContain('<img src=x');
     expect(overview).toContain('Lakes &lt;script&gt;alert(1)&lt;/script&gt; &amp; &quot;more&quot;');
     expect(overview).toContain('&lt;img src=x onerror=alert(1)&gt;');
-  }, 60_000);
+  }, 240_000);
 });

@@ -72,7 +72,7 @@ describe('example site', () => {
   it('building twice gives byte-identical output', async () => {
     const again = (await buildExample('again')).dir;
     expect(diffTrees(site, again)).toEqual([]);
-  }, 120_000);
+  }, 300_000);
 });
 
 describe('each gate fails on a broken page', () => {

@@ -3,10 +3,9 @@
  * fails on a broken page: links (linkinator, fragments too), HTML (html-validate), accessibility
  * (axe-core in Debian's Chromium through playwright-core), and tree hashing for determinism.
  */
-import { createHash } from 'node:crypto';
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { createServer } from 'node:http';
-import { join, relative, sep } from 'node:path';
+import { join } from 'node:path';
 import { createRequire } from 'node:module';
 import { HtmlValidate } from 'html-validate';
 import { LinkChecker } from 'linkinator';
@@ -14,23 +13,12 @@ import { chromium, type Browser } from 'playwright-core';
 
 export const CHROMIUM_PATH = process.env.LIMNOPRESS_CHROMIUM ?? '/usr/bin/chromium';
 
-/** Every file below a folder, as sorted relative paths with forward slashes. */
-export function listFiles(dir: string): string[] {
-  const found: string[] = [];
-  const walk = (folder: string) => {
-    for (const entry of readdirSync(folder).sort()) {
-      const path = join(folder, entry);
-      if (statSync(path).isDirectory()) walk(path);
-      else found.push(relative(dir, path).split(sep).join('/'));
-    }
-  };
-  walk(dir);
-  return found;
-}
+export { listFiles } from '../../src/site/files.ts';
+import { listFiles, sha256 } from '../../src/site/files.ts';
 
 export function treeHashes(dir: string): Record<string, string> {
   const hashes: Record<string, string> = {};
-  for (const file of listFiles(dir)) hashes[file] = createHash('sha256').update(readFileSync(join(dir, file))).digest('hex');
+  for (const file of listFiles(dir)) hashes[file] = sha256(readFileSync(join(dir, file)));
   return hashes;
 }
 
