@@ -44,6 +44,14 @@ export function issuePaths(issues: Array<{ month: number; revision: number }>): 
 
 export async function build(options: BuildOptions): Promise<BuildResult> {
   const log = options.log ?? (() => {});
+  // Wall time per stage, for the closing summary (progress only: nothing of it reaches the site).
+  const times: Array<[string, number]> = [];
+  let stageStart = performance.now();
+  const lap = (stage: string) => {
+    const now = performance.now();
+    times.push([stage, now - stageStart]);
+    stageStart = now;
+  };
 
   const folders = issueFolders(options.bulletinFolder);
   log(`1/5 reading and checking inputs of ${folders.length} issue(s)`);
@@ -64,19 +72,24 @@ export async function build(options: BuildOptions): Promise<BuildResult> {
   });
   if (problems.some((problem) => problem.severity === 'error') || loaded.length < folders.length) throw new InputError(problems);
   const warnings = problems.filter((problem) => problem.severity === 'warning');
+  lap('inputs');
 
   log('2/5 computing the bulletin models');
   const paths = issuePaths(loaded.map(({ inputs }) => ({ month: inputs.bulletinMonth, revision: inputs.config.issue.revision })));
   const models = loaded.map(({ inputs, warnings: own }, k) => buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string }));
+  lap('model');
 
   log('3/5 rendering charts');
   const chartSets: ChartSet[] = [];
   for (const model of models) chartSets.push(await buildCharts(model));
+  lap('charts');
 
   log('4/5 rendering pages');
   const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string, inputs: loaded[k]?.inputs as BulletinInputs }));
   await publishAtomically(options.outDir, (staging) => renderSite(bundles, staging));
 
+  lap('pages');
   log(`5/5 published to ${options.outDir}`);
+  log(`time: ${times.map(([stage, ms]) => `${stage} ${(ms / 1000).toFixed(1)} s`).join(', ')}`);
   return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir };
 }
