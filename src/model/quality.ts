@@ -14,10 +14,9 @@
  */
 import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
-import { mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
+import { benjaminiHochberg, mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
 import { sizeClassBounds } from './surfaceWater.ts';
 import { trendTest, type TrendTest } from './trends.ts';
-import { benjaminiHochberg } from '../stats/index.ts';
 
 /**
  * WHO (2003), Guidelines for Safe Recreational Water Environments, Vol. 1, ch. 8: chlorophyll-a of
