@@ -85,7 +85,11 @@ export const configSchema = z.strictObject({
     .default({ seasons: [] }),
   statusBands: z.array(statusBand).min(2),
   csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
-  site: z.strictObject({ baseUrl: z.url() }),
+  site: z.strictObject({
+    baseUrl: z.url(),
+    /** Most water bodies that get a page of their own; the largest flagged bodies come first. */
+    maxBodyPages: z.number().int().min(0).default(500),
+  }),
   locales: z.array(z.enum(['en'])).min(1).default(['en']),
   inputs: z.strictObject({
     inventory: z.string(),

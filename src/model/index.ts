@@ -101,6 +101,10 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
   const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(bulletinMonth));
   const baselineParams = { baselineFirst: config.baseline.firstYear, baselineLast: config.baseline.lastYear };
   const notices: Notice[] = key.caveats.map((text) => ({ kind: 'notice' as const, text }));
+  // Pages of their own for the flagged bodies, the largest first, up to the configured cap.
+  const flagged = inputs.bodies.map((body, k) => ({ body, k })).filter(({ body }) => body.ownPage).sort((a, b) => b.body.referenceHa - a.body.referenceHa || a.k - b.k);
+  const pageBodies = new Set(flagged.slice(0, config.site.maxBodyPages).map(({ k }) => k));
+  if (flagged.length > pageBodies.size) notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: flagged.length, shown: pageBodies.size }) });
   const region = surface.region.status;
   if (region.kind === 'stated' && region.filledPercent >= 1) notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
@@ -142,7 +146,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
     }),
     monitored: inputs.bodies.flatMap((body, k) => {
-      if (!body.ownPage) return [];
+      if (!pageBodies.has(k)) return [];
       const from = Math.max(0, series.months - 36);
       const trend = trendsOfBodies.entries[k];
       return [{ body: k, id: body.id, name: body.name, firstMonth: series.firstMonth + from, filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)), direction: trend?.direction ?? 'untested', slopePerYear: trend?.test?.slopePerYear ?? null }];

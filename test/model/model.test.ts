@@ -58,3 +58,15 @@ describe('buildModel on the small bulletin', () => {
     expect(chlorophyll?.agreement.rootMeanSquareError).toBeCloseTo(0.72111, 5);
   });
 });
+
+describe('pages of their own', () => {
+  it('site.maxBodyPages keeps the largest flagged bodies and says how many were left out', async () => {
+    const bodies = miniFiles()['bodies.csv'].replace('A,Lake One,R1,10.1,50.1,10,lake,no', 'A,Lake One,R1,10.1,50.1,10,lake,yes');
+    const config = JSON.parse(miniFiles()['bulletin.json']);
+    config.site.maxBodyPages = 1;
+    const model = await modelOf({ 'bodies.csv': bodies, 'bulletin.json': JSON.stringify(config) });
+    // A (10 ha) and B (200 ha) are both flagged; with a cap of 1 only B, the larger, gets a page.
+    expect(model.monitored.map((entry) => entry.id)).toEqual(['B']);
+    expect(model.notices.map((notice) => notice.text)).toContain('2 water bodies are flagged for a page of their own; the 1 largest have one. All of them are in the tables.');
+  });
+});
