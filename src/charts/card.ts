@@ -4,13 +4,13 @@
  */
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
+import { escapeXml } from '../text/escape.ts';
 import { formatPercent } from '../text/format.ts';
 import { CHART_FONT, OKABE_ITO } from './palettes.ts';
 
 export const CARD_WIDTH = 1200;
 export const CARD_HEIGHT = 630;
 
-const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 /** Greedy line breaking by an average glyph width (0.55 em for DejaVu Sans, measured by eye: common practice). */
 function wrap(text: string, size: number, width: number): string[] {

@@ -9,9 +9,8 @@ import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatNumber } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';
-import type { ChartDefinition } from './render.ts';
+import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
-const SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
 const SIZE = { width: 520, height: 420 };
 
 interface Bounds { west: number; east: number; south: number; north: number }
@@ -57,7 +56,16 @@ function baseLayers(model: BulletinModel) {
   ];
 }
 
-const projection = { type: 'equirectangular' } as const;
+/** Every map: one size and projection, the graticule underneath, then the map's own layers. */
+function mapSpec(model: BulletinModel, layers: unknown[]): TopLevelSpec {
+  return {
+    $schema: VEGA_LITE_SCHEMA,
+    ...SIZE,
+    padding: { left: 50, top: 10, right: 10, bottom: 24 },
+    projection: { type: 'equirectangular' },
+    layer: [...baseLayers(model), ...layers],
+  } as TopLevelSpec;
+}
 
 /** Anomaly classes on the standardized anomaly, with their words. */
 const ANOMALY_CLASSES: Array<{ below: number; label: string }> = [
@@ -82,17 +90,10 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     };
   });
   const domain = [...ANOMALY_CLASSES.map((entry) => entry.label), NOT_ENOUGH];
-  const spec: TopLevelSpec = {
-    $schema: SCHEMA,
-    ...SIZE,
-    padding: { left: 50, top: 10, right: 10, bottom: 24 },
-    projection,
-    layer: [
-      ...baseLayers(model),
+  const spec = mapSpec(model, [
       { data: { values: cells }, mark: { type: 'geoshape', stroke: OUTLINE, strokeWidth: 0.8 }, encoding: { color: { field: 'properties.label', type: 'nominal', title: 'Standardized anomaly', scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } }, strokeDash: { condition: { test: `datum.properties.label === '${NOT_ENOUGH}'`, value: [3, 2] }, value: [1, 0] } } },
       { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
-    ],
-  } as TopLevelSpec;
+  ]);
   const stated = model.grid.cells.filter((cell) => cell.standardized !== null);
   const belowCount = stated.filter((cell) => (cell.standardized as number) < -0.5).length;
   return {
@@ -128,18 +129,11 @@ export function subRegionMapChart(model: BulletinModel): ChartDefinition {
     const feature = features.find((entry) => entry.properties.id === region.id);
     return { lon, lat, name: region.name, text: `${feature?.properties.percent ?? '–'} % · ${feature?.properties.band}` };
   });
-  const spec: TopLevelSpec = {
-    $schema: SCHEMA,
-    ...SIZE,
-    padding: { left: 50, top: 10, right: 10, bottom: 24 },
-    projection,
-    layer: [
-      ...baseLayers(model),
+  const spec = mapSpec(model, [
       { data: { values: features }, mark: { type: 'geoshape', stroke: '#000000', strokeWidth: 1.5 }, encoding: { color: { field: 'properties.band', type: 'nominal', title: 'Status', scale: { domain: [...style.labels, 'not stated'], range: [...style.colours, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } } } },
       { data: { values: labels }, mark: { type: 'text', fontSize: 11, fontWeight: 'bold', dy: -7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'name' } } },
       { data: { values: labels }, mark: { type: 'text', fontSize: 10, dy: 7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },
-    ],
-  } as TopLevelSpec;
+  ]);
   return {
     id: 'sub-region-map',
     title: `Sub-regions by status, ${model.meta.monthName}`,
@@ -156,13 +150,7 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
     return { name: body.name, lon: body.lon, lat: body.lat, area: Math.round(body.referenceHa * 10) / 10, status: style.label(status?.bandKey ?? null) };
   });
   const domain = [...style.labels, 'not stated'];
-  const spec: TopLevelSpec = {
-    $schema: SCHEMA,
-    ...SIZE,
-    padding: { left: 50, top: 10, right: 10, bottom: 24 },
-    projection,
-    layer: [
-      ...baseLayers(model),
+  const spec = mapSpec(model, [
       { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.2 } },
       {
         data: { values },
@@ -175,8 +163,7 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
           color: { field: 'status', type: 'nominal', title: 'Status', scale: { domain, range: [...style.colours, '#bdbdbd'] } },
         },
       },
-    ],
-  } as TopLevelSpec;
+  ]);
   const counts = domain.map((label) => `${values.filter((row) => row.status === label).length} ${label}`);
   return {
     id: 'bodies-map',

@@ -4,11 +4,10 @@ import type { BulletinModel } from '../model/index.ts';
 import type { QualityParameterSummary } from '../model/quality.ts';
 import { formatNumber } from '../text/format.ts';
 import { GREY, OKABE_ITO, OUTLINE, YELLOW_GREEN_BLUE_5 } from './palettes.ts';
-import type { ChartDefinition } from './render.ts';
+import { monthLabel } from '../ingest/index.ts';
+import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
-const SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
-const monthText = (index: number) => `${Math.floor(index / 12)}-${String((index % 12) + 1).padStart(2, '0')}`;
-const round = (value: number | null | undefined, digits = 2) => (value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits);
+const round = (value: number | null | undefined, digits = 2) => roundOrNull(value, digits);
 const nameOf = (parameter: QualityParameterSummary) => (parameter.parameter === 'chlorophyll_a' ? 'Chlorophyll-a' : 'Turbidity');
 const slug = (parameter: QualityParameterSummary) => (parameter.parameter === 'chlorophyll_a' ? 'chlorophyll' : 'turbidity');
 
@@ -16,11 +15,11 @@ const slug = (parameter: QualityParameterSummary) => (parameter.parameter === 'c
 export function distributionChart(model: BulletinModel, parameter: QualityParameterSummary): ChartDefinition {
   const edges = parameter.distribution.edges;
   const label = (k: number) => `${formatNumber(model.meta.locale, edges[k] as number, edges[k] as number < 1 ? 2 : 0)}–${formatNumber(model.meta.locale, edges[k + 1] as number, (edges[k + 1] as number) < 1 ? 2 : 0)}`;
-  const values = parameter.distribution.months.flatMap((row) => row.counts.map((count, k) => ({ month: monthText(row.month), bin: label(k), order: k, bodies: count }))).filter((row) => row.bodies > 0);
+  const values = parameter.distribution.months.flatMap((row) => row.counts.map((count, k) => ({ month: monthLabel(row.month), bin: label(k), order: k, bodies: count }))).filter((row) => row.bodies > 0);
   const bins = [...new Set(values.sort((a, b) => a.order - b.order).map((row) => row.bin))];
   const busiest = [...values].sort((a, b) => b.bodies - a.bodies)[0];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 640,
     height: { step: 18 },
     padding: 12,
@@ -42,10 +41,10 @@ export function distributionChart(model: BulletinModel, parameter: QualityParame
 /** Region medians by month with Sen's trend line. */
 export function medianTrendChart(model: BulletinModel, parameter: QualityParameterSummary): ChartDefinition {
   const trend = parameter.medianTrend;
-  const values = parameter.monthly.map((row) => ({ month: monthText(row.month), median: round(row.median), weighted: round(row.weightedMedian), trend: trend ? round(trend.intercept + (trend.slopePerYear * row.month) / 12) : null }));
+  const values = parameter.monthly.map((row) => ({ month: monthLabel(row.month), median: round(row.median), weighted: round(row.weightedMedian), trend: trend ? round(trend.intercept + (trend.slopePerYear * row.month) / 12) : null }));
   const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 640,
     height: 200,
     padding: 12,
@@ -71,7 +70,7 @@ export function sizeClassQuantileChart(model: BulletinModel, parameter: QualityP
   const y = { field: 'sizeClass', type: 'nominal', title: null, sort: null } as const;
   const highest = [...values].sort((a, b) => (b.p50 ?? 0) - (a.p50 ?? 0))[0];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 460,
     height: { step: 34 },
     padding: 12,
@@ -97,7 +96,7 @@ export function trophicChart(model: BulletinModel): ChartDefinition | null {
   const values = trophic.counts.map((row) => ({ trophicClass: row.trophicClass, bodies: row.bodies }));
   const most = [...values].sort((a, b) => b.bodies - a.bodies)[0];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 460,
     height: { step: 30 },
     padding: 12,
@@ -127,7 +126,7 @@ export function validationChart(model: BulletinModel, index: number): ChartDefin
   const locale = model.meta.locale;
   const stats = `n = ${a.n}, bias ${formatNumber(locale, a.bias, 2)} ${unit}, RMSE ${formatNumber(locale, a.rootMeanSquareError, 2)} ${unit}, R² ${formatNumber(locale, a.rSquared, 2)}`;
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 320,
     height: 320,
     padding: 12,

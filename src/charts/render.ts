@@ -6,7 +6,13 @@ import sharp from 'sharp';
 import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 
+import { escapeXml } from '../text/escape.ts';
 import { CHART_FONT } from './palettes.ts';
+
+export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
+
+/** A figure rounded for a chart's data and table, or null when there is none. */
+export const roundOrNull = (value: number | null | undefined, digits: number) => (value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits);
 
 export interface DataTable {
   caption: string;
@@ -41,7 +47,6 @@ export async function svgToPng(svg: string, density = 72): Promise<Buffer> {
   return sharp(Buffer.from(svg), { density }).png({ compressionLevel: 9, adaptiveFiltering: false }).toBuffer();
 }
 
-const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 /** RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled. */
 export function toCsv(table: DataTable): string {

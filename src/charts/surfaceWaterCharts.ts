@@ -4,12 +4,11 @@ import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
-import type { ChartDefinition } from './render.ts';
+import { monthLabel } from '../ingest/index.ts';
+import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const ENVELOPE = '#c6dbef';
-const SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
-const monthText = (index: number) => `${Math.floor(index / 12)}-${String((index % 12) + 1).padStart(2, '0')}`;
-const round = (value: number | null | undefined, digits = 1) => (value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits);
+const round = (value: number | null | undefined, digits = 1) => roundOrNull(value, digits);
 const cell = (value: number | null) => (value === null ? '–' : value);
 
 export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
@@ -20,7 +19,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   const values = series.map((entry) => {
     const band = envelope[entry.month % 12];
     return {
-      month: monthText(entry.month),
+      month: monthLabel(entry.month),
       filling: round(entry.fillingPercent),
       thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
       coverage: round(entry.coveragePercent),
@@ -31,7 +30,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   });
   const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 640,
     height: 240,
     padding: 12,
@@ -62,7 +61,7 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
   const status = model.surfaceWater.region.status;
   const values = entries.map((entry) => ({ year: String(entry.year), filling: round(entry.fillingPercent), group: entry.inBaseline ? 'baseline year' : 'other year' }));
   const spec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 480,
     height: 220,
     padding: 12,
@@ -97,10 +96,10 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
 export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
   const locale = model.meta.locale;
   const rows = model.surfaceWater.regionAnomalies.slice(-36);
-  const values = rows.map((row) => ({ month: monthText(row.month), points: round(row.points), sign: row.points < 0 ? 'below the baseline median' : 'at or above the baseline median' }));
+  const values = rows.map((row) => ({ month: monthLabel(row.month), points: round(row.points), sign: row.points < 0 ? 'below the baseline median' : 'at or above the baseline median' }));
   const below = rows.filter((row) => row.points < 0).length;
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 640,
     height: 200,
     padding: 12,
@@ -131,7 +130,7 @@ export function subRegionChart(model: BulletinModel): ChartDefinition {
   });
   const lowest = [...values].filter((row) => row.percent !== null).sort((a, b) => (a.percent as number) - (b.percent as number))[0];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 460,
     height: { step: 36 },
     padding: 12,
@@ -159,7 +158,7 @@ export function sizeClassChart(model: BulletinModel): ChartDefinition {
   ]);
   const worst = [...model.surfaceWater.sizeClasses].filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null).sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 460,
     height: 220,
     padding: 12,
@@ -185,10 +184,10 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
   const rain = model.rainfall;
   if (!rain) return null;
   const locale = model.meta.locale;
-  const values = rain.subRegions.flatMap((entry) => entry.monthly.slice(-36).map((row) => ({ month: monthText(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })));
+  const values = rain.subRegions.flatMap((entry) => entry.monthly.slice(-36).map((row) => ({ month: monthLabel(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })));
   const names = rain.subRegions.map((entry) => entry.name);
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 640,
     height: 200,
     padding: 12,
@@ -207,18 +206,18 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
     title: `Rainfall by sub-region, last 36 months`,
     description: `Line chart of monthly rainfall per sub-region, for context. ${model.meta.monthName} as percent of the baseline median: ${parts.join(', ')}.`,
     spec,
-    table: { caption: 'Monthly rainfall by sub-region, mm', columns: ['Month', ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthText(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
+    table: { caption: 'Monthly rainfall by sub-region, mm', columns: ['Month', ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthLabel(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
   };
 }
 
 /** A small line per monitored body for tables: the last 36 months of filling, no axes. */
 export function sparklineChart(model: BulletinModel, bodyIndex: number, values: Array<number | null>, firstMonth: number): ChartDefinition {
   const body = model.bodies[bodyIndex] as BulletinModel['bodies'][number];
-  const rows = values.map((value, k) => ({ month: monthText(firstMonth + k), filling: round(value) }));
+  const rows = values.map((value, k) => ({ month: monthLabel(firstMonth + k), filling: round(value) }));
   const known = rows.filter((row) => row.filling !== null);
   const last = known[known.length - 1];
   const spec: TopLevelSpec = {
-    $schema: SCHEMA,
+    $schema: VEGA_LITE_SCHEMA,
     width: 120,
     height: 28,
     padding: 2,

@@ -12,7 +12,7 @@ import type { BulletinInputs } from '../ingest/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
-import { siteFiles } from './siteFiles.ts';
+import { siteFiles, siteUrl } from './siteFiles.ts';
 import { bodyView, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
@@ -49,8 +49,8 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     sparklines: charts.sparklines,
     view: views(model),
     content: renderMarkdown(bundle.folder),
-    cardUrl: new URL(`${issue.replace(/^\//, '')}card.png`, model.meta.baseUrl).href,
-    pageUrl: new URL(issue.replace(/^\//, ''), model.meta.baseUrl).href,
+    cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
+    pageUrl: siteUrl(model.meta.baseUrl, issue),
     isRevisionCopy: issue.includes('/revisions/'),
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
@@ -79,7 +79,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
  * close the script element.
  */
 function jsonLd(model: BulletinModel): string {
-  const url = (path: string) => new URL(path.replace(/^\//, ''), model.meta.baseUrl).href;
+  const url = (path: string) => siteUrl(model.meta.baseUrl, path);
   const data = {
     '@context': 'https://schema.org',
     '@type': 'Dataset',

@@ -7,13 +7,15 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { listFiles, sha256 } from '../site/files.ts';
+import { escapeXml } from '../text/escape.ts';
 import type { BulletinModel } from '../model/index.ts';
 import type { SiteFile } from './index.ts';
 
 export const MANIFEST = 'manifest.json';
 
-const escapeXml = (text: string) => text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&apos;');
-const absolute = (model: BulletinModel, path: string) => new URL(path.replace(/^\//, ''), model.meta.baseUrl).href;
+/** Absolute address of a site path on the published site. */
+export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
+const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.baseUrl, path);
 
 function atom(models: BulletinModel[]): string {
   const latest = models[0] as BulletinModel;

@@ -2,6 +2,7 @@
  * Page views: the model's figures formatted for people (Intl numbers, plain words for states), as
  * tables and short lists that the templates only place. No figure is computed here.
  */
+import { parseMonth } from '../ingest/index.ts';
 import type { BulletinModel, GroupSurface, Status } from '../model/index.ts';
 import { evidenceFor } from '../model/evidence.ts';
 import type { TrendEntry } from '../model/trends.ts';
@@ -17,13 +18,21 @@ export interface TableView {
   note?: string;
 }
 
+/** The page formatters of one locale: a missing or undefined figure always prints as "–". */
+function formatters(locale: string) {
+  const missing = (value: number | null | undefined): value is null | undefined => value === null || value === undefined || !Number.isFinite(value);
+  return {
+    t: (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params),
+    pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
+    num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
+    signed: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`),
+    p: (value: number | null | undefined) => (missing(value) ? '–' : value < 0.001 ? '< 0.001' : formatNumber(locale, value, 3)),
+  };
+}
+
 export function views(model: BulletinModel) {
   const locale = model.meta.locale;
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
-  const pct = (value: number | null | undefined, digits = 0) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : formatPercent(locale, value, digits));
-  const num = (value: number | null | undefined, digits = 1) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : formatNumber(locale, value, digits));
-  const signed = (value: number | null | undefined, digits = 1) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`);
-  const p = (value: number | null | undefined) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : value < 0.001 ? '< 0.001' : formatNumber(locale, value, 3));
+  const { t, pct, num, signed, p } = formatters(locale);
 
   const statusWords = (status: Status) => (status.kind === 'stated' ? t(`band.${status.bandKey}`) : status.kind === 'low-coverage' ? 'not stated: too little seen' : 'not stated: baseline too short');
   const statusRow = (name: string, group: GroupSurface) => {
@@ -50,8 +59,8 @@ export function views(model: BulletinModel) {
         ['Standardized anomaly', signed(regionStated?.standardized, 2)],
         ['Percentile rank among baseline years', regionStated ? formatNumber(locale, regionStated.percentileRank, 0) : '–'],
         ['Status', statusWords(regionStatus)],
-        [`Change from ${formatMonth(locale, parseIndex(model.meta.month) - 12)}, percentage points`, signed(regionStated?.changeFromLastYear)],
-        [`Change from ${formatMonth(locale, parseIndex(model.meta.month) - 1)}, percentage points`, signed(regionStated?.changeFromPreviousMonth)],
+        [`Change from ${formatMonth(locale, (parseMonth(model.meta.month) as number) - 12)}, percentage points`, signed(regionStated?.changeFromLastYear)],
+        [`Change from ${formatMonth(locale, (parseMonth(model.meta.month) as number) - 1)}, percentage points`, signed(regionStated?.changeFromPreviousMonth)],
         ['Seen by satellite', pct(regionStatus.coveragePercent)],
         ['Filled in from neighbouring months', pct(regionStated?.filledPercent)],
       ],
@@ -162,7 +171,6 @@ export function views(model: BulletinModel) {
   };
 }
 
-const parseIndex = (label: string) => Number(label.slice(0, 4)) * 12 + Number(label.slice(5, 7)) - 1;
 const cellWords: Record<string, string> = { stated: 'shown', 'too-few-bodies': 'too few water bodies', 'low-coverage': 'too little seen', 'short-baseline': 'baseline too short' };
 const methodWords: Record<string, string> = { 'seasonal-kendall': 'seasonal Kendall', 'seasonal-kendall-covariance': 'seasonal Kendall, covariance-corrected', 'mann-kendall-hamed-rao': 'Mann-Kendall, autocorrelation-corrected' };
 const directionWords: Record<string, string> = { decline: 'decline holds', rise: 'rise holds', none: 'no trend shown', untested: 'not tested' };
@@ -170,8 +178,7 @@ const directionWords: Record<string, string> = { decline: 'decline holds', rise:
 /** One sub-region's page: its status, trend, water bodies and rainfall, formatted. */
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
-  const t = (key: string) => formatMessage(loadMessages(locale), key);
-  const pct = (value: number | null | undefined) => (value === null || value === undefined || !Number.isFinite(value) ? '–' : formatPercent(locale, value));
+  const { t, pct } = formatters(locale);
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -205,7 +212,7 @@ export function subRegionView(model: BulletinModel, id: string) {
 /** One monitored water body's page, formatted. */
 export function bodyView(model: BulletinModel, index: number) {
   const locale = model.meta.locale;
-  const t = (key: string) => formatMessage(loadMessages(locale), key);
+  const { t } = formatters(locale);
   const body = model.bodies[index] as BulletinModel['bodies'][number];
   const own = model.bodyStatus[index];
   const monitored = model.monitored.find((entry) => entry.body === index);
