@@ -50,3 +50,21 @@ export function copyFinite(values: ArrayLike<number | null | undefined>, into: F
   }
   return n;
 }
+
+/**
+ * finitePairs without an allocation: copies the pairs where both members are finite into
+ * `intoTimes` and `intoValues` (long enough) and returns how many there were. Cost O(n).
+ */
+export function copyFinitePairs(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, intoTimes: Float64Array, intoValues: Float64Array): number {
+  if (times.length !== values.length) throw new RangeError('times and values must have the same length');
+  let n = 0;
+  for (let k = 0; k < values.length; k++) {
+    const time = times[k];
+    const value = values[k];
+    if (typeof time === 'number' && time - time === 0 && typeof value === 'number' && value - value === 0) {
+      intoTimes[n] = time;
+      intoValues[n++] = value;
+    }
+  }
+  return n;
+}

@@ -2,7 +2,7 @@ import type { TrendReason } from './mannKendall.ts';
 import { kendallScore } from './kendallScore.ts';
 import { scratch } from './scratch.ts';
 import { normalSurvival } from './normalSurvival.ts';
-import { selectKth } from './selectKth.ts';
+import { selectRanks } from './selectRanks.ts';
 
 export interface SeasonResult {
   /** Calendar month 1–12. */
@@ -62,7 +62,7 @@ export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<num
   let s = 0;
   let varianceS = 0;
   let n = 0;
-  const slopes = new Float64Array((12 * grid.years * (grid.years - 1)) / 2);
+  const slopes = scratch('seasonal-slopes', (12 * grid.years * (grid.years - 1)) / 2);
   let slopeCount = 0;
   const observed = scratch('seasonal-observed', grid.years);
   for (let season = 0; season < 12; season++) {
@@ -85,7 +85,7 @@ export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<num
     varianceS += seasonVariance;
     n += count;
   }
-  const slope = medianOf(slopes.subarray(0, slopeCount));
+  const slope = medianOf(slopes, slopeCount);
   const fewestYears = Math.min(...seasons.map((season) => season.n));
   const covariance: SeasonalKendallResult['covariance'] =
     fewestYears >= neededYears && varianceS > 0
@@ -115,7 +115,9 @@ function yearGrid(months: ArrayLike<number>, values: ArrayLike<number | null | u
     last = Math.max(last, year);
   }
   const years = Number.isFinite(first) ? last - first + 1 : 0;
-  const columns = Array.from({ length: 12 }, () => new Float64Array(years).fill(Number.NaN));
+  // One work buffer cut into twelve columns: no allocation per call (the grid never leaves this module's callers).
+  const cells = scratch('seasonal-grid', 12 * years).fill(Number.NaN, 0, 12 * years);
+  const columns = Array.from({ length: 12 }, (_, month) => cells.subarray(month * years, (month + 1) * years));
   for (let k = 0; k < months.length; k++) {
     const value = values[k];
     if (typeof value !== 'number' || !Number.isFinite(value)) continue;
@@ -167,10 +169,9 @@ function withCovariance(grid: YearGrid, s: number, seasonVarianceSum: number): {
   return { applied: true, varianceS, z, p: varianceS > 0 ? Math.min(1, 2 * normalSurvival(Math.abs(z))) : 1 };
 }
 
-function medianOf(work: Float64Array): number {
-  const count = work.length;
+/** Median of the first `count` values of a work buffer (reordered on the way). */
+function medianOf(work: Float64Array, count: number): number {
   if (count === 0) return Number.NaN;
-  const low = selectKth(work, Math.floor((count - 1) / 2));
-  if (count % 2 === 1) return low;
-  return (low + selectKth(work, count / 2, Math.floor((count - 1) / 2))) / 2;
+  const found = selectRanks(work, count, count % 2 === 1 ? [(count - 1) / 2] : [count / 2 - 1, count / 2]);
+  return count % 2 === 1 ? (found[0] as number) : ((found[0] as number) + (found[1] as number)) / 2;
 }

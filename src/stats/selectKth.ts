@@ -17,7 +17,7 @@ export function selectKth(values: Float64Array, k: number, from = 0, to = values
   if (!(k >= from && k <= to)) throw new RangeError('selectKth requires from ≤ k ≤ to');
   let left = from;
   let right = to;
-  const sample = new Float64Array(SAMPLE);
+  const sample = SAMPLE_BUFFER;
   while (right - left > 32) {
     const pivot = samplePivot(values, left, right, k, sample);
     const below = partitionBelow(values, left, right, pivot);
@@ -34,6 +34,8 @@ export function selectKth(values: Float64Array, k: number, from = 0, to = values
 }
 
 const SAMPLE = 31;
+/** Reused between calls (each worker thread has its own): an allocation costs as much as a small selection. */
+const SAMPLE_BUFFER = new Float64Array(SAMPLE);
 
 /** The sample element whose rank in the sample matches k's rank in the range. */
 function samplePivot(values: Float64Array, left: number, right: number, k: number, sample: Float64Array): number {

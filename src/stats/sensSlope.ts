@@ -1,8 +1,8 @@
-import { finitePairs } from './finiteValues.ts';
+import { copyFinitePairs } from './finiteValues.ts';
 import { kendallScore } from './kendallScore.ts';
 import { normalQuantile } from './normalQuantile.ts';
 import { scratch } from './scratch.ts';
-import { selectKth } from './selectKth.ts';
+import { selectRanks } from './selectRanks.ts';
 import type { TrendReason } from './mannKendall.ts';
 
 export interface SensSlopeResult {
@@ -31,16 +31,17 @@ export interface SensSlopeResult {
  * scipy.stats.theilslopes), and kept within 1..N. The intercept is the "separate medians" one of
  * Conover (1980), scipy's default.
  *
- * Selecting the median and the two limits dominates the cost, so the slopes are never sorted:
- * Floyd & Rivest's (1975) selection finds the four ranks in expected O(N) comparisons (see
- * selectKth). O(n²) time in all, O(N) work memory reused between calls.
+ * Selecting the median and the two limits dominates the cost, so the slopes are never sorted: a
+ * sample brackets the four ranks and they are selected among the slopes inside the bracket (see
+ * selectRanks), expected O(N). O(n²) time in all, O(N) work memory reused between calls.
  */
 export function sensSlope(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, { confidence = 0.95 } = {}): SensSlopeResult {
   if (!(confidence > 0 && confidence < 1)) throw new RangeError('sensSlope requires a confidence between 0 and 1');
-  const { times: t, values: y } = finitePairs(times, values);
-  const n = y.length;
-  const timeTies = kendallScore(t);
-  const valueTies = kendallScore(y);
+  const t = scratch('sen-times', times.length);
+  const y = scratch('sen-values', values.length);
+  const n = copyFinitePairs(times, values, t, y);
+  const timeTies = increasing(t, n) ? { tiedPairs: 0, varianceTerm: 0, median: (t[Math.floor((n - 1) / 2)]! + t[Math.ceil((n - 1) / 2)]!) / 2 } : kendallScore(t, n);
+  const valueTies = kendallScore(y, n);
   // Pairs tied in time have no slope.
   const count = (n * (n - 1)) / 2 - timeTies.tiedPairs;
   const none = { n, slopes: count, slope: Number.NaN, intercept: Number.NaN, lower: Number.NaN, upper: Number.NaN, confidence };
@@ -67,24 +68,18 @@ export function sensSlope(times: ArrayLike<number | null | undefined>, values: A
     }
   }
   const ranks = [...new Set([lowerIndex, middleLow, middleHigh, upperIndex])].sort((a, b) => a - b);
-  const found = selectRanks(slopes.subarray(0, count), ranks);
+  const found = selectRanks(slopes, count, ranks);
   const at = (rank: number) => found[ranks.indexOf(rank)] as number;
   const slope = (at(middleLow) + at(middleHigh)) / 2;
   const intercept = valueTies.median - slope * timeTies.median;
   return { ...none, slope, intercept, lower: at(lowerIndex), upper: at(upperIndex), reason: n < 3 ? 'too-few-values' : null };
 }
 
-/**
- * The values at the given ascending 0-based ranks: each is selected by Floyd-Rivest in the part of
- * the array the previous selection left above it, so later searches get shorter. O(N) expected.
- */
-function selectRanks(values: Float64Array, ranks: number[]): number[] {
-  let from = 0;
-  return ranks.map((rank) => {
-    const value = selectKth(values, rank, from, values.length - 1);
-    from = rank;
-    return value;
-  });
+/** Whether the first n times are strictly increasing (the usual case: then no pair is tied in time). */
+function increasing(t: Float64Array, n: number): boolean {
+  let ordered = 1;
+  for (let k = 1; k < n; k++) ordered &= +((t[k] as number) > (t[k - 1] as number));
+  return ordered === 1;
 }
 
 /** Nearest whole number, halves to the even neighbour (IEEE 754 roundTiesToEven). */
