@@ -11,6 +11,7 @@ import { issueFolders } from './ingest/issues.ts';
 import { buildModel, type BulletinModel } from './model/index.ts';
 import { renderSite, type IssueBundle } from './render/index.ts';
 import { publishAtomically } from './site/publish.ts';
+import { closeSharedPool } from './parallel/pool.ts';
 
 export interface BuildOptions {
   bulletinFolder: string;
@@ -43,6 +44,14 @@ export function issuePaths(issues: Array<{ month: number; revision: number }>): 
 }
 
 export async function build(options: BuildOptions): Promise<BuildResult> {
+  try {
+    return await buildStages(options);
+  } finally {
+    await closeSharedPool();
+  }
+}
+
+async function buildStages(options: BuildOptions): Promise<BuildResult> {
   const log = options.log ?? (() => {});
   // Wall time per stage, for the closing summary (progress only: nothing of it reaches the site).
   const times: Array<[string, number]> = [];

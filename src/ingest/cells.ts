@@ -55,6 +55,11 @@ export class CellReader {
         return Number.NaN;
       }
     }
+    if (!Number.isFinite(value)) {
+      // Plain decimal notation can still overflow (1e999).
+      this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', 'the value is not a finite number');
+      return Number.NaN;
+    }
     if (value < min || value > max) {
       this.fail(line, column, cell, 'value-out-of-range', max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
       return Number.NaN;

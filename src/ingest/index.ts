@@ -3,7 +3,7 @@
  * and one list of problems. Nothing here computes a statistic.
  */
 import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { closeSync, openSync, readSync } from 'node:fs';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
@@ -48,9 +48,21 @@ export interface IngestResult {
   problems: ProblemList;
 }
 
+/** SHA-256 of a file read in 8 MB pieces, so a table of gigabytes is never held whole. */
 function hashFile(folder: string, path: string): InputFile {
-  const bytes = readFileSync(join(folder, path));
-  return { path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.length };
+  const hash = createHash('sha256');
+  const handle = openSync(join(folder, path), 'r');
+  const piece = Buffer.allocUnsafe(8 << 20);
+  let bytes = 0;
+  try {
+    for (let read = readSync(handle, piece, 0, piece.length, bytes); read > 0; read = readSync(handle, piece, 0, piece.length, bytes)) {
+      hash.update(piece.subarray(0, read));
+      bytes += read;
+    }
+  } finally {
+    closeSync(handle);
+  }
+  return { path, sha256: hash.digest('hex'), bytes };
 }
 
 /**

@@ -2,6 +2,9 @@
  * Months are handled as whole numbers (year × 12 + month − 1) so gaps and differences are plain
  * arithmetic; labels stay `YYYY-MM` everywhere a person reads them.
  */
+/** The earliest month a table may hold; older rows are refused as out of range. */
+export const FIRST_MONTH = 1950 * 12;
+
 export function parseMonth(label: string): number | null {
   // By character codes: this runs for every row of the large tables.
   if (label.length !== 7 || label.charCodeAt(4) !== 45) return null;

@@ -6,7 +6,8 @@
 import { CellReader, type DecimalMark } from './cells.ts';
 import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
 import { readTable } from './csv.ts';
-import { monthLabel } from './months.ts';
+import { readAreaFast, readQualityFast } from './largeTables.ts';
+import { FIRST_MONTH, monthLabel } from './months.ts';
 import type { ProblemList } from './problems.ts';
 
 export interface WaterBody {
@@ -90,10 +91,11 @@ export interface ReadContext {
   problems: ProblemList;
   bulletinMonth: number;
   decimal: DecimalMark | 'auto';
+  /** false: always the general reader (tests compare the two paths). Default true. */
+  fastPath?: boolean;
 }
 
-/** The earliest month a table may hold; older rows are refused as out of range. */
-export const FIRST_MONTH = 1950 * 12;
+export { FIRST_MONTH } from './months.ts';
 
 const spec = (required: string[], optional: string[] = []) => [...required.map((name) => ({ name, required: true })), ...optional.map((name) => ({ name, required: false }))];
 
@@ -153,6 +155,9 @@ export async function readInventory(path: string, label: string, context: ReadCo
 }
 
 export async function readSurfaceArea(path: string, label: string, bodies: WaterBody[], context: ReadContext): Promise<AreaTable> {
+  // A clean plain CSV takes the fast path; anything it cannot vouch for is read below and reported.
+  const fast = context.fastPath === false ? null : await readAreaFast(path, bodies, context);
+  if (fast) return fast;
   const index = new Map(bodies.map((body, k) => [body.id, k]));
   const cells = new CellReader(label, context.problems, context.decimal);
   const later = new LaterMonths(label, context);
@@ -214,6 +219,8 @@ function reportDuplicates(duplicates: Array<{ body: number; month: number; line:
 const QUANTILE_COLUMNS = ['p10', 'p25', 'median', 'p75', 'p90'] as const;
 
 export async function readQuality(path: string, label: string, bodies: WaterBody[], context: ReadContext): Promise<QualityTable> {
+  const fast = context.fastPath === false ? null : await readQualityFast(path, bodies, context);
+  if (fast) return fast;
   const index = new Map(bodies.map((body, k) => [body.id, k]));
   const cells = new CellReader(label, context.problems, context.decimal);
   const later = new LaterMonths(label, context);

@@ -1,0 +1,93 @@
+/**
+ * One pool of worker threads for the whole build, shared by the stages that split their work
+ * (reading the large tables, the trend tests), so each thread pays its start-up (loading the
+ * TypeScript sources, about a second here) once. Tasks go to the first idle thread; results come
+ * back as the task's promise. Idle threads do not keep the process alive.
+ */
+import { availableParallelism } from 'node:os';
+import { Worker, type Transferable } from 'node:worker_threads';
+import type { TaskName, TaskInput, TaskOutput } from './tasks.ts';
+
+interface Pending {
+  resolve: (value: unknown) => void;
+  reject: (error: Error) => void;
+}
+
+interface Slot {
+  worker: Worker;
+  busy: boolean;
+}
+
+export class WorkerPool {
+  private readonly slots: Slot[] = [];
+  private readonly queue: Array<{ id: number; name: TaskName; input: unknown; transfer: Transferable[] }> = [];
+  private readonly pending = new Map<number, Pending>();
+  private nextId = 0;
+
+  constructor(readonly size = defaultWorkers()) {}
+
+  run<N extends TaskName>(name: N, input: TaskInput<N>, transfer: Transferable[] = []): Promise<TaskOutput<N>> {
+    const id = this.nextId++;
+    const promise = new Promise<TaskOutput<N>>((resolve, reject) => this.pending.set(id, { resolve: resolve as (value: unknown) => void, reject }));
+    this.queue.push({ id, name, input, transfer });
+    this.dispatch();
+    return promise;
+  }
+
+  async close(): Promise<void> {
+    const slots = this.slots.splice(0);
+    await Promise.all(slots.map((slot) => slot.worker.terminate()));
+  }
+
+  private dispatch(): void {
+    while (this.queue.length > 0) {
+      let slot = this.slots.find((candidate) => !candidate.busy);
+      if (!slot && this.slots.length < this.size) slot = this.spawn();
+      if (!slot) return;
+      const task = this.queue.shift() as (typeof this.queue)[number];
+      slot.busy = true;
+      slot.worker.ref();
+      slot.worker.postMessage({ id: task.id, name: task.name, input: task.input }, task.transfer);
+    }
+  }
+
+  private spawn(): Slot {
+    const worker = new Worker(new URL('./workerEntry.js', import.meta.url));
+    const slot: Slot = { worker, busy: false };
+    worker.on('message', (message: { id: number; output?: unknown; error?: string }) => {
+      const pending = this.pending.get(message.id);
+      this.pending.delete(message.id);
+      slot.busy = false;
+      worker.unref();
+      if (message.error !== undefined) pending?.reject(new Error(message.error));
+      else pending?.resolve(message.output);
+      this.dispatch();
+    });
+    worker.on('error', (error) => {
+      for (const pending of this.pending.values()) pending.reject(error);
+      this.pending.clear();
+    });
+    this.slots.push(slot);
+    return slot;
+  }
+}
+
+/** Threads to use: the machine's cores, at most 8 (beyond that the copying dominates). */
+export function defaultWorkers(): number {
+  return Math.max(1, Math.min(8, availableParallelism()));
+}
+
+let shared: WorkerPool | null = null;
+
+/** The process's pool, started on first use. */
+export function sharedPool(): WorkerPool {
+  shared ??= new WorkerPool();
+  return shared;
+}
+
+/** Stops the process's pool (a later sharedPool() starts a new one). */
+export async function closeSharedPool(): Promise<void> {
+  const pool = shared;
+  shared = null;
+  await pool?.close();
+}

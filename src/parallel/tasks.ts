@@ -1,0 +1,14 @@
+/**
+ * The tasks a worker thread can run, by name: the one table the pool and the workers share, so a
+ * task's input and output types are checked on both sides.
+ */
+import { scanRange, type ScanInventory, type ScanResult, type ScanTask } from '../ingest/plainScan.ts';
+
+export const TASKS = {
+  /** One byte range of a large table (see ingest/plainScan.ts). */
+  scan: (input: { task: ScanTask; inventory: ScanInventory }): ScanResult => scanRange(input.task, input.inventory),
+};
+
+export type TaskName = keyof typeof TASKS;
+export type TaskInput<N extends TaskName> = Parameters<(typeof TASKS)[N]>[0];
+export type TaskOutput<N extends TaskName> = ReturnType<(typeof TASKS)[N]>;
