@@ -8,10 +8,10 @@ import { fileURLToPath } from 'node:url';
 import { buildCharts, type ChartSet } from './charts/index.ts';
 import { InputError, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
 import { issueFolders } from './ingest/issues.ts';
-import { buildModel, type BulletinModel } from './model/index.ts';
+import { buildModel, prepareModel, type BulletinModel } from './model/index.ts';
 import { renderSite, type IssueBundle } from './render/index.ts';
 import { publishAtomically } from './site/publish.ts';
-import { closeSharedPool } from './parallel/pool.ts';
+import { closeSharedPool, sharedPool } from './parallel/pool.ts';
 
 export interface BuildOptions {
   bulletinFolder: string;
@@ -85,7 +85,11 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
 
   log('2/5 computing the bulletin models');
   const paths = issuePaths(loaded.map(({ inputs }) => ({ month: inputs.bulletinMonth, revision: inputs.config.issue.revision })));
-  const models = loaded.map(({ inputs, warnings: own }, k) => buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string }));
+  const models: BulletinModel[] = [];
+  for (const [k, { inputs, warnings: own }] of loaded.entries()) {
+    const prepared = await prepareModel(inputs, sharedPool());
+    models.push(buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string, prepared }));
+  }
   lap('model');
 
   log('3/5 rendering charts');

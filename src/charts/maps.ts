@@ -143,12 +143,30 @@ export function subRegionMapChart(model: BulletinModel): ChartDefinition {
   };
 }
 
+/**
+ * The most bodies the status map draws. Beyond it the symbols would hide each other and the page
+ * would outgrow its weight limit, so the map keeps the bodies with pages of their own and then the
+ * largest, and says so; the grid map and the water-body index still cover every body.
+ */
+export const MAP_BODY_LIMIT = 1000;
+
+/** Positions of the bodies the status map draws, in inventory order. */
+export function mappedBodies(model: BulletinModel): number[] {
+  const all = model.bodies.map((_, k) => k);
+  if (all.length <= MAP_BODY_LIMIT) return all;
+  const chosen = all.sort((a, b) => Number(model.bodies[b]?.ownPage) - Number(model.bodies[a]?.ownPage) || (model.bodies[b]?.referenceHa ?? 0) - (model.bodies[a]?.referenceHa ?? 0) || a - b).slice(0, MAP_BODY_LIMIT);
+  return chosen.sort((a, b) => a - b);
+}
+
 export function bodiesMapChart(model: BulletinModel): ChartDefinition {
   const style = bandStyle(model);
-  const values = model.bodies.map((body, k) => {
+  const shown = mappedBodies(model);
+  const values = shown.map((k) => {
+    const body = model.bodies[k] as BulletinModel['bodies'][number];
     const status = model.bodyStatus[k];
     return { name: body.name, lon: body.lon, lat: body.lat, area: Math.round(body.referenceHa * 10) / 10, status: style.label(status?.bandKey ?? null) };
   });
+  const subset = shown.length < model.bodies.length ? ` It shows ${shown.length} of the ${model.bodies.length} water bodies: those with a page of their own, then the largest; the grid map and the water-body index cover them all.` : '';
   const domain = [...style.labels, 'not stated'];
   const spec = mapSpec(model, [
       { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.2 } },
@@ -168,7 +186,7 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
   return {
     id: 'bodies-map',
     title: `Water bodies by status, ${model.meta.monthName}`,
-    description: `Map of the water bodies as symbols sized by reference area; the symbol's shape and colour give its status (down-pointing below usual, circle near usual, up-pointing above usual, cross not stated): ${counts.join(', ')}.`,
+    description: `Map of the water bodies as symbols sized by reference area; the symbol's shape and colour give its status (down-pointing below usual, circle near usual, up-pointing above usual, cross not stated): ${counts.join(', ')}.${subset}`,
     spec,
     table: { caption: 'Water bodies by status', columns: ['Water body', 'Reference area, ha', 'Status'], rows: values.map((row) => [row.name, row.area, row.status]) },
   };

@@ -18,34 +18,50 @@ export interface GroupMonth {
   bodiesWithValue: number;
 }
 
-export function aggregate(series: BodySeries, members: number[], referenceHa: ArrayLike<number>, minCoveragePercent: number): GroupMonth[] {
+/**
+ * `keep` limits the months computed (a status needs only its own calendar month and the month
+ * before): the rows of other months are left out. Bodies are visited one by one over their months
+ * (each body's arrays read in order), summing in member order month by month as before.
+ */
+export function aggregate(series: BodySeries, members: ArrayLike<number>, referenceHa: ArrayLike<number>, minCoveragePercent: number, keep?: (month: number) => boolean): GroupMonth[] {
   let total = 0;
-  for (const body of members) total += referenceHa[body] as number;
-  const out: GroupMonth[] = [];
-  for (let slot = 0; slot < series.months; slot++) {
-    let water = 0;
-    let reference = 0;
-    let observed = 0;
-    let filled = 0;
-    let count = 0;
-    for (const body of members) {
-      const state = (series.state[body] as Uint8Array)[slot];
+  for (let m = 0; m < members.length; m++) total += referenceHa[members[m] as number] as number;
+  const slots: number[] = [];
+  for (let slot = 0; slot < series.months; slot++) if (!keep || keep(series.firstMonth + slot)) slots.push(slot);
+  const water = new Float64Array(slots.length);
+  const reference = new Float64Array(slots.length);
+  const observed = new Float64Array(slots.length);
+  const filled = new Float64Array(slots.length);
+  const count = new Int32Array(slots.length);
+  for (let m = 0; m < members.length; m++) {
+    const body = members[m] as number;
+    const states = series.state[body] as Uint8Array;
+    const filling = series.filling[body] as Float64Array;
+    const ha = referenceHa[body] as number;
+    for (let s = 0; s < slots.length; s++) {
+      const slot = slots[s] as number;
+      const state = states[slot];
       if (state !== OBSERVED && state !== FILLED) continue;
-      const ha = referenceHa[body] as number;
-      water += ((series.filling[body] as Float64Array)[slot] as number) * ha;
-      reference += ha;
-      count++;
-      if (state === OBSERVED) observed += ha;
-      else filled += ha;
+      water[s] = (water[s] as number) + (filling[slot] as number) * ha;
+      reference[s] = (reference[s] as number) + ha;
+      count[s] = (count[s] as number) + 1;
+      if (state === OBSERVED) observed[s] = (observed[s] as number) + ha;
+      else filled[s] = (filled[s] as number) + ha;
     }
-    const coveragePercent = total > 0 ? (100 * observed) / total : 0;
-    out.push({
-      month: series.firstMonth + slot,
-      fillingPercent: reference > 0 && coveragePercent >= minCoveragePercent ? water / reference : null,
-      coveragePercent,
-      filledPercent: total > 0 ? (100 * filled) / total : 0,
-      bodiesWithValue: count,
-    });
   }
-  return out;
+  return slots.map((slot, s) => {
+    const coveragePercent = total > 0 ? (100 * (observed[s] as number)) / total : 0;
+    return {
+      month: series.firstMonth + slot,
+      fillingPercent: (reference[s] as number) > 0 && coveragePercent >= minCoveragePercent ? (water[s] as number) / (reference[s] as number) : null,
+      coveragePercent,
+      filledPercent: total > 0 ? (100 * (filled[s] as number)) / total : 0,
+      bodiesWithValue: count[s] as number,
+    };
+  });
+}
+
+/** The months a status reads: the bulletin's calendar month in every year, and the month before the bulletin. */
+export function statusMonths(bulletinMonth: number): (month: number) => boolean {
+  return (month) => month % 12 === bulletinMonth % 12 || month === bulletinMonth - 1;
 }

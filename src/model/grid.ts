@@ -7,7 +7,7 @@
  */
 import type { BulletinInputs } from '../ingest/index.ts';
 import type { BodySeries } from './bodySeries.ts';
-import { group } from './surfaceWater.ts';
+import { groupStatus } from './surfaceWater.ts';
 
 export type CellState = 'stated' | 'too-few-bodies' | 'low-coverage' | 'short-baseline';
 
@@ -54,7 +54,7 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
       const base = { west: round(column * cellDegrees), south: round(row * cellDegrees), size: cellDegrees, bodies: members.length };
       const empty = { fillingPercent: null, baselineMean: null, baselineStandardDeviation: null, standardized: null, anomalyPoints: null };
       if (members.length < minBodies) return { ...base, state: 'too-few-bodies' as const, ...empty };
-      const status = group(inputs, series, `${column} ${row}`, '', members).status;
+      const status = groupStatus(inputs, series, members);
       if (status.kind === 'low-coverage') return { ...base, state: 'low-coverage' as const, ...empty };
       if (status.kind === 'short-baseline') return { ...base, state: 'short-baseline' as const, ...empty, fillingPercent: status.fillingPercent };
       return {

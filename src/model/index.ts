@@ -7,16 +7,17 @@ import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, formatProblem, monthLabel } from '../ingest/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
-import { aggregate } from './aggregate.ts';
-import { bodySeries } from './bodySeries.ts';
+import { aggregate, statusMonths } from './aggregate.ts';
+import { bodySeries, type BodySeries } from './bodySeries.ts';
+import type { WorkerPool } from '../parallel/pool.ts';
 import { statusOf } from './status.ts';
 import { grid, type Grid } from './grid.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
 import { METHODS } from './methods.ts';
-import { quality, type Quality } from './quality.ts';
+import { prepareQuality, quality, type PreparedQuality, type Quality } from './quality.ts';
 import { rainfall, type RainfallSummary } from './rainfall.ts';
-import { surfaceWater, type SurfaceWater } from './surfaceWater.ts';
-import { bodyTrends, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary } from './trends.ts';
+import { referenceAreasOf, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
+import { bodyTrends, bodyTrendTests, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary, type TrendTest } from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
 
 export type { Status } from './status.ts';
@@ -81,6 +82,21 @@ export interface BulletinModel {
 export interface ModelOptions {
   /** Site path of the issue; by default /issues/YYYY-MM/. Earlier revisions live below it. */
   issuePath?: string;
+  /** The body series and their trend tests when computed beforehand (prepareModel, on worker threads). */
+  prepared?: PreparedModel;
+}
+
+export interface PreparedModel {
+  series: BodySeries;
+  bodyTests: Array<TrendTest | null>;
+  quality: PreparedQuality | null;
+}
+
+/** The parts of the model worth spreading over worker threads for a large inventory. */
+export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool): Promise<PreparedModel> {
+  const series = bodySeries(inputs);
+  const [bodyTests, waterQuality] = await Promise.all([bodyTrendTests(series, inputs.config.trends, pool), prepareQuality(inputs, pool)]);
+  return { series, bodyTests, quality: waterQuality };
 }
 
 export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
@@ -89,11 +105,13 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
   const pct = (value: number) => formatPercent(locale, value);
 
-  const series = bodySeries(inputs);
+  const series = options.prepared?.series ?? bodySeries(inputs);
+  const referenceAreas = referenceAreasOf(inputs);
+  const forStatus = statusMonths(bulletinMonth);
   const surface = surfaceWater(inputs, series);
-  const trendsOfBodies = bodyTrends(series, inputs.bodies, config);
+  const trendsOfBodies = bodyTrends(series, inputs.bodies, config, options.prepared?.bodyTests);
   const trendsOfRegion = groupTrends([surface.region], config);
-  const waterQuality = quality(inputs);
+  const waterQuality = quality(inputs, options.prepared?.quality);
   const firstYear = Math.floor(series.firstMonth / 12);
   const key = keyMessages({ locale, bulletinMonth, firstYear, surface, bodyTrends: trendsOfBodies, regionTrend: trendsOfRegion.entries[0]?.test ?? null, quality: waterQuality });
 
@@ -142,7 +160,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
     bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
     surfaceWater: surface,
     bodyStatus: inputs.bodies.map((_, k) => {
-      const status = statusOf(aggregate(series, [k], inputs.bodies.map((body) => body.referenceHa), 100 * config.coverage.minObservedShare), bulletinMonth, config);
+      const status = statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config);
       return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
     }),
     monitored: inputs.bodies.flatMap((body, k) => {

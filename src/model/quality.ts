@@ -16,7 +16,8 @@ import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { benjaminiHochberg, mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
 import { sizeClassBounds } from './surfaceWater.ts';
-import { trendTest, type TrendTest } from './trends.ts';
+import { manyTrendTests, trendTest, type TrendTest } from './trends.ts';
+import type { WorkerPool } from '../parallel/pool.ts';
 
 /**
  * WHO (2003), Guidelines for Safe Recreational Water Environments, Vol. 1, ch. 8: chlorophyll-a of
@@ -82,7 +83,7 @@ function binOf(value: number, edges: number[]): number {
   return edges.length - 2;
 }
 
-function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths): QualityParameterSummary {
+function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared?: Array<TrendTest | null>): QualityParameterSummary {
   const { bodies, config, bulletinMonth } = inputs;
   const reference = bodies.map((body) => body.referenceHa);
   const monthly = Array.from({ length: data.months }, (_, slot) => {
@@ -112,7 +113,7 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
   });
 
   const months = Int32Array.from({ length: data.months }, (_, k) => data.firstMonth + k);
-  const tests = data.values.map((series) => trendTest(months, series, config));
+  const tests = prepared ?? data.values.map((series) => trendTest(months, series, config));
   const adjusted = benjaminiHochberg(tests.map((test) => test?.p ?? null), config.trends.falseDiscoveryRate);
   const entries = bodies.map((body, k) => {
     const test = tests[k] ?? null;
@@ -175,9 +176,28 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
   return out;
 }
 
-export function quality(inputs: BulletinInputs): Quality | null {
+/** Per parameter, its monthly body values and their trend tests, when computed beforehand (see prepareQuality). */
+export type PreparedQuality = Array<{ parameter: QualityParameter; data: ParameterMonths; tests: Array<TrendTest | null> }>;
+
+/** The body values of each parameter and their trend tests, on the worker pool for a large inventory. */
+export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool): Promise<PreparedQuality | null> {
   if (!inputs.quality || inputs.quality.length === 0) return null;
-  const byParameter = QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter) }));
+  return Promise.all(
+    QUALITY_PARAMETERS.map(async (parameter) => {
+      const data = parameterMonths(inputs, parameter);
+      const rows = (from: number, to: number) => {
+        const matrix = new Float64Array((to - from) * data.months);
+        for (let body = from; body < to; body++) matrix.set(data.values[body] as Float64Array, (body - from) * data.months);
+        return matrix;
+      };
+      return { parameter, data, tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool) };
+    }),
+  );
+}
+
+export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null): Quality | null {
+  if (!inputs.quality || inputs.quality.length === 0) return null;
+  const byParameter = prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
   const chlorophyll = byParameter.find((entry) => entry.parameter === 'chlorophyll_a')?.data;
   const now = chlorophyll ? chlorophyll.values.map((series) => series[inputs.bulletinMonth - chlorophyll.firstMonth] as number) : [];
   const trophicBodies = inputs.bodies.flatMap((body, k) => {
@@ -188,7 +208,7 @@ export function quality(inputs: BulletinInputs): Quality | null {
   const withValue = now.filter(Number.isFinite);
   return {
     methods: ['quality-medians', 'quality-classes', 'trend-bodies', 'trophic', 'who-levels'],
-    parameters: byParameter.map(({ parameter, data }) => parameterSummary(inputs, parameter, data)),
+    parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests)),
     trophic: {
       bodies: trophicBodies,
       counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({ trophicClass: trophicClassName, upperBound: Number.isFinite(upper) ? upper : null, bodies: trophicBodies.filter((entry) => entry.trophicClass === trophicClassName).length })),

@@ -49,13 +49,13 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
   const current = series.find((entry) => entry.month === bulletinMonth);
   const thresholdPercent = 100 * config.coverage.minRegionCoverage;
   if (!current || current.fillingPercent === null) return { kind: 'low-coverage', coveragePercent: current?.coveragePercent ?? 0, thresholdPercent };
-  const months = series.map((entry) => entry.month);
-  const values = series.map((entry) => entry.fillingPercent);
-  const entry = climatology(months, values, config.baseline)[bulletinMonth % 12];
+  // Only the bulletin's calendar month enters its climatology.
+  const same = series.filter((row) => row.month % 12 === bulletinMonth % 12);
+  const entry = climatology(same.map((row) => row.month), same.map((row) => row.fillingPercent), config.baseline)[bulletinMonth % 12];
   if (!entry || !entry.enough) {
     return { kind: 'short-baseline', fillingPercent: current.fillingPercent, coveragePercent: current.coveragePercent, usableYears: entry?.count ?? 0, neededYears: config.baseline.minYears };
   }
-  const years = series.filter((row) => row.month % 12 === bulletinMonth % 12 && row.fillingPercent !== null && Math.floor(row.month / 12) >= config.baseline.firstYear && Math.floor(row.month / 12) <= config.baseline.lastYear).map((row) => Math.floor(row.month / 12));
+  const years = same.filter((row) => row.fillingPercent !== null && Math.floor(row.month / 12) >= config.baseline.firstYear && Math.floor(row.month / 12) <= config.baseline.lastYear).map((row) => Math.floor(row.month / 12));
   const result = anomaly(current.fillingPercent, entry);
   const at = (month: number) => series.find((row) => row.month === month)?.fillingPercent ?? null;
   const lastYear = at(bulletinMonth - 12);

@@ -6,7 +6,7 @@
  */
 import type { BulletinInputs } from '../ingest/index.ts';
 import { climatology } from '../stats/index.ts';
-import { aggregate, type GroupMonth } from './aggregate.ts';
+import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
 import { statusOf, type Status } from './status.ts';
 
@@ -43,8 +43,26 @@ export interface SurfaceWater {
   regionEnvelope: Array<{ calendarMonth: number; median: number | null; p10: number | null; p90: number | null }>;
 }
 
+const referenceAreas = new WeakMap<BulletinInputs, Float64Array>();
+
+/** Reference area of every body, in inventory order (made once per inputs). */
+export function referenceAreasOf(inputs: BulletinInputs): Float64Array {
+  let areas = referenceAreas.get(inputs);
+  if (!areas) {
+    areas = Float64Array.from(inputs.bodies, (body) => body.referenceHa);
+    referenceAreas.set(inputs, areas);
+  }
+  return areas;
+}
+
+/** The status alone of a group (grid cells): only the months it reads are aggregated. */
+export function groupStatus(inputs: BulletinInputs, series: BodySeries, members: number[]): Status {
+  const monthly = aggregate(series, members, referenceAreasOf(inputs), 100 * inputs.config.coverage.minRegionCoverage, statusMonths(inputs.bulletinMonth));
+  return statusOf(monthly, inputs.bulletinMonth, inputs.config);
+}
+
 export function group(inputs: BulletinInputs, series: BodySeries, id: string, name: string, members: number[]): GroupSurface {
-  const referenceHa = inputs.bodies.map((body) => body.referenceHa);
+  const referenceHa = referenceAreasOf(inputs);
   const monthly = aggregate(series, members, referenceHa, 100 * inputs.config.coverage.minRegionCoverage);
   return {
     id,

@@ -15,6 +15,7 @@ import type { BulletinConfig } from '../ingest/index.ts';
 import { benjaminiHochberg, hamedRao, kruskalWallis, median, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
 import { OBSERVED, type BodySeries } from './bodySeries.ts';
 import type { GroupMonth } from './aggregate.ts';
+import type { WorkerPool } from '../parallel/pool.ts';
 
 export type TrendMethod = 'seasonal-kendall' | 'seasonal-kendall-covariance' | 'mann-kendall-hamed-rao';
 
@@ -46,8 +47,11 @@ export interface TrendSummary {
   falseDiscoveryRate: number;
 }
 
+/** The settings a trend test reads (bulletin.json "trends"). */
+export type TrendSettings = BulletinConfig['trends'];
+
 /** The trend test of one monthly series (NaN = missing), or null when it is too short. */
-export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, config: BulletinConfig): TrendTest | null {
+export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, config: { trends: TrendSettings }): TrendTest | null {
   const keptMonths: number[] = [];
   const keptValues: number[] = [];
   for (let k = 0; k < values.length; k++) {
@@ -97,14 +101,92 @@ function summarize(entries: Array<{ id: string; name: string; test: TrendTest | 
   };
 }
 
-export function bodyTrends(series: BodySeries, bodies: Array<{ id: string; name: string }>, config: BulletinConfig): TrendSummary {
-  const months = Int32Array.from({ length: series.months }, (_, k) => series.firstMonth + k);
-  const entries = bodies.map((body, k) => {
-    const state = series.state[k] as Uint8Array;
-    const values = Float64Array.from(series.filling[k] as Float64Array, (value, slot) => (state[slot] === OBSERVED ? value : Number.NaN));
-    return { id: body.id, name: body.name, test: trendTest(months, values, config) };
-  });
+/**
+ * Trends of every water body; `tests` when they were computed beforehand (bodyTrendTests on the
+ * worker pool), otherwise here.
+ */
+export function bodyTrends(series: BodySeries, bodies: Array<{ id: string; name: string }>, config: BulletinConfig, tests?: Array<TrendTest | null>): TrendSummary {
+  const computed = tests ?? testBatch(series.firstMonth, series.months, observedValues(series, 0, bodies.length), config.trends);
+  const entries = bodies.map((body, k) => ({ id: body.id, name: body.name, test: computed[k] ?? null }));
   return summarize(entries, config.trends.falseDiscoveryRate);
+}
+
+/** Bodies per batch sent to a worker thread. */
+const BATCH = 2000;
+/** Below this many bodies the tests run in this thread (a worker's start-up would cost more). */
+const PARALLEL_BODIES = 4000;
+
+/**
+ * The trend test of every water body, on the worker pool for a large inventory. Each batch carries
+ * only the observed months of its bodies as one typed array; the results come back in body order,
+ * so they are the same whatever the number of threads.
+ */
+export function bodyTrendTests(series: BodySeries, trends: TrendSettings, pool: WorkerPool): Promise<Array<TrendTest | null>> {
+  return manyTrendTests(series.firstMonth, series.months, series.filling.length, (from, to) => observedValues(series, from, to), trends, pool);
+}
+
+/**
+ * The trend tests of `count` monthly series that share their months, given as body-major matrices
+ * of rows [from, to) (NaN = missing): in this thread for a few, in batches on the pool for many.
+ */
+export async function manyTrendTests(firstMonth: number, months: number, count: number, rows: (from: number, to: number) => Float64Array, trends: TrendSettings, pool: WorkerPool): Promise<Array<TrendTest | null>> {
+  if (count < PARALLEL_BODIES || pool.size < 2) return testBatch(firstMonth, months, rows(0, count), trends);
+  const batches: Array<Promise<EncodedTests>> = [];
+  for (let from = 0; from < count; from += BATCH) {
+    const values = rows(from, Math.min(count, from + BATCH));
+    batches.push(pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]));
+  }
+  return (await Promise.all(batches)).flatMap(decodeTests);
+}
+
+/** Observed filling of bodies [from, to), body-major, NaN where not observed. */
+function observedValues(series: BodySeries, from: number, to: number): Float64Array {
+  const values = new Float64Array((to - from) * series.months);
+  for (let body = from; body < to; body++) {
+    const filling = series.filling[body] as Float64Array;
+    const state = series.state[body] as Uint8Array;
+    const offset = (body - from) * series.months;
+    for (let slot = 0; slot < series.months; slot++) values[offset + slot] = state[slot] === OBSERVED ? (filling[slot] as number) : Number.NaN;
+  }
+  return values;
+}
+
+function testBatch(firstMonth: number, months: number, values: Float64Array, trends: TrendSettings): Array<TrendTest | null> {
+  const monthIndex = Int32Array.from({ length: months }, (_, k) => firstMonth + k);
+  const tests: Array<TrendTest | null> = [];
+  for (let offset = 0; offset < values.length; offset += months) tests.push(trendTest(monthIndex, values.subarray(offset, offset + months), { trends }));
+  return tests;
+}
+
+const METHOD_CODES: TrendMethod[] = ['seasonal-kendall', 'seasonal-kendall-covariance', 'mann-kendall-hamed-rao'];
+
+/** Trend tests as typed columns, to cross between threads cheaply; method −1 = not tested. */
+export interface EncodedTests {
+  method: Int8Array;
+  observedMonths: Int32Array;
+  seasonalityP: Float64Array;
+  slopePerYear: Float64Array;
+  p: Float64Array;
+}
+
+/** The worker side: a batch of series, tested and encoded. */
+export function encodedTestBatch(input: { firstMonth: number; months: number; values: Float64Array; trends: TrendSettings }): EncodedTests {
+  const tests = testBatch(input.firstMonth, input.months, input.values, input.trends);
+  const encoded: EncodedTests = { method: new Int8Array(tests.length), observedMonths: new Int32Array(tests.length), seasonalityP: new Float64Array(tests.length), slopePerYear: new Float64Array(tests.length), p: new Float64Array(tests.length) };
+  tests.forEach((test, k) => {
+    encoded.method[k] = test ? METHOD_CODES.indexOf(test.method) : -1;
+    encoded.observedMonths[k] = test?.observedMonths ?? 0;
+    encoded.seasonalityP[k] = test?.seasonalityP ?? Number.NaN;
+    encoded.slopePerYear[k] = test?.slopePerYear ?? Number.NaN;
+    encoded.p[k] = test?.p ?? Number.NaN;
+  });
+  return encoded;
+}
+
+function decodeTests(encoded: EncodedTests): Array<TrendTest | null> {
+  return Array.from(encoded.method, (code, k) =>
+    code < 0 ? null : { observedMonths: encoded.observedMonths[k] as number, seasonalityP: encoded.seasonalityP[k] as number, method: METHOD_CODES[code] as TrendMethod, slopePerYear: encoded.slopePerYear[k] as number, p: encoded.p[k] as number },
+  );
 }
 
 export function groupTrends(groups: Array<{ id: string; name: string; series: GroupMonth[] }>, config: BulletinConfig): TrendSummary {

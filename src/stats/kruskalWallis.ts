@@ -1,4 +1,6 @@
 import { chiSquareSurvival } from './chiSquareSurvival.ts';
+import { scratch } from './scratch.ts';
+import { sortedPositions } from './sortedPositions.ts';
 
 export interface KruskalWallisResult {
   /** Groups with at least one value. */
@@ -21,35 +23,50 @@ export interface KruskalWallisResult {
  * Missing values are skipped. Cost O(N log N).
  */
 export function kruskalWallis(groups: ArrayLike<number>, values: ArrayLike<number | null | undefined>): KruskalWallisResult {
-  const pairs: Array<[number, number]> = [];
+  // Values and their groups in work buffers, then sorted together by value (a stable merge sort
+  // of positions: no object per value, which mattered at a test per water body).
+  const kept = scratch('kruskal-values', values.length);
+  const keptGroups = scratch('kruskal-groups', values.length);
+  let n = 0;
   for (let k = 0; k < values.length; k++) {
     const value = values[k];
-    if (typeof value === 'number' && Number.isFinite(value)) pairs.push([groups[k] as number, value]);
+    if (typeof value === 'number' && value - value === 0) {
+      kept[n] = value;
+      keptGroups[n++] = groups[k] as number;
+    }
   }
-  pairs.sort((a, b) => a[1] - b[1]);
-  const n = pairs.length;
-  const rankSums = new Map<number, { sum: number; count: number }>();
+  const order = sortedPositions(kept, n);
+  // Rank sums by group: groups are keys of a map from group to its slot in the sums.
+  const slotOf = new Map<number, number>();
+  const sums: number[] = [];
+  const counts: number[] = [];
   let tieTerm = 0;
   for (let start = 0; start < n; ) {
+    const value = kept[order[start] as number] as number;
     let end = start;
-    while (end + 1 < n && (pairs[end + 1] as [number, number])[1] === (pairs[start] as [number, number])[1]) end++;
+    while (end + 1 < n && kept[order[end + 1] as number] === value) end++;
     const rank = (start + end) / 2 + 1;
     const size = end - start + 1;
     tieTerm += size ** 3 - size;
     for (let k = start; k <= end; k++) {
-      const group = (pairs[k] as [number, number])[0];
-      const entry = rankSums.get(group) ?? { sum: 0, count: 0 };
-      entry.sum += rank;
-      entry.count++;
-      rankSums.set(group, entry);
+      const group = keptGroups[order[k] as number] as number;
+      let slot = slotOf.get(group);
+      if (slot === undefined) {
+        slot = sums.length;
+        slotOf.set(group, slot);
+        sums.push(0);
+        counts.push(0);
+      }
+      sums[slot] = (sums[slot] as number) + rank;
+      counts[slot] = (counts[slot] as number) + 1;
     }
     start = end + 1;
   }
-  const groupCount = rankSums.size;
+  const groupCount = sums.length;
   const degreesOfFreedom = groupCount - 1;
   if (groupCount < 2) return { groups: groupCount, n, h: Number.NaN, degreesOfFreedom, p: Number.NaN, reason: 'too-few-groups' };
   let sum = 0;
-  for (const { sum: rankSum, count } of rankSums.values()) sum += (rankSum * rankSum) / count;
+  for (let slot = 0; slot < groupCount; slot++) sum += ((sums[slot] as number) * (sums[slot] as number)) / (counts[slot] as number);
   const correction = 1 - tieTerm / (n ** 3 - n);
   if (correction <= 0) return { groups: groupCount, n, h: 0, degreesOfFreedom, p: 1, reason: 'no-variance' };
   const h = ((12 / (n * (n + 1))) * sum - 3 * (n + 1)) / correction;
