@@ -6,6 +6,7 @@
  * whenever the fast path gave up or anything needs reporting: the caller then runs the general
  * reader, which reports it.
  */
+import { createHash } from 'node:crypto';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { sharedPool } from '../parallel/pool.ts';
 import { SeenBits } from './columns.ts';
@@ -46,7 +47,10 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   if (context.decimal === ',' || path.toLowerCase().endsWith('.parquet')) return null;
   const layout = rangesOf(path);
   if (!layout || !plainHeader(kind, layout.header)) return null;
-  const inventory: ScanInventory = { ids: bodies.map((body) => body.id), referenceHa: Float64Array.from(bodies, (body) => body.referenceHa) };
+  const ids = bodies.map((body) => body.id);
+  const referenceHa = Float64Array.from(bodies, (body) => body.referenceHa);
+  const key = createHash('sha256').update(ids.join('\n')).update(new Uint8Array(referenceHa.buffer)).digest('hex');
+  const inventory: ScanInventory = { key, ids, referenceHa };
   const tasks: ScanTask[] = layout.ranges.map(([start, end]) => ({ kind, path, start, end, header: layout.header, bulletinMonth: context.bulletinMonth }));
   const parallel = layout.size > PARALLEL_BYTES && sharedPool().size > 1;
   const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run('scan', { task, inventory }))) : tasks.map((task) => scanRange(task, inventory));

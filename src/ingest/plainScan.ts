@@ -38,8 +38,23 @@ export interface ScanTask {
 }
 
 export interface ScanInventory {
+  /** Names this inventory among those a thread has seen (a digest of the ids), so its lookup table is made once per thread. */
+  key: string;
   ids: string[];
   referenceHa: Float64Array;
+}
+
+const lookups = new Map<string, Map<string, number>>();
+
+/** Position of each body id, made once per inventory and thread. */
+function lookupOf(inventory: ScanInventory): Map<string, number> {
+  let index = lookups.get(inventory.key);
+  if (!index) {
+    index = new Map(inventory.ids.map((id, k) => [id, k]));
+    if (lookups.size > 8) lookups.clear();
+    lookups.set(inventory.key, index);
+  }
+  return index;
 }
 
 /** Columns of one range; `line` counts from 1 at the range's first line (the caller adds the offset). */
@@ -111,7 +126,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const area = task.kind === 'area';
   const numberNames = area ? ['water_area_ha', 'observed_share', 'scenes'] : ['p10', 'p25', 'median', 'p75', 'p90', 'valid_pixels'];
   const roles = Int32Array.from(task.header, (name) => (name === 'body_id' ? ID : name === 'month' ? MONTH : name === 'parameter' ? PARAMETER : name === 'unit' ? UNIT : ROLE_NUMBER + numberNames.indexOf(name)));
-  const index = new Map(inventory.ids.map((id, k) => [id, k]));
+  const index = lookupOf(inventory);
   const body = ints();
   const month = ints();
   const line = ints();

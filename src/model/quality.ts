@@ -86,9 +86,17 @@ function binOf(value: number, edges: number[]): number {
 function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared?: Array<TrendTest | null>): QualityParameterSummary {
   const { bodies, config, bulletinMonth } = inputs;
   const reference = bodies.map((body) => body.referenceHa);
+  // Month-major copy of the body values: each month's values are then one contiguous view.
+  const count = data.values.length;
+  const byMonth = new Float64Array(data.months * count);
+  data.values.forEach((series, body) => {
+    for (let slot = 0; slot < data.months; slot++) byMonth[slot * count + body] = series[slot] as number;
+  });
+  const monthValues = (slot: number) => byMonth.subarray(slot * count, (slot + 1) * count);
   const monthly = Array.from({ length: data.months }, (_, slot) => {
-    const values = data.values.map((series) => series[slot] as number);
-    const bodiesWithValue = values.filter(Number.isFinite).length;
+    const values = monthValues(slot);
+    let bodiesWithValue = 0;
+    for (let k = 0; k < count; k++) bodiesWithValue += Number.isFinite(values[k]) ? 1 : 0;
     return { month: data.firstMonth + slot, bodies: bodiesWithValue, median: finiteOrNull(median(values)), weightedMedian: finiteOrNull(weightedMedian(values, reference)) };
   });
   const edges = edgesFor(parameter);
@@ -96,8 +104,9 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
     edges,
     months: monthly.slice(-24).map(({ month }) => {
       const counts = new Array<number>(edges.length - 1).fill(0);
-      for (const series of data.values) {
-        const value = series[month - data.firstMonth] as number;
+      const values = monthValues(month - data.firstMonth);
+      for (let k = 0; k < count; k++) {
+        const value = values[k] as number;
         const bin = Number.isFinite(value) ? binOf(value, edges) : -1;
         if (bin >= 0) counts[bin] = (counts[bin] as number) + 1;
       }
@@ -152,15 +161,26 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
   const reference = inputs.bodies.map((body) => body.referenceHa);
   const firstYear = Math.floor(data.firstMonth / 12);
   const lastYear = Math.floor(inputs.bulletinMonth / 12);
+  const classes = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => ({ fromHa, toHa, members: reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0) }));
   for (const season of config.quality.seasons) {
-    for (const { fromHa, toHa } of sizeClassBounds(config.sizeClasses.quality, false)) {
-      const members = reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0);
+    for (const { fromHa, toHa, members } of classes) {
       const years: number[] = [];
       const values: number[] = [];
+      const means = new Float64Array(members.length);
       for (let year = firstYear; year <= lastYear; year++) {
-        const means = members.map((body) => {
-          const inSeason = season.months.map((month) => (data.values[body] as Float64Array)[year * 12 + month - 1 - data.firstMonth]).filter((value): value is number => value !== undefined && Number.isFinite(value));
-          return inSeason.length > 0 ? inSeason.reduce((sum, value) => sum + value, 0) / inSeason.length : Number.NaN;
+        // Each member's mean over the season's months with a value (summed in the season's month order).
+        members.forEach((body, m) => {
+          const series = data.values[body] as Float64Array;
+          let sum = 0;
+          let seen = 0;
+          for (const month of season.months) {
+            const value = series[year * 12 + month - 1 - data.firstMonth];
+            if (value !== undefined && Number.isFinite(value)) {
+              sum += value;
+              seen++;
+            }
+          }
+          means[m] = seen > 0 ? sum / seen : Number.NaN;
         });
         const value = median(means);
         if (Number.isFinite(value)) {

@@ -45,16 +45,15 @@ export function climatology(months: ArrayLike<number>, values: ArrayLike<number 
   return byMonth.map((raw, index) => {
     const sorted = finiteValues(raw).sort();
     const enough = sorted.length >= baseline.minYears;
-    const stat = (compute: () => number) => (enough ? compute() : Number.NaN);
     return {
       calendarMonth: index + 1,
       count: sorted.length,
       values: Array.from(sorted),
-      median: stat(() => quantileSorted(sorted, 0.5)),
-      mean: stat(() => mean(sorted)),
-      standardDeviation: stat(() => sampleStandardDeviation(sorted)),
-      p10: stat(() => quantileSorted(sorted, 0.1)),
-      p90: stat(() => quantileSorted(sorted, 0.9)),
+      median: enough ? quantileSorted(sorted, 0.5) : Number.NaN,
+      mean: enough ? mean(sorted) : Number.NaN,
+      standardDeviation: enough ? sampleStandardDeviation(sorted) : Number.NaN,
+      p10: enough ? quantileSorted(sorted, 0.1) : Number.NaN,
+      p90: enough ? quantileSorted(sorted, 0.9) : Number.NaN,
       enough,
     };
   });

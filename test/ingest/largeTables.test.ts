@@ -87,7 +87,7 @@ describe('large tables: fast path against the general reader', () => {
     const header = lines(text)[0]?.split(',') as string[];
     const dataStart = text.indexOf('\n') + 1;
     const middle = text.indexOf('\n', Math.floor(text.length / 2)) + 1;
-    const inventory = { ids: bodies.map((body) => body.id), referenceHa: Float64Array.from(bodies, (body) => body.referenceHa) };
+    const inventory = { key: 'mini', ids: bodies.map((body) => body.id), referenceHa: Float64Array.from(bodies, (body) => body.referenceHa) };
     // A read buffer of 64 bytes makes every few lines cross a buffer boundary.
     const parts = [[dataStart, middle], [middle, text.length]].map(([start, end]) => scanRange({ kind: 'area', path, start: start as number, end: end as number, header, bulletinMonth: JUNE_2020 }, inventory, 64));
     const rows = parts.map((part) => (part.ok ? part.rows : -1));

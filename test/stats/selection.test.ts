@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { selectKth } from '../../src/stats/selectKth.ts';
 import { selectRanks } from '../../src/stats/selectRanks.ts';
-import { sensSlope } from '../../src/stats/index.ts';
+import { sortedPositions } from '../../src/stats/sortedPositions.ts';
+import { sortValues } from '../../src/stats/sortValues.ts';
+import { quantile, quantileSorted, sensSlope } from '../../src/stats/index.ts';
 import { mulberry32 } from '../../scripts/random.ts';
 
 // The oracle is a full numeric sort (Float64Array.prototype.sort, ECMAScript §23.2.3.29): the
@@ -60,5 +62,38 @@ describe('selectKth and selectRanks', () => {
     expect(shuffled).toEqual(straight);
     // 75 pairs tied in time have no slope: 150·149/2 − 75.
     expect(straight.slopes).toBe(11100);
+  });
+});
+
+describe('sortValues and sortedPositions on many values (radix sort)', () => {
+  const random = mulberry32(99);
+  // Ties, both zeros, negatives, huge and tiny magnitudes, subnormals.
+  const values = Float64Array.from({ length: 20_000 }, (_, k) => {
+    const pick = k % 7;
+    if (pick === 0) return Math.round(random() * 20 - 10);
+    if (pick === 1) return k % 2 === 0 ? -0 : 0;
+    if (pick === 2) return (random() - 0.5) * 1e300;
+    if (pick === 3) return (random() - 0.5) * 1e-310;
+    return (random() - 0.5) * 100;
+  });
+
+  it('sortValues gives what Float64Array.prototype.sort gives, −0 before +0 included', () => {
+    const expected = Float64Array.from(values).sort();
+    const actual = sortValues(Float64Array.from(values));
+    expect(Array.from(actual, (value) => (Object.is(value, -0) ? '-0' : String(value)))).toEqual(Array.from(expected, (value) => (Object.is(value, -0) ? '-0' : String(value))));
+  });
+
+  it('sortedPositions is the stable order by value (as a stable sort by `<` of the positions)', () => {
+    const positions = Array.from(values, (_, k) => k).sort((a, b) => (values[a] as number) - (values[b] as number) || a - b);
+    expect(Array.from(sortedPositions(values, values.length))).toEqual(positions);
+  });
+});
+
+describe('quantile on many values (selection instead of sorting)', () => {
+  it('gives what quantileSorted gives on the sorted values, at every probability tried', () => {
+    const random = mulberry32(5);
+    const values = Array.from({ length: 9001 }, (_, k) => (k % 10 === 0 ? null : Math.round(1000 * random()) / 10));
+    const sortedValues = Float64Array.from(values.filter((value): value is number => value !== null)).sort();
+    for (const p of [0, 0.1, 0.25, 0.5, 0.75, 0.9, 0.999, 1]) expect(quantile(values, p), `p = ${p}`).toBe(quantileSorted(sortedValues, p));
   });
 });
