@@ -89,6 +89,7 @@ export const configSchema = z.strictObject({
     baseUrl: z.url(),
     /** Most water bodies that get a page of their own; the largest flagged bodies come first. */
     maxBodyPages: z.number().int().min(0).default(500),
+    bodiesPerListPage: z.number().int().min(1).default(500),
   }),
   locales: z.array(z.enum(['en'])).min(1).default(['en']),
   inputs: z.strictObject({

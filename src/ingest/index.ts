@@ -2,8 +2,7 @@
  * Stage 1, ingest: reads a bulletin folder (configuration, tables, boundaries) into typed inputs
  * and one list of problems. Nothing here computes a statistic.
  */
-import { createHash } from 'node:crypto';
-import { closeSync, openSync, readSync } from 'node:fs';
+import { sha256File } from '../site/files.ts';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
@@ -48,21 +47,8 @@ export interface IngestResult {
   problems: ProblemList;
 }
 
-/** SHA-256 of a file read in 8 MB pieces, so a table of gigabytes is never held whole. */
 function hashFile(folder: string, path: string): InputFile {
-  const hash = createHash('sha256');
-  const handle = openSync(join(folder, path), 'r');
-  const piece = Buffer.allocUnsafe(8 << 20);
-  let bytes = 0;
-  try {
-    for (let read = readSync(handle, piece, 0, piece.length, bytes); read > 0; read = readSync(handle, piece, 0, piece.length, bytes)) {
-      hash.update(piece.subarray(0, read));
-      bytes += read;
-    }
-  } finally {
-    closeSync(handle);
-  }
-  return { path, sha256: hash.digest('hex'), bytes };
+  return { path, ...sha256File(join(folder, path)) };
 }
 
 /**

@@ -55,6 +55,8 @@ export interface BulletinModel {
     toolVersion: string;
     /** The configured status band keys, lowest first. */
     statusBands: string[];
+    /** site.bodiesPerListPage. */
+    bodiesPerListPage: number;
   };
   bodies: Array<{ id: string; name: string; subRegionId: string; kind: string; referenceHa: number; lon: number; lat: number; ownPage: boolean }>;
   surfaceWater: SurfaceWater;
@@ -156,6 +158,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       firstMonth: monthLabel(series.firstMonth),
       toolVersion,
       statusBands: config.statusBands.map((band) => band.key),
+      bodiesPerListPage: config.site.bodiesPerListPage,
     },
     bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
     surfaceWater: surface,

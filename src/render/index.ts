@@ -118,6 +118,10 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     config: (eleventyConfig) => {
       eleventyConfig.addGlobalData('issues', issues);
       eleventyConfig.addGlobalData('subRegionPages', issues.flatMap((issue) => issue.subRegions.map((subRegion) => ({ issue, subRegion }))));
+      eleventyConfig.addGlobalData(
+        'bodyListPages',
+        issues.flatMap((issue) => issue.subRegions.flatMap((subRegion) => subRegion.listPages.map((page) => ({ issue, subRegion, page, pages: subRegion.listPages.map(({ number, href }) => ({ number, href })) })))),
+      );
       eleventyConfig.addGlobalData('bodyPages', issues.flatMap((issue) => issue.monitoredBodies.map((body) => ({ issue, body }))));
       eleventyConfig.addGlobalData('site', site);
       eleventyConfig.addGlobalData('t', site.t);
@@ -143,11 +147,15 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
   for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir)) write(file);
 }
 
+/** Inventories larger than this get their model JSON written without indentation. */
+const COMPACT_MODEL_FROM = 10_000;
+
 /** The files written beside an issue's pages: the model, the card and each chart's data, spec and PNG. */
 export function downloadFiles(model: BulletinModel, chartSet: ChartSet): SiteFile[] {
   const issue = model.meta.issuePath.replace(/^\//, '');
   const files: SiteFile[] = [
-    { path: `${issue}data/bulletin-model.json`, content: JSON.stringify(model, null, 2) + '\n' },
+    // Indented for reading; compact for a large inventory, where indentation alone would add tens of megabytes.
+    { path: `${issue}data/bulletin-model.json`, content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n` },
     { path: `${issue}card.png`, content: chartSet.card.png },
   ];
   for (const chart of Object.values(chartSet.charts)) {

@@ -4,9 +4,8 @@
  * configuration summary and the SHA-256 of every file under its path, and one for the site that
  * covers every other file. `limnopress verify` checks a site against them.
  */
-import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { listFiles, sha256 } from '../site/files.ts';
+import { listFiles, sha256, sha256File } from '../site/files.ts';
 import { escapeXml } from '../text/escape.ts';
 import type { BulletinModel } from '../model/index.ts';
 import type { SiteFile } from './index.ts';
@@ -83,7 +82,10 @@ export function siteFiles(models: BulletinModel[], outDir: string): SiteFile[] {
   // Manifests cover the files on disk plus the feed files above (not yet written).
   const pending = new Map(files.map((file) => [file.path, file.content]));
   const all = [...new Set([...listFiles(outDir), ...pending.keys()])].sort();
-  const hashOf = (path: string) => sha256(pending.get(path) ?? readFileSync(join(outDir, path)));
+  const hashOf = (path: string) => {
+    const content = pending.get(path);
+    return content === undefined ? sha256File(join(outDir, path)).sha256 : sha256(content);
+  };
   const issuePrefixes = models.map((model) => model.meta.issuePath.replace(/^\//, ''));
   const ownerOf = (path: string) => issuePrefixes.filter((prefix) => path.startsWith(prefix)).sort((a, b) => b.length - a.length)[0] ?? null;
   const manifests: SiteFile[] = models.map((model) => {

@@ -175,6 +175,25 @@ const cellWords: Record<string, string> = { stated: 'shown', 'too-few-bodies': '
 const methodWords: Record<string, string> = { 'seasonal-kendall': 'seasonal Kendall', 'seasonal-kendall-covariance': 'seasonal Kendall, covariance-corrected', 'mann-kendall-hamed-rao': 'Mann-Kendall, autocorrelation-corrected' };
 const directionWords: Record<string, string> = { decline: 'decline holds', rise: 'rise holds', none: 'no trend shown', untested: 'not tested' };
 
+export interface BodyListPage<T> {
+  number: number;
+  /** Site path of the page, with trailing slash. */
+  href: string;
+  first: number;
+  last: number;
+  bodies: T[];
+}
+
+/** Pages of at most `size` items: the first at `base`, the others at base + page-N/. */
+export function paginate<T>(items: T[], base: string, size: number): Array<BodyListPage<T>> {
+  const pages: Array<BodyListPage<T>> = [];
+  for (let from = 0; from < items.length; from += size) {
+    const number = pages.length + 1;
+    pages.push({ number, href: number === 1 ? base : `${base}page-${number}/`, first: from + 1, last: Math.min(items.length, from + size), bodies: items.slice(from, from + size) });
+  }
+  return pages;
+}
+
 /** One sub-region's page: its status, trend, water bodies and rainfall, formatted. */
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
@@ -190,11 +209,17 @@ export function subRegionView(model: BulletinModel, id: string) {
       const own = model.bodyStatus[k];
       return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? 'not seen well enough' : 'baseline too short', percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
     });
+  const slug = slugOf(id);
+  // Up to site.bodiesPerListPage bodies are listed on the sub-region's page and the index; more get numbered pages.
+  const perPage = model.meta.bodiesPerListPage;
+  const listPages = bodies.length > perPage ? paginate(bodies, `${model.meta.issuePath}sub-regions/${slug}/water-bodies/`, perPage) : [];
   return {
     id,
-    slug: slugOf(id),
+    slug,
     name: group?.name ?? id,
-    bodies,
+    bodies: listPages.length > 0 ? [] : bodies,
+    bodyCount: bodies.length,
+    listPages,
     summary: [
       ['Water bodies', String(group?.bodies ?? 0)],
       ['Reference area', `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],

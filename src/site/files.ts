@@ -1,6 +1,6 @@
 /** Walking a built site: its files as sorted relative paths with forward slashes, and their hashes. */
 import { createHash } from 'node:crypto';
-import { readdirSync, statSync } from 'node:fs';
+import { closeSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 
 export function listFiles(dir: string): string[] {
@@ -17,3 +17,20 @@ export function listFiles(dir: string): string[] {
 }
 
 export const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
+
+/** SHA-256 and size of a file read in 8 MB pieces, so a file of gigabytes is never held whole. */
+export function sha256File(path: string): { sha256: string; bytes: number } {
+  const hash = createHash('sha256');
+  const handle = openSync(path, 'r');
+  const piece = Buffer.allocUnsafe(8 << 20);
+  let bytes = 0;
+  try {
+    for (let read = readSync(handle, piece, 0, piece.length, bytes); read > 0; read = readSync(handle, piece, 0, piece.length, bytes)) {
+      hash.update(piece.subarray(0, read));
+      bytes += read;
+    }
+  } finally {
+    closeSync(handle);
+  }
+  return { sha256: hash.digest('hex'), bytes };
+}

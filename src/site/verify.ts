@@ -5,7 +5,7 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { listFiles, sha256 } from './files.ts';
+import { listFiles, sha256File } from './files.ts';
 
 export interface VerifyFinding {
   path: string;
@@ -33,7 +33,7 @@ export function verifySite(dir: string): { checked: number; findings: VerifyFind
     checked++;
     const full = join(dir, path);
     if (!existsSync(full)) findings.push({ path, kind: 'missing' });
-    else if (sha256(readFileSync(full)) !== expected) findings.push({ path, kind: 'changed' });
+    else if (sha256File(full).sha256 !== expected) findings.push({ path, kind: 'changed' });
   };
   for (const output of site.outputs) check(output.path, output.sha256);
   for (const manifest of site.issues) {
