@@ -29,8 +29,8 @@ export async function readAreaFast(path: string, bodies: WaterBody[], context: R
 export async function readQualityFast(path: string, bodies: WaterBody[], context: ReadContext): Promise<QualityTable | null> {
   const joined = await scanFile('quality', path, bodies, context);
   if (!joined) return null;
-  const [codes, p10, p25, median, p75, p90, pixels] = joined.values as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
-  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: Int32Array.from(codes), p10, p25, median, p75, p90, pixels, line: joined.line };
+  const [codes, median] = joined.values as [Float64Array, Float64Array];
+  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: Int32Array.from(codes), median, line: joined.line };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }
 
@@ -62,8 +62,10 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), line: new Int32Array(rows), values: (parts[0] as (typeof parts)[number]).columns.values.map(() => new Float64Array(rows)) };
   let at = 0;
   let lineOffset = 1;
-  for (const part of parts) {
+  for (let p = 0; p < parts.length; p++) {
+    const part = parts[p] as (typeof parts)[number];
     const { columns } = part;
+    delete parts[p]; // its columns can go as soon as they are copied: the peak stays near one table
     joined.body.set(columns.body, at);
     joined.month.set(columns.month, at);
     for (let k = 0; k < part.rows; k++) joined.line[at + k] = (columns.line[k] as number) + lineOffset;

@@ -62,7 +62,7 @@ export interface ScanColumns {
   body: Int32Array;
   month: Int32Array;
   line: Int32Array;
-  /** area: waterHa, observedShare, scenes; quality: parameter (as doubles), p10, p25, median, p75, p90, pixels. */
+  /** area: waterHa, observedShare, scenes; quality: parameter (as doubles), median. */
   values: Float64Array[];
 }
 
@@ -130,7 +130,9 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const body = ints();
   const month = ints();
   const line = ints();
-  const columns = Array.from({ length: numberNames.length }, doubles);
+  // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
+  const kept = area ? [0, 1, 2] : [2];
+  const columns = kept.map(doubles);
   const parameters = doubles();
   const row = new Float64Array(numberNames.length);
   const buffer = Buffer.allocUnsafe(chunkBytes);
@@ -235,7 +237,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       }
       parameters.push(code);
     }
-    for (let c = 0; c < row.length; c++) (columns[c] as Column<Float64Array>).push(row[c] as number);
+    for (let c = 0; c < kept.length; c++) (columns[c] as Column<Float64Array>).push(row[kept[c] as number] as number);
     body.push(previousBody);
     month.push(when);
     line.push(lineNumber);

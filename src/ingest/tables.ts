@@ -49,13 +49,12 @@ export interface QualityTable {
   month: Int32Array;
   /** Index into QUALITY_PARAMETERS. */
   parameter: Int32Array;
-  /** NaN where the file has no such column or an empty cell. */
-  p10: Float64Array;
-  p25: Float64Array;
+  /**
+   * The body's median for the month. The other percentiles and valid_pixels are checked (range,
+   * order) but not kept: nothing downstream reads them, and at national scale they would cost
+   * about 40 bytes a row.
+   */
   median: Float64Array;
-  p75: Float64Array;
-  p90: Float64Array;
-  pixels: Float64Array;
   line: Int32Array;
 }
 
@@ -228,8 +227,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
   const body = new GrowableInt32();
   const month = new GrowableInt32();
   const parameter = new GrowableInt32();
-  const quantiles = QUANTILE_COLUMNS.map(() => new GrowableFloat64());
-  const pixels = new GrowableFloat64();
+  const medians = new GrowableFloat64();
   const lines = new GrowableInt32();
   const duplicates: Array<{ body: number; month: number; line: number }> = [];
   const duplicateParameters: number[] = [];
@@ -241,7 +239,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     const name = cells.text(values, at.parameter!, 'parameter', line);
     const unit = cells.text(values, at.unit!, 'unit', line);
     const found = QUANTILE_COLUMNS.map((column) => (at[column]! >= 0 ? cells.number(values, at[column]!, column, line, 0, Infinity, column !== 'median') : Number.NaN));
-    const validPixels = at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true) : Number.NaN;
+    if (at.valid_pixels! >= 0) cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true);
     const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
     if (name !== '' && code < 0) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
     if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
@@ -265,13 +263,11 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     body.push(position);
     month.push(when);
     parameter.push(code);
-    found.forEach((value, k) => quantiles[k]?.push(value));
-    pixels.push(validPixels);
+    medians.push(found[2] as number);
     lines.push(line);
   });
   later.report();
-  const [p10, p25, median, p75, p90] = quantiles.map((column) => column.done()) as [Float64Array, Float64Array, Float64Array, Float64Array, Float64Array];
-  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), p10, p25, median, p75, p90, pixels: pixels.done(), line: lines.done() };
+  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), median: medians.done(), line: lines.done() };
   reportDuplicates(duplicates, table, label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);
   return table;
 }

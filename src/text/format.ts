@@ -1,10 +1,23 @@
 /** Numbers and dates for people, through Intl; UTC everywhere so output never depends on the machine. */
+/** Intl formatters are costly to make (tens of microseconds) and pages format hundreds of thousands of numbers: one per style. */
+const numberFormats = new Map<string, Intl.NumberFormat>();
+
+function numberFormat(locale: string, digits: number, percent: boolean): Intl.NumberFormat {
+  const key = `${locale} ${digits} ${percent}`;
+  let format = numberFormats.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat(locale, { ...(percent ? { style: 'percent' as const } : {}), maximumFractionDigits: digits, minimumFractionDigits: digits });
+    numberFormats.set(key, format);
+  }
+  return format;
+}
+
 export function formatPercent(locale: string, percent: number, digits = 0): string {
-  return new Intl.NumberFormat(locale, { style: 'percent', maximumFractionDigits: digits, minimumFractionDigits: digits }).format(percent / 100);
+  return numberFormat(locale, digits, true).format(percent / 100);
 }
 
 export function formatNumber(locale: string, value: number, digits = 0): string {
-  return new Intl.NumberFormat(locale, { maximumFractionDigits: digits, minimumFractionDigits: digits }).format(value);
+  return numberFormat(locale, digits, false).format(value);
 }
 
 /** "November 2026" for month index year × 12 + month − 1. */
