@@ -2,22 +2,37 @@
  * The whole build as numbered stages, each handing the next a typed value:
  * 1 ingest (every issue of the folder) → 2 model (stats inside) → 3 charts → 4 render → 5 publish.
  */
-import { readFileSync } from 'node:fs';
-import { relative } from 'node:path';
+import { readFileSync, statSync } from 'node:fs';
+import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildCharts, type ChartSet } from './charts/index.ts';
+import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
 import { InputError, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
 import { issueFolders } from './ingest/issues.ts';
-import { buildModel, prepareModel, type BulletinModel } from './model/index.ts';
+import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
 import { renderSite, type IssueBundle } from './render/index.ts';
 import { publishAtomically } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
+import { lineProgress, seconds, silentProgress, type Progress } from './progress.ts';
+import { listFiles } from './site/files.ts';
 
 export interface BuildOptions {
   bulletinFolder: string;
   outDir: string;
-  /** Progress lines for a person; silent by default. */
+  /** Progress for a person (see progress.ts); silent by default. */
+  progress?: Progress;
+  /** Or plain progress lines to this function. */
   log?: (line: string) => void;
+}
+
+/** What the build did, in figures: seconds per stage, table rows read, trend series, charts, and the site written. */
+export interface BuildStats {
+  times: Record<string, number>;
+  rows: number;
+  series: number;
+  charts: number;
+  files: number;
+  pages: number;
+  bytes: number;
 }
 
 export interface BuildResult {
@@ -26,6 +41,7 @@ export interface BuildResult {
   issues: BulletinModel[];
   warnings: Problem[];
   outDir: string;
+  stats: BuildStats;
 }
 
 export function toolVersion(): string {
@@ -52,7 +68,7 @@ export async function build(options: BuildOptions): Promise<BuildResult> {
 }
 
 async function buildStages(options: BuildOptions): Promise<BuildResult> {
-  const log = options.log ?? (() => {});
+  const progress = options.progress ?? (options.log ? lineProgress(options.log) : silentProgress);
   // Wall time per stage, for the closing summary (progress only: nothing of it reaches the site).
   const times: Array<[string, number]> = [];
   let stageStart = performance.now();
@@ -60,17 +76,19 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     const now = performance.now();
     times.push([stage, now - stageStart]);
     stageStart = now;
+    return (times[times.length - 1] as [string, number])[1] / 1000;
   };
 
   const folders = issueFolders(options.bulletinFolder);
-  log(`1/5 reading and checking inputs of ${folders.length} issue(s)`);
+  progress.begin('1/5', `reading and checking the inputs of ${folders.length} issue(s)`, folders.length);
   const loaded: Array<{ inputs: BulletinInputs; warnings: Problem[] }> = [];
   const problems: Problem[] = [];
-  for (const folder of folders) {
+  for (const [k, folder] of folders.entries()) {
     const prefix = relative(options.bulletinFolder, folder);
-    const result = await loadBulletin(folder, prefix ? `${prefix.split('\\').join('/')}/` : '');
+    const result = await loadBulletin(folder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => progress.advance(k, detail));
     problems.push(...result.problems.sorted());
     if (result.inputs) loaded.push({ inputs: result.inputs, warnings: result.problems.warnings });
+    progress.advance(k + 1);
   }
   const seen = new Map<string, string>();
   loaded.forEach(({ inputs }, k) => {
@@ -81,28 +99,51 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   });
   if (problems.some((problem) => problem.severity === 'error') || loaded.length < folders.length) throw new InputError(problems);
   const warnings = problems.filter((problem) => problem.severity === 'warning');
-  lap('inputs');
+  const rows = loaded.reduce((sum, { inputs }) => sum + inputs.area.length + (inputs.quality?.length ?? 0), 0);
+  const inputSeconds = lap('inputs');
+  progress.end(`${count(rows)} table rows, ${count(rows / inputSeconds)} rows/s`);
 
-  log('2/5 computing the bulletin models');
   const paths = issuePaths(loaded.map(({ inputs }) => ({ month: inputs.bulletinMonth, revision: inputs.config.issue.revision })));
+  const seriesTotal = loaded.reduce((sum, { inputs }) => sum + trendSeriesCount(inputs), 0);
+  progress.begin('2/5', 'computing the bulletin models', seriesTotal);
+  let seriesDone = 0;
   const models: BulletinModel[] = [];
   for (const [k, { inputs, warnings: own }] of loaded.entries()) {
-    const prepared = await prepareModel(inputs, sharedPool());
+    const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
+    progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
     models.push(buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string, prepared }));
   }
-  lap('model');
+  const modelSeconds = lap('model');
+  progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
 
-  log('3/5 rendering charts');
+  const chartTotal = models.reduce((sum, model) => sum + chartCount(model), 0);
+  progress.begin('3/5', 'rendering charts', chartTotal);
+  let chartsDone = 0;
   const chartSets: ChartSet[] = [];
-  for (const model of models) chartSets.push(await buildCharts(model));
+  for (const model of models) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
   lap('charts');
+  progress.end(`${chartTotal} charts`);
 
-  log('4/5 rendering pages');
+  progress.begin('4/5', 'rendering pages');
   const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string, inputs: loaded[k]?.inputs as BulletinInputs }));
-  await publishAtomically(options.outDir, (staging) => renderSite(bundles, staging));
-
+  let site = { files: 0, pages: 0, bytes: 0 };
+  await publishAtomically(options.outDir, async (staging) => {
+    await renderSite(bundles, staging);
+    site = siteSize(staging);
+  });
   lap('pages');
-  log(`5/5 published to ${options.outDir}`);
-  log(`time: ${times.map(([stage, ms]) => `${stage} ${(ms / 1000).toFixed(1)} s`).join(', ')}`);
-  return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir };
+  progress.end(`${count(site.pages)} pages, ${count(site.files)} files`);
+  progress.note(`5/5 published to ${options.outDir}: ${count(site.pages)} pages, ${count(site.files)} files, ${megabytes(site.bytes)}`);
+  progress.note(`time: ${times.map(([stage, ms]) => `${stage} ${seconds(ms)}`).join(', ')}; total ${seconds(times.reduce((sum, [, ms]) => sum + ms, 0))}`);
+  const stats: BuildStats = { times: Object.fromEntries(times.map(([stage, ms]) => [stage, ms / 1000])), rows, series: seriesTotal, charts: chartTotal, ...site };
+  return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir, stats };
 }
+
+/** Files, HTML pages and bytes of a built site. */
+function siteSize(dir: string): { files: number; pages: number; bytes: number } {
+  const files = listFiles(dir);
+  return { files: files.length, pages: files.filter((path) => path.endsWith('.html')).length, bytes: files.reduce((sum, path) => sum + statSync(join(dir, path)).size, 0) };
+}
+
+const count = (value: number) => Math.round(value).toLocaleString('en');
+const megabytes = (bytes: number) => `${(bytes / 1e6).toFixed(1)} MB`;

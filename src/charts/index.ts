@@ -34,11 +34,23 @@ export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
   ].filter((chart): chart is ChartDefinition => chart !== null);
 }
 
-export async function buildCharts(model: BulletinModel): Promise<ChartSet> {
+/** Charts of an issue: its chart definitions and a sparkline per monitored body. */
+export function chartCount(model: BulletinModel): number {
+  return chartDefinitions(model).length + model.monitored.length;
+}
+
+/** `onChart` is told of each chart done, for progress on the terminal. */
+export async function buildCharts(model: BulletinModel, onChart?: (id: string) => void): Promise<ChartSet> {
   const charts: Record<string, RenderedChart> = {};
-  for (const definition of chartDefinitions(model)) charts[definition.id] = await renderChart(definition, { png: true });
+  for (const definition of chartDefinitions(model)) {
+    charts[definition.id] = await renderChart(definition, { png: true });
+    onChart?.(definition.id);
+  }
   const sparklines: Record<string, string> = {};
-  for (const body of model.monitored) sparklines[body.id] = (await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false })).svg;
+  for (const body of model.monitored) {
+    sparklines[body.id] = (await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false })).svg;
+    onChart?.(`sparkline of ${body.id}`);
+  }
   const svg = cardSvg(model);
   return { charts, sparklines, card: { svg, png: await svgToPng(svg) } };
 }

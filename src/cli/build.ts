@@ -1,6 +1,7 @@
 /** `limnopress build`: check the inputs of a bulletin folder and publish its site. */
 import { parseArgs } from 'node:util';
 import { build } from '../build.ts';
+import { barProgress, lineProgress, silentProgress } from '../progress.ts';
 import { formatProblem } from '../ingest/index.ts';
 import { HELP, UsageError } from './usage.ts';
 
@@ -15,8 +16,9 @@ export async function runBuild(args: string[]): Promise<number> {
     return 0;
   }
   if (positionals.length !== 1) throw new UsageError('build needs exactly one bulletin folder');
-  const log = values.quiet ? undefined : (line: string) => process.stderr.write(`${line}\n`);
-  const result = await build({ bulletinFolder: positionals[0] as string, outDir: values.out as string, ...(log ? { log } : {}) });
+  // A bar on a terminal, plain lines in a log or pipe, nothing but errors with --quiet (all on stderr).
+  const progress = values.quiet ? silentProgress : process.stderr.isTTY ? barProgress(process.stderr) : lineProgress((line) => process.stderr.write(`${line}\n`));
+  const result = await build({ bulletinFolder: positionals[0] as string, outDir: values.out as string, progress });
   for (const warning of result.warnings) if (!values.quiet) process.stderr.write(`${formatProblem(warning)}\n`);
   if (!values.quiet) process.stdout.write(`Bulletin written to ${result.outDir}/index.html\n`);
   return 0;

@@ -25,6 +25,10 @@ Options:
 Checks every input of the bulletin folder, then builds the site into <dir>. The new site replaces
 <dir> only when the whole build succeeded; on any error <dir> is left as it was.
 
+Progress goes to standard error: a bar per stage on a terminal, plain lines otherwise, then a
+summary of each stage's time, the rows and series per second, the pages written and the site size.
+Large tables are read, and large inventories' trends tested, on one worker thread per core.
+
 Options:
   -o, --out <dir>   where the site goes (default: _site)
   -q, --quiet       print nothing but errors

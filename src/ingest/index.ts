@@ -55,7 +55,7 @@ function hashFile(folder: string, path: string): InputFile {
  * Reads and checks everything; `inputs` is null when any error was found. `labelPrefix` goes in
  * front of every file name in problems (for archived issues: "archive/2026-10/").
  */
-export async function loadBulletin(folder: string, labelPrefix = ''): Promise<IngestResult> {
+export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (detail: string) => void): Promise<IngestResult> {
   const problems = new ProblemList();
   const config = readConfig(join(folder, CONFIG_FILE), `${labelPrefix}${CONFIG_FILE}`, problems);
   if (!config) return { inputs: null, problems };
@@ -64,11 +64,13 @@ export async function loadBulletin(folder: string, labelPrefix = ''): Promise<In
   const at = (path: string) => join(folder, path);
   const label = (path: string) => `${labelPrefix}${path}`;
   const bulletinMonth = parseMonth(config.issue.month) as number;
-  const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal };
+  const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal, ...(onStep ? { onStep } : {}) };
   const subRegions = readBoundaries(at(paths.boundaries), label(paths.boundaries), problems);
   const regionIds = new Set(subRegions.map((region) => region.id));
   const bodies = await readInventory(at(paths.inventory), label(paths.inventory), context);
+  onStep?.(label(paths.surfaceArea));
   const area = await readSurfaceArea(at(paths.surfaceArea), label(paths.surfaceArea), bodies, context);
+  if (paths.quality) onStep?.(label(paths.quality));
   const quality = paths.quality ? await readQuality(at(paths.quality), label(paths.quality), bodies, context) : null;
   const distribution = paths.distribution ? await readDistributionBins(at(paths.distribution), label(paths.distribution), regionIds, context) : [];
   const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
@@ -78,6 +80,7 @@ export async function loadBulletin(folder: string, labelPrefix = ''): Promise<In
   if (problems.errors.length > 0) return { inputs: null, problems };
 
   const used = [paths.inventory, paths.surfaceArea, paths.quality, paths.distribution, paths.rainfall, paths.field, paths.boundaries].filter((path): path is string => Boolean(path));
+  onStep?.('input hashes');
   const files = [CONFIG_FILE, ...used].sort().map((path) => hashFile(folder, path));
   return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files }, problems };
 }

@@ -53,7 +53,14 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   const inventory: ScanInventory = { key, ids, referenceHa };
   const tasks: ScanTask[] = layout.ranges.map(([start, end]) => ({ kind, path, start, end, header: layout.header, bulletinMonth: context.bulletinMonth }));
   const parallel = layout.size > PARALLEL_BYTES && sharedPool().size > 1;
-  const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run('scan', { task, inventory }))) : tasks.map((task) => scanRange(task, inventory));
+  let scanned = 0;
+  const name = path.split(/[\\/]/).pop() ?? path;
+  const report = (result: ScanResult) => {
+    scanned++;
+    context.onStep?.(`${name}: part ${scanned} of ${tasks.length}`);
+    return result;
+  };
+  const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run('scan', { task, inventory }).then(report))) : tasks.map((task) => report(scanRange(task, inventory)));
   if (results.some((result) => !result.ok)) return null;
   const parts = results as Array<Extract<ScanResult, { ok: true }>>;
   const rows = parts.reduce((sum, part) => sum + part.rows, 0);

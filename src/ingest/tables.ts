@@ -92,6 +92,8 @@ export interface ReadContext {
   decimal: DecimalMark | 'auto';
   /** false: always the general reader (tests compare the two paths). Default true. */
   fastPath?: boolean;
+  /** Told what is being read, for progress on the terminal. */
+  onStep?: (detail: string) => void;
 }
 
 export { FIRST_MONTH } from './months.ts';

@@ -4,7 +4,7 @@
  * out as JSON beside the site.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
-import { calendarMonthOf, formatProblem, monthLabel } from '../ingest/index.ts';
+import { calendarMonthOf, formatProblem, monthLabel, QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
 import { aggregate, statusMonths } from './aggregate.ts';
@@ -94,10 +94,15 @@ export interface PreparedModel {
   quality: PreparedQuality | null;
 }
 
-/** The parts of the model worth spreading over worker threads for a large inventory. */
-export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool): Promise<PreparedModel> {
+/** Trend series of an issue: one per body, and one per body and quality parameter when there are quality data. */
+export function trendSeriesCount(inputs: BulletinInputs): number {
+  return inputs.bodies.length * (1 + (inputs.quality && inputs.quality.length > 0 ? QUALITY_PARAMETERS.length : 0));
+}
+
+/** The parts of the model worth spreading over worker threads for a large inventory; `onSeries` counts the trend series done. */
+export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onSeries?: (series: number) => void): Promise<PreparedModel> {
   const series = bodySeries(inputs);
-  const [bodyTests, waterQuality] = await Promise.all([bodyTrendTests(series, inputs.config.trends, pool), prepareQuality(inputs, pool)]);
+  const [bodyTests, waterQuality] = await Promise.all([bodyTrendTests(series, inputs.config.trends, pool, onSeries), prepareQuality(inputs, pool, onSeries)]);
   return { series, bodyTests, quality: waterQuality };
 }
 

@@ -200,7 +200,7 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
 export type PreparedQuality = Array<{ parameter: QualityParameter; data: ParameterMonths; tests: Array<TrendTest | null> }>;
 
 /** The body values of each parameter and their trend tests, on the worker pool for a large inventory. */
-export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool): Promise<PreparedQuality | null> {
+export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, onBatch?: (series: number) => void): Promise<PreparedQuality | null> {
   if (!inputs.quality || inputs.quality.length === 0) return null;
   return Promise.all(
     QUALITY_PARAMETERS.map(async (parameter) => {
@@ -210,7 +210,7 @@ export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool): 
         for (let body = from; body < to; body++) matrix.set(data.values[body] as Float64Array, (body - from) * data.months);
         return matrix;
       };
-      return { parameter, data, tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool) };
+      return { parameter, data, tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool, onBatch) };
     }),
   );
 }

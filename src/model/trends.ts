@@ -121,20 +121,30 @@ const PARALLEL_BODIES = 4000;
  * only the observed months of its bodies as one typed array; the results come back in body order,
  * so they are the same whatever the number of threads.
  */
-export function bodyTrendTests(series: BodySeries, trends: TrendSettings, pool: WorkerPool): Promise<Array<TrendTest | null>> {
-  return manyTrendTests(series.firstMonth, series.months, series.filling.length, (from, to) => observedValues(series, from, to), trends, pool);
+export function bodyTrendTests(series: BodySeries, trends: TrendSettings, pool: WorkerPool, onBatch?: (series: number) => void): Promise<Array<TrendTest | null>> {
+  return manyTrendTests(series.firstMonth, series.months, series.filling.length, (from, to) => observedValues(series, from, to), trends, pool, onBatch);
 }
 
 /**
  * The trend tests of `count` monthly series that share their months, given as body-major matrices
  * of rows [from, to) (NaN = missing): in this thread for a few, in batches on the pool for many.
  */
-export async function manyTrendTests(firstMonth: number, months: number, count: number, rows: (from: number, to: number) => Float64Array, trends: TrendSettings, pool: WorkerPool): Promise<Array<TrendTest | null>> {
-  if (count < PARALLEL_BODIES || pool.size < 2) return testBatch(firstMonth, months, rows(0, count), trends);
+export async function manyTrendTests(firstMonth: number, months: number, count: number, rows: (from: number, to: number) => Float64Array, trends: TrendSettings, pool: WorkerPool, onBatch?: (series: number) => void): Promise<Array<TrendTest | null>> {
+  if (count < PARALLEL_BODIES || pool.size < 2) {
+    const tests = testBatch(firstMonth, months, rows(0, count), trends);
+    onBatch?.(count);
+    return tests;
+  }
   const batches: Array<Promise<EncodedTests>> = [];
   for (let from = 0; from < count; from += BATCH) {
     const values = rows(from, Math.min(count, from + BATCH));
-    batches.push(pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]));
+    const size = Math.min(count, from + BATCH) - from;
+    batches.push(
+      pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]).then((encoded) => {
+        onBatch?.(size);
+        return encoded;
+      }),
+    );
   }
   return (await Promise.all(batches)).flatMap(decodeTests);
 }
