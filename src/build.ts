@@ -112,6 +112,8 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
     progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
     models.push(buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string, prepared }));
+    // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
+    loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
   }
   const modelSeconds = lap('model');
   progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
@@ -125,7 +127,7 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   progress.end(`${chartTotal} charts`);
 
   progress.begin('4/5', 'rendering pages');
-  const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string, inputs: loaded[k]?.inputs as BulletinInputs }));
+  const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string }));
   let site = { files: 0, pages: 0, bytes: 0 };
   await publishAtomically(options.outDir, async (staging) => {
     await renderSite(bundles, staging);
@@ -138,6 +140,8 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   const stats: BuildStats = { times: Object.fromEntries(times.map(([stage, ms]) => [stage, ms / 1000])), rows, series: seriesTotal, charts: chartTotal, ...site };
   return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir, stats };
 }
+
+const EMPTY_AREA: BulletinInputs['area'] = { length: 0, body: new Int32Array(0), month: new Int32Array(0), waterHa: new Float64Array(0), observedShare: new Float64Array(0), scenes: new Float64Array(0), line: new Int32Array(0) };
 
 /** Files, HTML pages and bytes of a built site. */
 function siteSize(dir: string): { files: number; pages: number; bytes: number } {

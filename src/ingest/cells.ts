@@ -15,7 +15,8 @@ export class CellReader {
   private decimalCommaSeen = false;
 
   constructor(
-    private readonly file: string,
+    /** The file named in problems; a partitioned table sets each partition in turn. */
+    public file: string,
     private readonly problems: ProblemList,
     private readonly decimal: DecimalMark | 'auto' = 'auto',
   ) {}

@@ -5,7 +5,8 @@
  * array of texts with its line number (CSV: the header is line 1; Parquet: row k is line k + 1, so
  * numbers mean the same in both) and a map from column name to position.
  */
-import { createReadStream, existsSync, statSync } from 'node:fs';
+import { createReadStream, existsSync, readdirSync, statSync } from 'node:fs';
+import { join, relative, sep } from 'node:path';
 import Papa from 'papaparse';
 import { asyncBufferFromFile, parquetReadObjects } from 'hyparquet';
 import { EncodingError, lineAtOffset, StrictUtf8 } from './encoding.ts';
@@ -21,12 +22,46 @@ export type ColumnIndex = Record<string, number>;
 
 export type RowHandler = (values: string[], line: number, columns: ColumnIndex) => void;
 
-export async function readTable(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
+/**
+ * A table from a CSV file, a Parquet file, or a folder of Parquet partitions (every *.parquet file
+ * below it, read in sorted path order, as a distributed engine writes them). `onFile` is told the
+ * label of each partition before its rows, so problems name the partition and its row.
+ */
+export async function readTable(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler, onFile?: (label: string) => void): Promise<number> {
+  if (existsSync(path) && statSync(path).isDirectory()) {
+    const parts = parquetParts(path);
+    if (parts.length === 0) {
+      problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'a file, or a folder with .parquet partitions', message: 'the folder holds no .parquet file' });
+      return 0;
+    }
+    let rows = 0;
+    for (const part of parts) {
+      const partLabel = `${label.replace(/\/$/, '')}/${part}`;
+      onFile?.(partLabel);
+      rows += await readParquet(join(path, part), partLabel, columns, problems, onRow);
+    }
+    onFile?.(label);
+    return rows;
+  }
   if (!existsSync(path) || !statSync(path).isFile()) {
     problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'an existing file', message: 'the file does not exist' });
     return 0;
   }
   return path.toLowerCase().endsWith('.parquet') ? readParquet(path, label, columns, problems, onRow) : readCsv(path, label, columns, problems, onRow);
+}
+
+/** The .parquet files below a folder, as sorted relative paths with forward slashes. */
+export function parquetParts(folder: string): string[] {
+  const found: string[] = [];
+  const walk = (dir: string) => {
+    for (const entry of readdirSync(dir).sort()) {
+      const full = join(dir, entry);
+      if (statSync(full).isDirectory()) walk(full);
+      else if (entry.toLowerCase().endsWith('.parquet')) found.push(relative(folder, full).split(sep).join('/'));
+    }
+  };
+  walk(folder);
+  return found;
 }
 
 export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {

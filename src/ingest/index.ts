@@ -2,7 +2,10 @@
  * Stage 1, ingest: reads a bulletin folder (configuration, tables, boundaries) into typed inputs
  * and one list of problems. Nothing here computes a statistic.
  */
+import { createHash } from 'node:crypto';
+import { statSync } from 'node:fs';
 import { sha256File } from '../site/files.ts';
+import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
@@ -27,6 +30,8 @@ export interface InputFile {
   path: string;
   sha256: string;
   bytes: number;
+  /** For a folder of Parquet partitions: each partition, relative to the folder. */
+  parts?: Array<{ path: string; sha256: string; bytes: number }>;
 }
 
 export interface BulletinInputs {
@@ -47,8 +52,17 @@ export interface IngestResult {
   problems: ProblemList;
 }
 
+/**
+ * SHA-256 of an input. For a folder of Parquet partitions: the SHA-256 of its listing in the form
+ * `sha256sum` prints (one line per partition, "<hash>  <path>", sorted by path), so the listing can
+ * be checked with standard tools; bytes are the partitions' total.
+ */
 function hashFile(folder: string, path: string): InputFile {
-  return { path, ...sha256File(join(folder, path)) };
+  const full = join(folder, path);
+  if (!statSync(full).isDirectory()) return { path, ...sha256File(full) };
+  const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part)) }));
+  const listing = parts.map(({ part, sha256 }) => `${sha256}  ${part}\n`).join('');
+  return { path, sha256: createHash('sha256').update(listing).digest('hex'), bytes: parts.reduce((sum, part) => sum + part.bytes, 0), parts: parts.map(({ part, sha256, bytes }) => ({ path: part, sha256, bytes })) };
 }
 
 /**

@@ -91,6 +91,10 @@ function rangesOf(path: string): { header: string[]; size: number; ranges: Array
   } catch {
     return null; // missing or unreadable: the general reader says which
   }
+  if (!fstatSync(handle).isFile()) {
+    closeSync(handle);
+    return null; // a folder of partitions: the general reader's
+  }
   try {
     const size = fstatSync(handle).size;
     const head = Buffer.alloc(Math.min(size, 1 << 16));

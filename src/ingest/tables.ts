@@ -198,7 +198,7 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
     share.push(observed);
     scenes.push(sceneCount);
     lines.push(line);
-  });
+  }, (file) => (cells.file = file));
   later.report();
   const table: AreaTable = { length: body.length, body: body.done(), month: month.done(), waterHa: water.done(), observedShare: share.done(), scenes: scenes.done(), line: lines.done() };
   reportDuplicates(duplicates, table, label, context.problems, 'the same water body and month');
@@ -267,7 +267,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     parameter.push(code);
     medians.push(found[2] as number);
     lines.push(line);
-  });
+  }, (file) => (cells.file = file));
   later.report();
   const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), median: medians.done(), line: lines.done() };
   reportDuplicates(duplicates, table, label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);

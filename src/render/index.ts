@@ -3,12 +3,13 @@
  * pages inside a given folder; downloads, feeds, the sitemap and the manifests are written beside
  * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
-import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { parquetParts } from '../ingest/csv.ts';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
-import type { BulletinInputs } from '../ingest/index.ts';
+
 import type { BulletinModel } from '../model/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
@@ -28,7 +29,6 @@ export interface IssueBundle {
   charts: ChartSet;
   /** The issue's bulletin folder, for its content and its input files. */
   folder: string;
-  inputs: BulletinInputs;
 }
 
 /** Everything one issue's pages read, computed here so templates only place it. */
@@ -55,7 +55,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
     revisions,
-    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${issue}data/inputs/${file.path}` })),
+    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${issue}data/inputs/${file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${issue}data/inputs/${file.path}/${part.path}` })) })),
     jsonLd: jsonLd(model),
     subRegions: model.boundaries.map((region) => subRegionView(model, region.id)),
     monitoredBodies: model.monitored.map((entry) => bodyView(model, entry.body)),
@@ -139,9 +139,13 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
     // Every input table, as published, for download.
     for (const input of bundle.model.inputs) {
+      const source = join(bundle.folder, input.path);
       const target = join(outDir, bundle.model.meta.issuePath, 'data', 'inputs', input.path);
-      mkdirSync(dirname(target), { recursive: true });
-      copyFileSync(join(bundle.folder, input.path), target);
+      // A folder of Parquet partitions is published as its partitions, the files its hash covers.
+      for (const part of statSync(source).isDirectory() ? parquetParts(source) : ['']) {
+        mkdirSync(dirname(join(target, part)), { recursive: true });
+        copyFileSync(join(source, part), join(target, part));
+      }
     }
   }
   for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir)) write(file);

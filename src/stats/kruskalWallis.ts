@@ -22,6 +22,9 @@ export interface KruskalWallisResult {
  * 1 − Σ(t³ − t)/(N³ − N); p from the chi-square distribution with (groups − 1) degrees of freedom.
  * Missing values are skipped. Cost O(N log N).
  */
+/** Slots of the groups 0..63 (reused between calls). */
+const SMALL_SLOTS = new Int32Array(64);
+
 export function kruskalWallis(groups: ArrayLike<number>, values: ArrayLike<number | null | undefined>): KruskalWallisResult {
   // Values and their groups in work buffers, then sorted together by value (a stable merge sort
   // of positions: no object per value, which mattered at a test per water body).
@@ -36,7 +39,10 @@ export function kruskalWallis(groups: ArrayLike<number>, values: ArrayLike<numbe
     }
   }
   const order = sortedPositions(kept, n);
-  // Rank sums by group: groups are keys of a map from group to its slot in the sums.
+  // Rank sums by group, each group in a slot numbered by first appearance in rank order (the order
+  // the sums are added in). Calendar months and other small whole numbers find their slot in an
+  // array; any other group in a map.
+  const smallSlot = SMALL_SLOTS.fill(-1);
   const slotOf = new Map<number, number>();
   const sums: number[] = [];
   const counts: number[] = [];
@@ -50,10 +56,12 @@ export function kruskalWallis(groups: ArrayLike<number>, values: ArrayLike<numbe
     tieTerm += size ** 3 - size;
     for (let k = start; k <= end; k++) {
       const group = keptGroups[order[k] as number] as number;
-      let slot = slotOf.get(group);
-      if (slot === undefined) {
+      const small = group >= 0 && group < SMALL_SLOTS.length && Number.isInteger(group);
+      let slot = small ? (smallSlot[group] as number) : (slotOf.get(group) ?? -1);
+      if (slot < 0) {
         slot = sums.length;
-        slotOf.set(group, slot);
+        if (small) smallSlot[group] = slot;
+        else slotOf.set(group, slot);
         sums.push(0);
         counts.push(0);
       }
