@@ -29,8 +29,8 @@ export async function readAreaFast(path: string, bodies: WaterBody[], context: R
 export async function readQualityFast(path: string, bodies: WaterBody[], context: ReadContext): Promise<QualityTable | null> {
   const joined = await scanFile('quality', path, bodies, context);
   if (!joined) return null;
-  const [codes, median] = joined.values as [Float64Array, Float64Array];
-  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: Int32Array.from(codes), median, line: joined.line };
+  const [median] = joined.values as [Float64Array];
+  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: joined.parameter as Int32Array, median, line: joined.line };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }
 
@@ -66,7 +66,8 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   const rows = parts.reduce((sum, part) => sum + part.rows, 0);
   if (rows === 0) return null;
   // Join in file order; line numbers count the header (line 1) and every line of earlier ranges.
-  const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), line: new Int32Array(rows), values: (parts[0] as (typeof parts)[number]).columns.values.map(() => new Float64Array(rows)) };
+  const first = (parts[0] as (typeof parts)[number]).columns;
+  const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), line: new Int32Array(rows), values: first.values.map(() => new Float64Array(rows)), ...(first.parameter ? { parameter: new Int32Array(rows) } : {}) };
   let at = 0;
   let lineOffset = 1;
   for (let p = 0; p < parts.length; p++) {
@@ -77,6 +78,7 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
     joined.month.set(columns.month, at);
     for (let k = 0; k < part.rows; k++) joined.line[at + k] = (columns.line[k] as number) + lineOffset;
     columns.values.forEach((column, c) => (joined.values[c] as Float64Array).set(column, at));
+    if (columns.parameter) joined.parameter?.set(columns.parameter, at);
     at += part.rows;
     lineOffset += part.lines;
   }

@@ -62,8 +62,10 @@ export interface ScanColumns {
   body: Int32Array;
   month: Int32Array;
   line: Int32Array;
-  /** area: waterHa, observedShare, scenes; quality: parameter (as doubles), median. */
+  /** area: waterHa, observedShare, scenes; quality: median. */
   values: Float64Array[];
+  /** quality: the parameter of each row (index into QUALITY_PARAMETERS). */
+  parameter?: Int32Array;
 }
 
 export type ScanResult = { ok: true; rows: number; lines: number; columns: ScanColumns } | { ok: false; reason: string; line: number };
@@ -133,7 +135,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
   const kept = area ? [0, 1, 2] : [2];
   const columns = kept.map(doubles);
-  const parameters = doubles();
+  const parameters = ints();
   const row = new Float64Array(numberNames.length);
   const buffer = Buffer.allocUnsafe(chunkBytes);
   const previousId = new Uint8Array(256);
@@ -275,7 +277,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
     closeSync(handle);
   }
   const values = columns.map((column) => column.done());
-  return { ok: true, rows: body.length, lines: lineNumber, columns: { body: body.done(), month: month.done(), line: line.done(), values: area ? values : [parameters.done(), ...values] } };
+  return { ok: true, rows: body.length, lines: lineNumber, columns: { body: body.done(), month: month.done(), line: line.done(), values, ...(area ? {} : { parameter: parameters.done() }) } };
 }
 
 /** A month YYYY-MM from 7 bytes, as year × 12 + month − 1; NaN when it is not one. */

@@ -135,18 +135,22 @@ export async function manyTrendTests(firstMonth: number, months: number, count: 
     onBatch?.(count);
     return tests;
   }
-  const batches: Array<Promise<EncodedTests>> = [];
-  for (let from = 0; from < count; from += BATCH) {
-    const values = rows(from, Math.min(count, from + BATCH));
-    const size = Math.min(count, from + BATCH) - from;
-    batches.push(
-      pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]).then((encoded) => {
-        onBatch?.(size);
-        return encoded;
-      }),
-    );
-  }
-  return (await Promise.all(batches)).flatMap(decodeTests);
+  // A batch's matrix is made only when a thread is about to take it (two in hand per thread), so
+  // the series of a whole inventory are never copied at once.
+  const results: EncodedTests[] = [];
+  let next = 0;
+  const lane = async () => {
+    while (next < count) {
+      const from = next;
+      next = Math.min(count, from + BATCH);
+      const size = next - from;
+      const values = rows(from, next); // moved to the thread: empty here afterwards
+      results[from / BATCH] = await pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]);
+      onBatch?.(size);
+    }
+  };
+  await Promise.all(Array.from({ length: 2 * pool.size }, lane));
+  return results.flatMap(decodeTests);
 }
 
 /** Observed filling of bodies [from, to), body-major, NaN where not observed. */
