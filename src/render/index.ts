@@ -3,9 +3,9 @@
  * pages inside a given folder; downloads, feeds, the sitemap and the manifests are written beside
  * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
-import { copyFileSync, mkdirSync, statSync, writeFileSync } from 'node:fs';
-import { parquetParts } from '../ingest/csv.ts';
-import { dirname, join } from 'node:path';
+import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { copyWithHash } from '../site/files.ts';
+import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
@@ -135,6 +135,8 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     mkdirSync(dirname(target), { recursive: true });
     writeFileSync(target, file.content);
   };
+  // Hashes of the copied inputs, taken while copying: the manifests need not read them again.
+  const known = new Map<string, string>();
   for (const bundle of bundles) {
     for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
     // Every input table, as published, for download.
@@ -142,13 +144,18 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
       const source = join(bundle.folder, input.path);
       const target = join(outDir, bundle.model.meta.issuePath, 'data', 'inputs', input.path);
       // A folder of Parquet partitions is published as its partitions, the files its hash covers.
-      for (const part of statSync(source).isDirectory() ? parquetParts(source) : ['']) {
-        mkdirSync(dirname(join(target, part)), { recursive: true });
-        copyFileSync(join(source, part), join(target, part));
+      const folder = statSync(source).isDirectory();
+      for (const part of folder ? (input.parts ?? []) : [input]) {
+        const to = folder ? join(target, part.path) : target;
+        mkdirSync(dirname(to), { recursive: true });
+        const sha256 = copyWithHash(folder ? join(source, part.path) : source, to);
+        // The bytes published must be the bytes read: an input changed during the build stops it.
+        if (sha256 !== part.sha256) throw new Error(`${input.path}${folder ? `/${part.path}` : ''} changed while the bulletin was being built; build again`);
+        known.set(relative(outDir, to).split(sep).join('/'), sha256);
       }
     }
   }
-  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir)) write(file);
+  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known)) write(file);
 }
 
 /** Inventories larger than this get their model JSON written without indentation. */

@@ -67,7 +67,7 @@ function jsonFeed(models: BulletinModel[]): string {
 }
 
 /** Feeds and sitemap first; then the manifests over everything written, the site manifest last. */
-export function siteFiles(models: BulletinModel[], outDir: string): SiteFile[] {
+export function siteFiles(models: BulletinModel[], outDir: string, known: ReadonlyMap<string, string> = new Map()): SiteFile[] {
   const current = models.filter((model) => !model.meta.issuePath.includes('/revisions/')).sort((a, b) => b.meta.month.localeCompare(a.meta.month));
   const latest = current[0] as BulletinModel;
   const files: SiteFile[] = [
@@ -84,7 +84,8 @@ export function siteFiles(models: BulletinModel[], outDir: string): SiteFile[] {
   const all = [...new Set([...listFiles(outDir), ...pending.keys()])].sort();
   const hashOf = (path: string) => {
     const content = pending.get(path);
-    return content === undefined ? sha256File(join(outDir, path)).sha256 : sha256(content);
+    if (content !== undefined) return sha256(content);
+    return known.get(path) ?? sha256File(join(outDir, path)).sha256;
   };
   const issuePrefixes = models.map((model) => model.meta.issuePath.replace(/^\//, ''));
   const ownerOf = (path: string) => issuePrefixes.filter((prefix) => path.startsWith(prefix)).sort((a, b) => b.length - a.length)[0] ?? null;
