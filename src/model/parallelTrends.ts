@@ -1,15 +1,17 @@
 /**
- * Trend statistics for many series on worker threads: the series are cut into batches, each worker
- * takes the next batch when it finishes one, and the rows come back in input order, so the result
- * is identical to trendTable's whatever the number of workers.
+ * Trend statistics for many series on worker threads: the series are cut into batches, each thread
+ * takes the next batch when it finishes one (through a WorkerPool, so threads started once serve
+ * every call), and the rows come back in input order, so the result is identical to trendTable's
+ * whatever the number of threads.
  */
-import { availableParallelism } from 'node:os';
-import { Worker } from 'node:worker_threads';
+import { WorkerPool, defaultWorkers } from '../parallel/pool.ts';
 import { adjustAcrossSeries, trendRow, type TrendOptions, type TrendRow, type TrendSeries } from './seriesTrends.ts';
 
 export interface ParallelOptions {
-  /** Worker threads; default: the machine's available parallelism. 1 or fewer runs in this thread. */
+  /** Worker threads when no pool is given; default: the machine's cores. 1 or fewer runs in this thread. */
   workers?: number;
+  /** Threads already started (their start-up then is not paid again); closed by its owner. */
+  pool?: WorkerPool;
   /** Series per batch; default 256. */
   batchSize?: number;
   /** Called after each batch with the number of series done. */
@@ -19,9 +21,9 @@ export interface ParallelOptions {
 type Row = Omit<TrendRow, 'pAdjusted' | 'rejected'>;
 
 export async function parallelTrends(series: TrendSeries[], options: TrendOptions, parallel: ParallelOptions = {}): Promise<TrendRow[]> {
-  const workerCount = Math.min(parallel.workers ?? availableParallelism(), Math.ceil(series.length / (parallel.batchSize ?? 256)));
   const batchSize = parallel.batchSize ?? 256;
-  if (workerCount <= 1) {
+  const threads = parallel.pool?.size ?? Math.min(parallel.workers ?? defaultWorkers(), Math.ceil(series.length / batchSize));
+  if (threads <= 1) {
     const rows: Row[] = [];
     for (let start = 0; start < series.length; start += batchSize) {
       for (const entry of series.slice(start, start + batchSize)) rows.push(trendRow(entry, options));
@@ -29,42 +31,22 @@ export async function parallelTrends(series: TrendSeries[], options: TrendOption
     }
     return adjustAcrossSeries(rows, options.falseDiscoveryRate);
   }
-  const batches: TrendSeries[][] = [];
-  for (let start = 0; start < series.length; start += batchSize) batches.push(series.slice(start, start + batchSize));
-  const results: Row[][] = new Array(batches.length);
-  let next = 0;
+  const pool = parallel.pool ?? new WorkerPool(threads);
   let done = 0;
-  const workers = Array.from({ length: workerCount }, () => new Worker(new URL('./trendWorkerEntry.js', import.meta.url)));
   try {
-    await Promise.all(
-      workers.map(
-        (worker) =>
-          new Promise<void>((resolve, reject) => {
-            const send = () => {
-              if (next >= batches.length) {
-                resolve();
-                return;
-              }
-              const id = next++;
-              worker.postMessage({ id, series: batches[id], options });
-            };
-            worker.on('message', (message: { id: number; rows?: Row[]; error?: string }) => {
-              if (message.error !== undefined || !message.rows) {
-                reject(new Error(message.error ?? 'a trend worker sent no rows'));
-                return;
-              }
-              results[message.id] = message.rows;
-              done += message.rows.length;
-              parallel.onProgress?.(done, series.length);
-              send();
-            });
-            worker.on('error', reject);
-            send();
-          }),
-      ),
-    );
+    const batches: Array<Promise<Row[]>> = [];
+    for (let start = 0; start < series.length; start += batchSize) {
+      const batch = series.slice(start, start + batchSize);
+      batches.push(
+        pool.run('trendRows', { series: batch, options }).then((rows) => {
+          done += rows.length;
+          parallel.onProgress?.(done, series.length);
+          return rows;
+        }),
+      );
+    }
+    return adjustAcrossSeries((await Promise.all(batches)).flat(), options.falseDiscoveryRate);
   } finally {
-    await Promise.all(workers.map((worker) => worker.terminate()));
+    if (!parallel.pool) await pool.close();
   }
-  return adjustAcrossSeries(results.flat(), options.falseDiscoveryRate);
 }
