@@ -5,8 +5,9 @@
  * array of texts with its line number (CSV: the header is line 1; Parquet: row k is line k + 1, so
  * numbers mean the same in both) and a map from column name to position.
  */
-import { createReadStream, existsSync, readdirSync, statSync } from 'node:fs';
-import { join, relative, sep } from 'node:path';
+import { createReadStream, existsSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { listFiles } from '../site/files.ts';
 import Papa from 'papaparse';
 import { asyncBufferFromFile, parquetReadObjects } from 'hyparquet';
 import { EncodingError, lineAtOffset, StrictUtf8 } from './encoding.ts';
@@ -52,16 +53,7 @@ export async function readTable(path: string, label: string, columns: ColumnSpec
 
 /** The .parquet files below a folder, as sorted relative paths with forward slashes. */
 export function parquetParts(folder: string): string[] {
-  const found: string[] = [];
-  const walk = (dir: string) => {
-    for (const entry of readdirSync(dir).sort()) {
-      const full = join(dir, entry);
-      if (statSync(full).isDirectory()) walk(full);
-      else if (entry.toLowerCase().endsWith('.parquet')) found.push(relative(folder, full).split(sep).join('/'));
-    }
-  };
-  walk(folder);
-  return found;
+  return listFiles(folder).filter((path) => path.toLowerCase().endsWith('.parquet'));
 }
 
 export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {

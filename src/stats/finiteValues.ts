@@ -23,18 +23,9 @@ function isArrayLike(values: object): values is ArrayLike<number | null | undefi
  * are finite. Returns new arrays. Cost O(n).
  */
 export function finitePairs(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>): { times: Float64Array; values: Float64Array } {
-  if (times.length !== values.length) throw new RangeError('times and values must have the same length');
   const keptTimes = new Float64Array(values.length);
   const keptValues = new Float64Array(values.length);
-  let n = 0;
-  for (let k = 0; k < values.length; k++) {
-    const time = times[k];
-    const value = values[k];
-    if (typeof time === 'number' && time - time === 0 && typeof value === 'number' && value - value === 0) {
-      keptTimes[n] = time;
-      keptValues[n++] = value;
-    }
-  }
+  const n = copyFinitePairs(times, values, keptTimes, keptValues);
   return n === values.length ? { times: keptTimes, values: keptValues } : { times: keptTimes.slice(0, n), values: keptValues.slice(0, n) };
 }
 
