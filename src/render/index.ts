@@ -4,7 +4,7 @@
  * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
 import { mkdirSync, statSync, writeFileSync } from 'node:fs';
-import { copyWithHash } from '../site/files.ts';
+import { copyHashed } from '../site/files.ts';
 import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
@@ -135,7 +135,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     mkdirSync(dirname(target), { recursive: true });
     writeFileSync(target, file.content);
   };
-  // Hashes of the copied inputs, taken while copying: the manifests need not read them again.
+  // Hashes of the copied inputs (known from reading them, or taken while copying): the manifests need not read them again.
   const known = new Map<string, string>();
   for (const bundle of bundles) {
     for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
@@ -148,7 +148,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
       for (const part of folder ? (input.parts ?? []) : [input]) {
         const to = folder ? join(target, part.path) : target;
         mkdirSync(dirname(to), { recursive: true });
-        const sha256 = copyWithHash(folder ? join(source, part.path) : source, to);
+        const sha256 = copyHashed(folder ? join(source, part.path) : source, to);
         // The bytes published must be the bytes read: an input changed during the build stops it.
         if (sha256 !== part.sha256) throw new Error(`${input.path}${folder ? `/${part.path}` : ''} changed while the bulletin was being built; build again`);
         known.set(relative(outDir, to).split(sep).join('/'), sha256);

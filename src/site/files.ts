@@ -1,6 +1,6 @@
 /** Walking a built site: its files as sorted relative paths with forward slashes, and their hashes. */
 import { createHash } from 'node:crypto';
-import { closeSync, openSync, readdirSync, readSync, statSync, writeSync } from 'node:fs';
+import { closeSync, copyFileSync, openSync, readdirSync, readSync, statSync, writeSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 
 export function listFiles(dir: string): string[] {
@@ -18,8 +18,16 @@ export function listFiles(dir: string): string[] {
 
 export const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
 
+/**
+ * Hashes taken in this process, by path, with the size, modification time and inode the file had
+ * then: a file unchanged since (all three equal, the test make and rsync rely on) need not be read
+ * again to know its hash.
+ */
+const hashed = new Map<string, { sha256: string; size: number; mtimeMs: number; ino: number }>();
+
 /** SHA-256 and size of a file read in 8 MB pieces, so a file of gigabytes is never held whole. */
 export function sha256File(path: string): { sha256: string; bytes: number } {
+  const before = statSync(path);
   const hash = createHash('sha256');
   const handle = openSync(path, 'r');
   const piece = Buffer.allocUnsafe(8 << 20);
@@ -32,7 +40,25 @@ export function sha256File(path: string): { sha256: string; bytes: number } {
   } finally {
     closeSync(handle);
   }
-  return { sha256: hash.digest('hex'), bytes };
+  const sha256 = hash.digest('hex');
+  const after = statSync(path);
+  if (after.size === before.size && after.mtimeMs === before.mtimeMs) hashed.set(path, { sha256, size: after.size, mtimeMs: after.mtimeMs, ino: after.ino });
+  return { sha256, bytes };
+}
+
+/**
+ * Copies a file and returns the SHA-256 of what was written: a file hashed earlier in this process
+ * and unchanged since is copied by the system (its hash is known), any other is copied and hashed
+ * in one read (copyWithHash).
+ */
+export function copyHashed(source: string, target: string): string {
+  const known = hashed.get(source);
+  const stat = statSync(source);
+  if (known && known.size === stat.size && known.mtimeMs === stat.mtimeMs && known.ino === stat.ino) {
+    copyFileSync(source, target);
+    return known.sha256;
+  }
+  return copyWithHash(source, target);
 }
 
 /** Copies a file in 8 MB pieces and returns the SHA-256 of the bytes written, read once for both. */
