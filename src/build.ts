@@ -115,6 +115,8 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
     loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
   }
+  // The worker threads have done their part (reading, trend tests): their memory goes back now.
+  await closeSharedPool();
   const modelSeconds = lap('model');
   progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
 
@@ -141,7 +143,7 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir, stats };
 }
 
-const EMPTY_AREA: BulletinInputs['area'] = { length: 0, body: new Int32Array(0), month: new Int32Array(0), waterHa: new Float64Array(0), observedShare: new Float64Array(0), scenes: new Float64Array(0), line: new Int32Array(0) };
+const EMPTY_AREA: BulletinInputs['area'] = { length: 0, body: new Int32Array(0), month: new Int32Array(0), waterHa: new Float64Array(0), observedShare: new Float64Array(0), scenes: new Float64Array(0) };
 
 /** Files, HTML pages and bytes of a built site. */
 function siteSize(dir: string): { files: number; pages: number; bytes: number } {

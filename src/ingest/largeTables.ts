@@ -22,7 +22,7 @@ export async function readAreaFast(path: string, bodies: WaterBody[], context: R
   const joined = await scanFile('area', path, bodies, context);
   if (!joined) return null;
   const [waterHa, observedShare, scenes] = joined.values as [Float64Array, Float64Array, Float64Array];
-  const table: AreaTable = { length: joined.body.length, body: joined.body, month: joined.month, waterHa, observedShare, scenes, line: joined.line };
+  const table: AreaTable = { length: joined.body.length, body: joined.body, month: joined.month, waterHa, observedShare, scenes };
   return hasRepeats(table, bodies.length, context.bulletinMonth) ? null : table;
 }
 
@@ -30,7 +30,7 @@ export async function readQualityFast(path: string, bodies: WaterBody[], context
   const joined = await scanFile('quality', path, bodies, context);
   if (!joined) return null;
   const [median] = joined.values as [Float64Array];
-  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: joined.parameter as Int32Array, median, line: joined.line };
+  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: joined.parameter as Int32Array, median };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }
 
@@ -65,22 +65,19 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   const parts = results as Array<Extract<ScanResult, { ok: true }>>;
   const rows = parts.reduce((sum, part) => sum + part.rows, 0);
   if (rows === 0) return null;
-  // Join in file order; line numbers count the header (line 1) and every line of earlier ranges.
+  // Join in file order.
   const first = (parts[0] as (typeof parts)[number]).columns;
-  const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), line: new Int32Array(rows), values: first.values.map(() => new Float64Array(rows)), ...(first.parameter ? { parameter: new Int32Array(rows) } : {}) };
+  const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), values: first.values.map(() => new Float64Array(rows)), ...(first.parameter ? { parameter: new Int32Array(rows) } : {}) };
   let at = 0;
-  let lineOffset = 1;
   for (let p = 0; p < parts.length; p++) {
     const part = parts[p] as (typeof parts)[number];
     const { columns } = part;
     delete parts[p]; // its columns can go as soon as they are copied: the peak stays near one table
     joined.body.set(columns.body, at);
     joined.month.set(columns.month, at);
-    for (let k = 0; k < part.rows; k++) joined.line[at + k] = (columns.line[k] as number) + lineOffset;
     columns.values.forEach((column, c) => (joined.values[c] as Float64Array).set(column, at));
     if (columns.parameter) joined.parameter?.set(columns.parameter, at);
     at += part.rows;
-    lineOffset += part.lines;
   }
   return joined;
 }

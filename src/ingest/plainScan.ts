@@ -57,11 +57,10 @@ function lookupOf(inventory: ScanInventory): Map<string, number> {
   return index;
 }
 
-/** Columns of one range; `line` counts from 1 at the range's first line (the caller adds the offset). */
+/** Columns of one range (line numbers are not kept: the fast path gives up on anything it would have to report). */
 export interface ScanColumns {
   body: Int32Array;
   month: Int32Array;
-  line: Int32Array;
   /** area: waterHa, observedShare, scenes; quality: median. */
   values: Float64Array[];
   /** quality: the parameter of each row (index into QUALITY_PARAMETERS). */
@@ -131,7 +130,6 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const index = lookupOf(inventory);
   const body = ints();
   const month = ints();
-  const line = ints();
   // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
   const kept = area ? [0, 1, 2] : [2];
   const columns = kept.map(doubles);
@@ -242,7 +240,6 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
     for (let c = 0; c < kept.length; c++) (columns[c] as Column<Float64Array>).push(row[kept[c] as number] as number);
     body.push(previousBody);
     month.push(when);
-    line.push(lineNumber);
     return true;
   }
 
@@ -277,7 +274,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
     closeSync(handle);
   }
   const values = columns.map((column) => column.done());
-  return { ok: true, rows: body.length, lines: lineNumber, columns: { body: body.done(), month: month.done(), line: line.done(), values, ...(area ? {} : { parameter: parameters.done() }) } };
+  return { ok: true, rows: body.length, lines: lineNumber, columns: { body: body.done(), month: month.done(), values, ...(area ? {} : { parameter: parameters.done() }) } };
 }
 
 /** A month YYYY-MM from 7 bytes, as year × 12 + month − 1; NaN when it is not one. */

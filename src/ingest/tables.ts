@@ -32,7 +32,6 @@ export interface AreaTable {
   waterHa: Float64Array;
   observedShare: Float64Array;
   scenes: Float64Array;
-  line: Int32Array;
 }
 
 export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
@@ -55,7 +54,6 @@ export interface QualityTable {
    * about 40 bytes a row.
    */
   median: Float64Array;
-  line: Int32Array;
 }
 
 export interface RainfallRecord {
@@ -200,17 +198,17 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
     lines.push(line);
   }, (file) => (cells.file = file));
   later.report();
-  const table: AreaTable = { length: body.length, body: body.done(), month: month.done(), waterHa: water.done(), observedShare: share.done(), scenes: scenes.done(), line: lines.done() };
-  reportDuplicates(duplicates, table, label, context.problems, 'the same water body and month');
+  const table: AreaTable = { length: body.length, body: body.done(), month: month.done(), waterHa: water.done(), observedShare: share.done(), scenes: scenes.done() };
+  reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'the same water body and month');
   return table;
 }
 
 /** Names the first line of each repeated (body, month) by one scan over the kept rows. */
-function reportDuplicates(duplicates: Array<{ body: number; month: number; line: number }>, table: { body: Int32Array; month: Int32Array; line: Int32Array; length: number }, label: string, problems: ProblemList, what: string, parameter?: Int32Array, parameters?: number[]): void {
+function reportDuplicates(duplicates: Array<{ body: number; month: number; line: number }>, table: { body: Int32Array; month: Int32Array; length: number }, lines: Int32Array, label: string, problems: ProblemList, what: string, parameter?: Int32Array, parameters?: number[]): void {
   if (duplicates.length === 0) return;
   const key = (b: number, m: number, p: number) => `${b} ${m} ${p}`;
   const firstLine = new Map<string, number>();
-  for (let k = 0; k < table.length; k++) firstLine.set(key(table.body[k] as number, table.month[k] as number, parameter ? (parameter[k] as number) : 0), table.line[k] as number);
+  for (let k = 0; k < table.length; k++) firstLine.set(key(table.body[k] as number, table.month[k] as number, parameter ? (parameter[k] as number) : 0), lines[k] as number);
   duplicates.forEach((duplicate, k) => {
     const earlier = firstLine.get(key(duplicate.body, duplicate.month, parameters?.[k] ?? 0));
     problems.error({ code: 'duplicate-row', file: label, line: duplicate.line, column: 'month', value: monthLabel(duplicate.month), expected: 'one row per water body and month', message: `${what} already appear on line ${earlier ?? '?'}` });
@@ -269,8 +267,8 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     lines.push(line);
   }, (file) => (cells.file = file));
   later.report();
-  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), median: medians.done(), line: lines.done() };
-  reportDuplicates(duplicates, table, label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);
+  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), median: medians.done() };
+  reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);
   return table;
 }
 

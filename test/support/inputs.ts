@@ -13,6 +13,5 @@ export function areaTable(bodies: WaterBody[], rows: Array<[string, number, numb
     waterHa: Float64Array.from(rows, ([, , water]) => water),
     observedShare: Float64Array.from(rows, ([, , , share]) => share),
     scenes: new Float64Array(rows.length),
-    line: Int32Array.from(rows, (_, k) => k + 2),
   };
 }
