@@ -110,6 +110,13 @@ export function siteData(issues: Array<ReturnType<typeof issueData>>) {
 }
 
 export async function renderSite(bundles: IssueBundle[], outDir: string): Promise<void> {
+  const write = (file: SiteFile) => {
+    const target = join(outDir, file.path);
+    mkdirSync(dirname(target), { recursive: true });
+    writeFileSync(target, file.content);
+  };
+  // Downloads first: a large model's JSON is written and let go before the pages take their memory.
+  for (const bundle of bundles) for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
   const issues = bundles.map((bundle) => issueData(bundle, bundles));
   const site = siteData(issues);
   const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
@@ -130,15 +137,9 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
   // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
   eleventy.disableLogger();
   await eleventy.write();
-  const write = (file: SiteFile) => {
-    const target = join(outDir, file.path);
-    mkdirSync(dirname(target), { recursive: true });
-    writeFileSync(target, file.content);
-  };
   // Hashes of the copied inputs (known from reading them, or taken while copying): the manifests need not read them again.
   const known = new Map<string, string>();
   for (const bundle of bundles) {
-    for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
     // Every input table, as published, for download.
     for (const input of bundle.model.inputs) {
       const source = join(bundle.folder, input.path);
@@ -161,18 +162,19 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
 /** Inventories larger than this get their model JSON written without indentation. */
 const COMPACT_MODEL_FROM = 10_000;
 
-/** The files written beside an issue's pages: the model, the card and each chart's data, spec and PNG. */
-export function downloadFiles(model: BulletinModel, chartSet: ChartSet): SiteFile[] {
+/**
+ * The files written beside an issue's pages: the model, the card and each chart's data, spec and
+ * PNG. Made one at a time as they are asked for, so a large model's JSON is written and let go
+ * before the next file is made.
+ */
+export function* downloadFiles(model: BulletinModel, chartSet: ChartSet): Generator<SiteFile> {
   const issue = model.meta.issuePath.replace(/^\//, '');
-  const files: SiteFile[] = [
-    // Indented for reading; compact for a large inventory, where indentation alone would add tens of megabytes.
-    { path: `${issue}data/bulletin-model.json`, content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n` },
-    { path: `${issue}card.png`, content: chartSet.card.png },
-  ];
+  // Indented for reading; compact for a large inventory, where indentation alone would add tens of megabytes.
+  yield { path: `${issue}data/bulletin-model.json`, content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n` };
+  yield { path: `${issue}card.png`, content: chartSet.card.png };
   for (const chart of Object.values(chartSet.charts)) {
-    files.push({ path: `${issue}charts/${chart.id}.csv`, content: chart.csv });
-    files.push({ path: `${issue}charts/${chart.id}.vl.json`, content: chart.specJson });
-    if (chart.png) files.push({ path: `${issue}charts/${chart.id}.png`, content: chart.png });
+    yield { path: `${issue}charts/${chart.id}.csv`, content: chart.csv };
+    yield { path: `${issue}charts/${chart.id}.vl.json`, content: chart.specJson };
+    if (chart.png) yield { path: `${issue}charts/${chart.id}.png`, content: chart.png };
   }
-  return files;
 }
