@@ -68,11 +68,13 @@ export async function readCsv(path: string, label: string, columns: ColumnSpec[]
       decoded.on('error', reject);
       Papa.parse<string[]>(decoded as unknown as File, {
         header: false,
-        skipEmptyLines: true,
+        // Empty lines come through (and are skipped below) so that line numbers stay those of the file.
+        skipEmptyLines: false,
         delimitersToGuess: [',', ';'],
         chunk: (result) => {
           for (const values of result.data) {
             line++;
+            if (values.length === 1 && values[0] === '') continue;
             if (header === null) {
               header = values.map((name) => name.trim());
               index = columnIndex(header, columns);

@@ -83,6 +83,14 @@ describe('loadBulletin', () => {
     expect(await problemsOf({ 'area.csv': replaceLine(base['area.csv'], 2, 'A,2018-01,16,0.95,3') })).toEqual(['warning area-above-reference area.csv:2 water_area_ha']);
   });
 
+  it('names the line of the file after blank lines (they are skipped but counted)', async () => {
+    // Blank lines after lines 3 and 5 of the file: the bad month written on line 6 of the table is line 8 of the file.
+    const rows = base['area.csv'].split('\n');
+    rows[5] = 'A,2018-13,8,0.95,3';
+    const area = [...rows.slice(0, 3), '', ...rows.slice(3, 5), '', ...rows.slice(5)].join('\n');
+    expect(await problemsOf({ 'area.csv': area })).toEqual(['error month-invalid area.csv:8 month']);
+  });
+
   it('reports an unparseable month and date, and warns about (and skips) months after the bulletin month', async () => {
     const area = `${replaceLine(base['area.csv'], 2, 'A,2018/01,8,0.95,3')}A,2020-07,8,0.9,2\nB,2020-08,8,0.9,2\n`;
     const field = replaceLine(base['field.csv'], 2, 'A,2019-02-30,chlorophyll_a,4.2,ug/L');
