@@ -74,13 +74,15 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   let stageStart = performance.now();
   const lap = (stage: string) => {
     const now = performance.now();
-    times.push([stage, now - stageStart]);
+    const ms = now - stageStart;
+    times.push([stage, ms]);
     stageStart = now;
-    return (times[times.length - 1] as [string, number])[1] / 1000;
+    return ms / 1000;
   };
 
   const folders = issueFolders(options.bulletinFolder);
-  progress.begin('1/5', `reading and checking the inputs of ${folders.length} issue(s)`, folders.length);
+  // Counted by issue only when there are several: with one, a count would sit at 0 % until the end.
+  progress.begin('1/5', `reading and checking the inputs of ${folders.length} issue(s)`, folders.length > 1 ? folders.length : undefined);
   const loaded: Array<{ inputs: BulletinInputs; warnings: Problem[] }> = [];
   const problems: Problem[] = [];
   for (const [k, folder] of folders.entries()) {

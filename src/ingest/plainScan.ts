@@ -17,6 +17,7 @@
  * exponents go through that conversion itself.
  */
 import { closeSync, openSync, readSync } from 'node:fs';
+import { GrowableFloat64, GrowableInt32 } from './columns.ts';
 import { FIRST_MONTH } from './months.ts';
 
 const COMMA = 44;
@@ -87,27 +88,6 @@ const PARAMETERS = [
 ];
 const PARAMETER_NAMES = PARAMETERS.map((parameter) => parameter.name);
 
-/** Growable typed column for the scan (a doubling array). */
-class Column<T extends Float64Array | Int32Array> {
-  length = 0;
-  constructor(
-    private data: T,
-    private readonly make: (length: number) => T,
-  ) {}
-  push(value: number): void {
-    if (this.length === this.data.length) {
-      const grown = this.make(this.data.length * 2);
-      grown.set(this.data);
-      this.data = grown;
-    }
-    this.data[this.length++] = value;
-  }
-  done(): T {
-    return this.data.slice(0, this.length) as T;
-  }
-}
-const doubles = () => new Column(new Float64Array(1 << 16), (length) => new Float64Array(length));
-const ints = () => new Column(new Int32Array(1 << 16), (length) => new Int32Array(length));
 
 /** What each field of a row is, by its position in the header. */
 const ID = 0;
@@ -128,12 +108,12 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const numberNames = area ? ['water_area_ha', 'observed_share', 'scenes'] : ['p10', 'p25', 'median', 'p75', 'p90', 'valid_pixels'];
   const roles = Int32Array.from(task.header, (name) => (name === 'body_id' ? ID : name === 'month' ? MONTH : name === 'parameter' ? PARAMETER : name === 'unit' ? UNIT : ROLE_NUMBER + numberNames.indexOf(name)));
   const index = lookupOf(inventory);
-  const body = ints();
-  const month = ints();
+  const body = new GrowableInt32(1 << 16);
+  const month = new GrowableInt32(1 << 16);
   // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
   const kept = area ? [0, 1, 2] : [2];
-  const columns = kept.map(doubles);
-  const parameters = ints();
+  const columns = kept.map(() => new GrowableFloat64(1 << 16));
+  const parameters = new GrowableInt32(1 << 16);
   const row = new Float64Array(numberNames.length);
   const buffer = Buffer.allocUnsafe(chunkBytes);
   const previousId = new Uint8Array(256);
@@ -237,7 +217,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       }
       parameters.push(code);
     }
-    for (let c = 0; c < kept.length; c++) (columns[c] as Column<Float64Array>).push(row[kept[c] as number] as number);
+    for (let c = 0; c < kept.length; c++) (columns[c] as GrowableFloat64).push(row[kept[c] as number] as number);
     body.push(previousBody);
     month.push(when);
     return true;

@@ -15,7 +15,7 @@
 import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { benjaminiHochberg, mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
-import { sizeClassBounds } from './surfaceWater.ts';
+import { referenceAreasOf, sizeClassBounds } from './surfaceWater.ts';
 import { manyTrendTests, trendTest, type TrendTest } from './trends.ts';
 import type { WorkerPool } from '../parallel/pool.ts';
 
@@ -85,7 +85,7 @@ function binOf(value: number, edges: number[]): number {
 
 function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared?: Array<TrendTest | null>): QualityParameterSummary {
   const { bodies, config, bulletinMonth } = inputs;
-  const reference = bodies.map((body) => body.referenceHa);
+  const reference = referenceAreasOf(inputs);
   // Month-major copy of the body values: each month's values are then one contiguous view.
   const count = data.values.length;
   const byMonth = new Float64Array(data.months * count);
@@ -158,7 +158,7 @@ function medianTrend(monthly: Array<{ month: number; median: number | null }>): 
  */
 function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig): QualityParameterSummary['seasonal'] {
   const out: QualityParameterSummary['seasonal'] = [];
-  const reference = inputs.bodies.map((body) => body.referenceHa);
+  const reference = Array.from(referenceAreasOf(inputs));
   const firstYear = Math.floor(data.firstMonth / 12);
   const lastYear = Math.floor(inputs.bulletinMonth / 12);
   const classes = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => ({ fromHa, toHa, members: reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0) }));

@@ -1,3 +1,5 @@
+import { insertionSort } from './insertionSort.ts';
+
 /**
  * Rearranges `values[from..to]` (inclusive) so that the element at index k is the one that would
  * stand there after sorting, everything before it ≤ it and everything after ≥ it; returns that
@@ -68,16 +70,4 @@ function partitionNotAbove(values: Float64Array, left: number, right: number, pi
     store += value <= pivot ? 1 : 0;
   }
   return store;
-}
-
-function insertionSort(values: Float64Array, left: number, right: number): void {
-  for (let i = left + 1; i <= right; i++) {
-    const held = values[i] as number;
-    let j = i - 1;
-    while (j >= left && (values[j] as number) > held) {
-      values[j + 1] = values[j] as number;
-      j--;
-    }
-    values[j + 1] = held;
-  }
 }

@@ -1,4 +1,5 @@
 import { scratch, scratchInts, scratchShorts } from './scratch.ts';
+import { insertionSort } from './insertionSort.ts';
 import { selectKth } from './selectKth.ts';
 
 /** Below this many values the plain successive selections are already cheap. */
@@ -38,7 +39,7 @@ export function selectRanks(values: Float64Array, count: number, ranks: readonly
 
   const sample = scratch('select-sample', SAMPLE);
   for (let s = 0; s < SAMPLE; s++) sample[s] = values[Math.floor(((s + 0.5) * count) / SAMPLE)] as number;
-  insertionSort(sample, SAMPLE);
+  insertionSort(sample, 0, SAMPLE - 1);
   const from = sample[Math.max(0, Math.floor((lowest * SAMPLE) / count) - MARGIN)] as number;
   const to = sample[Math.min(SAMPLE - 1, Math.ceil(((highest + 1) * SAMPLE) / count) + MARGIN)] as number;
   if (!(to > from) || !Number.isFinite(to - from)) return successive(values, count, ranks);
@@ -122,16 +123,4 @@ function successive(values: Float64Array, count: number, ranks: readonly number[
     from = rank;
     return value;
   });
-}
-
-function insertionSort(values: Float64Array, length: number): void {
-  for (let i = 1; i < length; i++) {
-    const held = values[i] as number;
-    let j = i - 1;
-    while (j >= 0 && (values[j] as number) > held) {
-      values[j + 1] = values[j] as number;
-      j--;
-    }
-    values[j + 1] = held;
-  }
 }
