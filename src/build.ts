@@ -49,6 +49,11 @@ export function toolVersion(): string {
   return pkg.version;
 }
 
+/** Where a language's pages live: the site's first language at the root, any other under /<locale>. */
+export function localePrefix(locale: string, siteLocale: string): string {
+  return locale === siteLocale ? '' : `/${locale}`;
+}
+
 /** Site path of each issue: the latest revision of a month at /issues/YYYY-MM/, earlier ones below it. */
 export function issuePaths(issues: Array<{ month: number; revision: number }>): string[] {
   const latest = new Map<number, number>();
@@ -109,11 +114,20 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   const seriesTotal = loaded.reduce((sum, { inputs }) => sum + trendSeriesCount(inputs), 0);
   progress.begin('2/5', 'computing the bulletin models', seriesTotal);
   let seriesDone = 0;
+  // The site's first language is the current issue's first locale, published at the root; every
+  // other language of an issue lives under /<locale>/ with the same paths below it.
+  const siteLocale = loaded[loaded.length - 1]?.inputs.config.locales[0] ?? 'en';
   const models: BulletinModel[] = [];
+  const localized: Array<{ model: BulletinModel; issue: number; inputsPath: string; firstLocale: string }> = [];
   for (const [k, { inputs, warnings: own }] of loaded.entries()) {
     const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
     progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
-    models.push(buildModel(inputs, own, toolVersion(), { issuePath: paths[k] as string, prepared }));
+    // The statistics are shared; each language gets its own words, dates and numbers.
+    for (const locale of inputs.config.locales) {
+      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${localePrefix(locale, siteLocale)}${paths[k] as string}`, prepared, locale });
+      localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
+      if (locale === inputs.config.locales[0]) models.push(model);
+    }
     // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
     loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
   }
@@ -122,16 +136,16 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   const modelSeconds = lap('model');
   progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
 
-  const chartTotal = models.reduce((sum, model) => sum + chartCount(model), 0);
+  const chartTotal = localized.reduce((sum, { model }) => sum + chartCount(model), 0);
   progress.begin('3/5', 'rendering charts', chartTotal);
   let chartsDone = 0;
   const chartSets: ChartSet[] = [];
-  for (const model of models) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
+  for (const { model } of localized) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
   lap('charts');
   progress.end(`${chartTotal} charts`);
 
   progress.begin('4/5', 'rendering pages');
-  const bundles: IssueBundle[] = models.map((model, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[k] as string }));
+  const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[issue] as string, inputsPath, siteLocale, firstLocale }));
   let site = { files: 0, pages: 0, bytes: 0 };
   await publishAtomically(options.outDir, async (staging) => {
     await renderSite(bundles, staging);

@@ -31,7 +31,7 @@ export function cardSvg(model: BulletinModel): string {
   const t = (key: string) => formatMessage(loadMessages(model.meta.locale), key);
   const status = model.surfaceWater.region.status;
   const figure = status.kind === 'stated' ? formatPercent(model.meta.locale, status.percentOfBaseline) : '–';
-  const words = status.kind === 'stated' ? `of usual surface water: ${t(`band.${status.bandKey}`)}` : 'no regional figure this month';
+  const words = status.kind === 'stated' ? formatMessage(loadMessages(model.meta.locale), 'card.stated', { band: t(`band.${status.bandKey}`) }) : t('card.none');
   const title = wrap(model.meta.title, 54, 1080).slice(0, 2);
   const text = (x: number, y: number, size: number, content: string, weight = 'normal', fill = '#1a1a1a') => `<text x="${x}" y="${y}" font-family="${CHART_FONT}" font-size="${size}" font-weight="${weight}" fill="${fill}">${escapeXml(content)}</text>`;
   return [

@@ -6,7 +6,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
-import { formatMessage, loadMessages } from '../text/index.ts';
+import { translator } from '../text/index.ts';
 import { formatNumber } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';
 import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
@@ -67,20 +67,25 @@ function mapSpec(model: BulletinModel, layers: unknown[]): TopLevelSpec {
   } as TopLevelSpec;
 }
 
-/** Anomaly classes on the standardized anomaly, with their words. */
-const ANOMALY_CLASSES: Array<{ below: number; label: string }> = [
-  { below: -1.5, label: 'far below usual (z < −1.5)' },
-  { below: -0.5, label: 'below usual (−1.5 to −0.5)' },
-  { below: 0.5, label: 'near usual (−0.5 to 0.5)' },
-  { below: 1.5, label: 'above usual (0.5 to 1.5)' },
-  { below: Number.POSITIVE_INFINITY, label: 'far above usual (z > 1.5)' },
+/** Anomaly classes on the standardized anomaly; their words are `map.anomaly.<key>` in the catalogue. */
+const ANOMALY_CLASSES: Array<{ below: number; key: string }> = [
+  { below: -1.5, key: 'farBelow' },
+  { below: -0.5, key: 'below' },
+  { below: 0.5, key: 'near' },
+  { below: 1.5, key: 'above' },
+  { below: Number.POSITIVE_INFINITY, key: 'farAbove' },
 ];
-const NOT_ENOUGH = 'not enough data';
+
+/** A string as a single-quoted Vega expression literal. */
+const expressionString = (text: string) => `'${text.replace(/\\/g, '\\\\').replace(/'/g, "\\'")}'`;
 
 export function gridMapChart(model: BulletinModel): ChartDefinition {
+  const t = translator(model.meta.locale);
+  const notEnough = t('map.notEnough');
+  const classLabel = (key: string) => t(`map.anomaly.${key}`);
   const cells = model.grid.cells.map((cell) => {
     const z = cell.standardized;
-    const label = z === null ? NOT_ENOUGH : (ANOMALY_CLASSES.find((entry) => z < entry.below) as { label: string }).label;
+    const label = z === null ? notEnough : classLabel((ANOMALY_CLASSES.find((entry) => z < entry.below) as { key: string }).key);
     const e = cell.west + cell.size;
     const n = cell.south + cell.size;
     return {
@@ -89,29 +94,30 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
       geometry: { type: 'Polygon', coordinates: [[[cell.west, cell.south], [cell.west, n], [e, n], [e, cell.south], [cell.west, cell.south]]] },
     };
   });
-  const domain = [...ANOMALY_CLASSES.map((entry) => entry.label), NOT_ENOUGH];
+  const domain = [...ANOMALY_CLASSES.map((entry) => classLabel(entry.key)), notEnough];
   const spec = mapSpec(model, [
-      { data: { values: cells }, mark: { type: 'geoshape', stroke: OUTLINE, strokeWidth: 0.8 }, encoding: { color: { field: 'properties.label', type: 'nominal', title: 'Standardized anomaly', scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } }, strokeDash: { condition: { test: `datum.properties.label === '${NOT_ENOUGH}'`, value: [3, 2] }, value: [1, 0] } } },
+      { data: { values: cells }, mark: { type: 'geoshape', stroke: OUTLINE, strokeWidth: 0.8 }, encoding: { color: { field: 'properties.label', type: 'nominal', title: t('view.standardized'), scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } }, strokeDash: { condition: { test: `datum.properties.label === ${expressionString(notEnough)}`, value: [3, 2] }, value: [1, 0] } } },
       { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
   ]);
   const stated = model.grid.cells.filter((cell) => cell.standardized !== null);
   const belowCount = stated.filter((cell) => (cell.standardized as number) < -0.5).length;
   return {
     id: 'grid-map',
-    title: `Grid cells against usual, ${model.meta.monthName}`,
-    description: `Map of ${formatNumber(model.meta.locale, model.grid.cellDegrees, 2)}° cells shaded by the standardized anomaly of their water; cells with too little data are light grey with dashed outlines. ${belowCount} of ${stated.length} cells with a figure are below usual; ${model.grid.cells.length - stated.length} cells have not enough data.`,
+    title: t('map.grid.title', { month: model.meta.monthName }),
+    description: t('map.grid.desc', { degrees: formatNumber(model.meta.locale, model.grid.cellDegrees, 2), below: belowCount, stated: stated.length, missing: model.grid.cells.length - stated.length }),
     spec,
-    table: { caption: 'Grid cells', columns: ['Cell (south-west corner)', 'Water bodies', 'Standardized anomaly', 'Class'], rows: model.grid.cells.map((cell, k) => [`${cell.south}°, ${cell.west}°`, cell.bodies, cell.standardized === null ? '–' : Math.round(cell.standardized * 100) / 100, (cells[k] as { properties: { label: string } }).properties.label]) },
+    table: { caption: t('map.grid.caption'), columns: [t('view.grid.cell'), t('ui.bodies'), t('view.standardized'), t('view.trophic.class')], rows: model.grid.cells.map((cell, k) => [`${cell.south}°, ${cell.west}°`, cell.bodies, cell.standardized === null ? '–' : Math.round(cell.standardized * 100) / 100, (cells[k] as { properties: { label: string } }).properties.label]) },
   };
 }
 
 function bandStyle(model: BulletinModel) {
-  const t = (key: string) => formatMessage(loadMessages(model.meta.locale), key);
+  const t = translator(model.meta.locale);
   const keys = model.meta.statusBands;
   const labels = keys.map((key) => t(`band.${key}`));
   const colours = keys.map((_, k) => BROWN_BLUE_GREEN_5[Math.round((k * (BROWN_BLUE_GREEN_5.length - 1)) / Math.max(1, keys.length - 1))] as string);
   const shapes = keys.map((_, k) => ['triangle-down', 'triangle-down', 'circle', 'triangle-up', 'triangle-up'][Math.round((k * 4) / Math.max(1, keys.length - 1))] as string);
-  return { keys, labels, colours, shapes, label: (key: string | null) => (key === null ? 'not stated' : t(`band.${key}`)) };
+  const notStated = t('chart.notStated');
+  return { keys, labels, colours, shapes, notStated, t, label: (key: string | null) => (key === null ? notStated : t(`band.${key}`)) };
 }
 
 export function subRegionMapChart(model: BulletinModel): ChartDefinition {
@@ -130,16 +136,16 @@ export function subRegionMapChart(model: BulletinModel): ChartDefinition {
     return { lon, lat, name: region.name, text: `${feature?.properties.percent ?? '–'} % · ${feature?.properties.band}` };
   });
   const spec = mapSpec(model, [
-      { data: { values: features }, mark: { type: 'geoshape', stroke: '#000000', strokeWidth: 1.5 }, encoding: { color: { field: 'properties.band', type: 'nominal', title: 'Status', scale: { domain: [...style.labels, 'not stated'], range: [...style.colours, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } } } },
+      { data: { values: features }, mark: { type: 'geoshape', stroke: '#000000', strokeWidth: 1.5 }, encoding: { color: { field: 'properties.band', type: 'nominal', title: style.t('ui.status'), scale: { domain: [...style.labels, style.notStated], range: [...style.colours, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } } } },
       { data: { values: labels }, mark: { type: 'text', fontSize: 11, fontWeight: 'bold', dy: -7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'name' } } },
       { data: { values: labels }, mark: { type: 'text', fontSize: 10, dy: 7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },
   ]);
   return {
     id: 'sub-region-map',
-    title: `Sub-regions by status, ${model.meta.monthName}`,
-    description: `Map of the sub-regions shaded and labelled with their status: ${labels.map((label) => `${label.name} ${label.text}`).join('; ')}.`,
+    title: style.t('map.subRegions.title', { month: model.meta.monthName }),
+    description: style.t('map.subRegions.desc', { list: labels.map((label) => `${label.name} ${label.text}`).join('; ') }),
     spec,
-    table: { caption: 'Sub-regions by status', columns: ['Sub-region', 'Percent of usual', 'Status'], rows: features.map((feature) => [feature.properties.name, feature.properties.percent ?? '–', feature.properties.band]) },
+    table: { caption: style.t('map.subRegions.caption'), columns: [style.t('chart.subRegion'), style.t('ui.percentOfUsual'), style.t('ui.status')], rows: features.map((feature) => [feature.properties.name, feature.properties.percent ?? '–', feature.properties.band]) },
   };
 }
 
@@ -166,8 +172,9 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
     const status = model.bodyStatus[k];
     return { name: body.name, lon: body.lon, lat: body.lat, area: Math.round(body.referenceHa * 10) / 10, status: style.label(status?.bandKey ?? null) };
   });
-  const subset = shown.length < model.bodies.length ? ` It shows ${shown.length} of the ${model.bodies.length} water bodies: those with a page of their own, then the largest; the grid map and the water-body index cover them all.` : '';
-  const domain = [...style.labels, 'not stated'];
+  const t = style.t;
+  const subset = shown.length < model.bodies.length ? ` ${t('map.bodies.subset', { shown: shown.length, total: model.bodies.length })}` : '';
+  const domain = [...style.labels, style.notStated];
   const spec = mapSpec(model, [
       { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.2 } },
       {
@@ -176,18 +183,18 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
         encoding: {
           longitude: { field: 'lon', type: 'quantitative' },
           latitude: { field: 'lat', type: 'quantitative' },
-          size: { field: 'area', type: 'quantitative', title: 'Reference area, ha', scale: { type: 'sqrt', range: [12, 600] } },
-          shape: { field: 'status', type: 'nominal', title: 'Status', scale: { domain, range: [...style.shapes, 'cross'] } },
-          color: { field: 'status', type: 'nominal', title: 'Status', scale: { domain, range: [...style.colours, '#bdbdbd'] } },
+          size: { field: 'area', type: 'quantitative', title: t('ui.referenceHa'), scale: { type: 'sqrt', range: [12, 600] } },
+          shape: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.shapes, 'cross'] } },
+          color: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.colours, '#bdbdbd'] } },
         },
       },
   ]);
   const counts = domain.map((label) => `${values.filter((row) => row.status === label).length} ${label}`);
   return {
     id: 'bodies-map',
-    title: `Water bodies by status, ${model.meta.monthName}`,
-    description: `Map of the water bodies as symbols sized by reference area; the symbol's shape and colour give its status (down-pointing below usual, circle near usual, up-pointing above usual, cross not stated): ${counts.join(', ')}.${subset}`,
+    title: t('map.bodies.title', { month: model.meta.monthName }),
+    description: `${t('map.bodies.desc', { counts: counts.join(', ') })}${subset}`,
     spec,
-    table: { caption: 'Water bodies by status', columns: ['Water body', 'Reference area, ha', 'Status'], rows: values.map((row) => [row.name, row.area, row.status]) },
+    table: { caption: t('map.bodies.caption'), columns: [t('ui.body'), t('ui.referenceHa'), t('ui.status')], rows: values.map((row) => [row.name, row.area, row.status]) },
   };
 }

@@ -3,12 +3,13 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
 import type { QualityParameterSummary } from '../model/quality.ts';
 import { formatNumber } from '../text/format.ts';
+import { translator } from '../text/index.ts';
 import { GREY, OKABE_ITO, OUTLINE, YELLOW_GREEN_BLUE_5 } from './palettes.ts';
 import { monthLabel } from '../ingest/index.ts';
 import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const round = (value: number | null | undefined, digits = 2) => roundOrNull(value, digits);
-const nameOf = (parameter: QualityParameterSummary) => (parameter.parameter === 'chlorophyll_a' ? 'Chlorophyll-a' : 'Turbidity');
+const nameOf = (model: BulletinModel, parameter: { parameter: string }) => translator(model.meta.locale)(`parameter.${parameter.parameter}`);
 const slug = (parameter: QualityParameterSummary) => (parameter.parameter === 'chlorophyll_a' ? 'chlorophyll' : 'turbidity');
 
 /** Binned strip: months across, value bins up, the number of water bodies in each bin as colour and as text. */
@@ -18,6 +19,7 @@ export function distributionChart(model: BulletinModel, parameter: QualityParame
   const values = parameter.distribution.months.flatMap((row) => row.counts.map((count, k) => ({ month: monthLabel(row.month), bin: label(k), order: k, bodies: count }))).filter((row) => row.bodies > 0);
   const bins = [...new Set(values.sort((a, b) => a.order - b.order).map((row) => row.bin))];
   const busiest = [...values].sort((a, b) => b.bodies - a.bodies)[0];
+  const t = translator(model.meta.locale);
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 640,
@@ -25,16 +27,16 @@ export function distributionChart(model: BulletinModel, parameter: QualityParame
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'rect', stroke: '#ffffff', strokeWidth: 0.5 }, encoding: { x: { field: 'month', type: 'ordinal', title: null, axis: { labelAngle: -90 } }, y: { field: 'bin', type: 'ordinal', sort: [...bins].reverse(), title: `${nameOf(parameter)}, ${parameter.unit}` }, color: { field: 'bodies', type: 'quantitative', title: 'Water bodies', scale: { range: [YELLOW_GREEN_BLUE_5[0], YELLOW_GREEN_BLUE_5[4]] } } } },
+      { mark: { type: 'rect', stroke: '#ffffff', strokeWidth: 0.5 }, encoding: { x: { field: 'month', type: 'ordinal', title: null, axis: { labelAngle: -90 } }, y: { field: 'bin', type: 'ordinal', sort: [...bins].reverse(), title: `${nameOf(model, parameter)}, ${parameter.unit}` }, color: { field: 'bodies', type: 'quantitative', title: t('ui.bodies'), scale: { range: [YELLOW_GREEN_BLUE_5[0], YELLOW_GREEN_BLUE_5[4]] } } } },
       { mark: { type: 'text', fontSize: 9 }, encoding: { x: { field: 'month', type: 'ordinal' }, y: { field: 'bin', type: 'ordinal', sort: [...bins].reverse() }, text: { field: 'bodies' }, color: { condition: { test: 'datum.bodies > 6', value: '#ffffff' }, value: '#000000' } } },
     ],
   };
   return {
     id: `${slug(parameter)}-distribution`,
-    title: `${nameOf(parameter)} across water bodies, month by month`,
-    description: `Binned strip of the water bodies' monthly medians${parameter.parameter === 'chlorophyll_a' ? ' on a log scale (four bins a decade)' : ''}; each cell gives the number of bodies in the bin.${busiest ? ` The fullest cell is ${busiest.bin} ${parameter.unit} in ${busiest.month} with ${busiest.bodies} bodies.` : ''}`,
+    title: t('chart.distribution.title', { name: nameOf(model, parameter) }),
+    description: `${t(parameter.parameter === 'chlorophyll_a' ? 'chart.distribution.descLog' : 'chart.distribution.desc')}${busiest ? ` ${t('chart.distribution.busiest', { bin: busiest.bin, unit: parameter.unit, month: busiest.month, bodies: busiest.bodies })}` : ''}`,
     spec,
-    table: { caption: `${nameOf(parameter)}: water bodies per bin and month`, columns: ['Month', 'Bin', 'Water bodies'], rows: values.map((row) => [row.month, row.bin, row.bodies]) },
+    table: { caption: t('chart.distribution.caption', { name: nameOf(model, parameter) }), columns: [t('chart.month'), t('chart.bin'), t('ui.bodies')], rows: values.map((row) => [row.month, row.bin, row.bodies]) },
   };
 }
 
@@ -50,17 +52,18 @@ export function medianTrendChart(model: BulletinModel, parameter: QualityParamet
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'line', color: OKABE_ITO.bluishGreen, strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative', title: `${nameOf(parameter)}, ${parameter.unit}` } } },
+      { mark: { type: 'line', color: OKABE_ITO.bluishGreen, strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative', title: `${nameOf(model, parameter)}, ${parameter.unit}` } } },
       { mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 2, strokeDash: [6, 3] }, encoding: { x, y: { field: 'trend', type: 'quantitative' } } },
     ],
   };
   const locale = model.meta.locale;
+  const t = translator(locale);
   return {
     id: `${slug(parameter)}-medians`,
-    title: `${nameOf(parameter)}: region median by month with its trend`,
-    description: `Line chart of the median of the water bodies' ${nameOf(parameter).toLowerCase()} each month (each body counted once), with Sen's trend line dashed.${trend ? ` The line changes by ${formatNumber(locale, trend.slopePerYear, 2)} ${parameter.unit} a year.` : ''}`,
+    title: t('chart.medians.title', { name: nameOf(model, parameter) }),
+    description: `${t('chart.medians.desc', { name: nameOf(model, parameter).toLocaleLowerCase(locale) })}${trend ? ` ${t('chart.medians.slope', { slope: formatNumber(locale, trend.slopePerYear, 2), unit: parameter.unit })}` : ''}`,
     spec,
-    table: { caption: `${nameOf(parameter)}: region medians`, columns: ['Month', `Median, ${parameter.unit}`, `Area-weighted median, ${parameter.unit}`, `Trend line, ${parameter.unit}`], rows: values.map((row) => [row.month, row.median ?? '–', row.weighted ?? '–', row.trend ?? '–']) },
+    table: { caption: t('chart.medians.caption', { name: nameOf(model, parameter) }), columns: [t('chart.month'), t('chart.medians.median', { unit: parameter.unit }), t('chart.medians.weighted', { unit: parameter.unit }), t('chart.medians.line', { unit: parameter.unit })], rows: values.map((row) => [row.month, row.median ?? '–', row.weighted ?? '–', row.trend ?? '–']) },
   };
 }
 
@@ -69,6 +72,7 @@ export function sizeClassQuantileChart(model: BulletinModel, parameter: QualityP
   const values = parameter.bySizeClass.filter((row) => row.bodies > 0).map((row) => ({ sizeClass: row.label, bodies: row.bodies, p10: round(row.p10), p25: round(row.p25), p50: round(row.p50), p75: round(row.p75), p90: round(row.p90) }));
   const y = { field: 'sizeClass', type: 'nominal', title: null, sort: null } as const;
   const highest = [...values].sort((a, b) => (b.p50 ?? 0) - (a.p50 ?? 0))[0];
+  const t = translator(model.meta.locale);
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 460,
@@ -76,24 +80,25 @@ export function sizeClassQuantileChart(model: BulletinModel, parameter: QualityP
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'rule', color: OUTLINE }, encoding: { y, x: { field: 'p10', type: 'quantitative', title: `${nameOf(parameter)}, ${parameter.unit}` }, x2: { field: 'p90' } } },
+      { mark: { type: 'rule', color: OUTLINE }, encoding: { y, x: { field: 'p10', type: 'quantitative', title: `${nameOf(model, parameter)}, ${parameter.unit}` }, x2: { field: 'p90' } } },
       { mark: { type: 'bar', color: OKABE_ITO.skyBlue, stroke: OUTLINE, strokeWidth: 1, size: 16 }, encoding: { y, x: { field: 'p25', type: 'quantitative' }, x2: { field: 'p75' } } },
       { mark: { type: 'tick', color: OUTLINE, thickness: 3, size: 22 }, encoding: { y, x: { field: 'p50', type: 'quantitative' } } },
     ],
   };
   return {
     id: `${slug(parameter)}-size-classes`,
-    title: `${nameOf(parameter)} by size class, ${model.meta.monthName}`,
-    description: `For each size class, the line spans the 10th to 90th percentile of the water bodies' medians, the bar the 25th to 75th, and the tick marks the median.${highest ? ` The highest median is in bodies of ${highest.sizeClass}: ${highest.p50} ${parameter.unit}.` : ''}`,
+    title: t('chart.quantiles.title', { name: nameOf(model, parameter), month: model.meta.monthName }),
+    description: `${t('chart.quantiles.desc')}${highest ? ` ${t('chart.quantiles.highest', { sizeClass: highest.sizeClass, value: highest.p50 ?? '–', unit: parameter.unit })}` : ''}`,
     spec,
-    table: { caption: `${nameOf(parameter)} percentiles by size class`, columns: ['Size class', 'Water bodies', '10th', '25th', '50th', '75th', '90th'], rows: values.map((row) => [row.sizeClass, row.bodies, row.p10 ?? '–', row.p25 ?? '–', row.p50 ?? '–', row.p75 ?? '–', row.p90 ?? '–']) },
+    table: { caption: t('chart.quantiles.caption', { name: nameOf(model, parameter) }), columns: [t('view.sizeClass'), t('ui.bodies'), t('view.p10'), t('view.p25'), t('view.p50'), t('view.p75'), t('view.p90')], rows: values.map((row) => [row.sizeClass, row.bodies, row.p10 ?? '–', row.p25 ?? '–', row.p50 ?? '–', row.p75 ?? '–', row.p90 ?? '–']) },
   };
 }
 
 export function trophicChart(model: BulletinModel): ChartDefinition | null {
   const trophic = model.quality?.trophic;
   if (!trophic) return null;
-  const values = trophic.counts.map((row) => ({ trophicClass: row.trophicClass, bodies: row.bodies }));
+  const t = translator(model.meta.locale);
+  const values = trophic.counts.map((row) => ({ trophicClass: t(`trophic.${row.trophicClass}`), bodies: row.bodies }));
   const most = [...values].sort((a, b) => b.bodies - a.bodies)[0];
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
@@ -102,29 +107,30 @@ export function trophicChart(model: BulletinModel): ChartDefinition | null {
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'bar', color: OKABE_ITO.bluishGreen }, encoding: { y: { field: 'trophicClass', type: 'nominal', title: null, sort: null }, x: { field: 'bodies', type: 'quantitative', title: 'Water bodies' } } },
+      { mark: { type: 'bar', color: OKABE_ITO.bluishGreen }, encoding: { y: { field: 'trophicClass', type: 'nominal', title: null, sort: null }, x: { field: 'bodies', type: 'quantitative', title: t('ui.bodies') } } },
       { mark: { type: 'text', align: 'left', dx: 4, color: OUTLINE }, encoding: { y: { field: 'trophicClass', type: 'nominal', sort: null }, x: { field: 'bodies', type: 'quantitative' }, text: { field: 'bodies' } } },
     ],
   };
   return {
     id: 'trophic-classes',
-    title: `Trophic classes from chlorophyll-a, ${model.meta.monthName}`,
-    description: `Bar chart of water bodies per OECD (1982) trophic class of their chlorophyll-a estimate this month.${most ? ` Most bodies (${most.bodies}) are ${most.trophicClass}.` : ''}`,
+    title: t('chart.trophic.title', { month: model.meta.monthName }),
+    description: `${t('chart.trophic.desc')}${most ? ` ${t('chart.trophic.most', { bodies: most.bodies, trophicClass: most.trophicClass })}` : ''}`,
     spec,
-    table: { caption: 'Water bodies per trophic class', columns: ['Class', 'Water bodies'], rows: values.map((row) => [row.trophicClass, row.bodies]) },
+    table: { caption: t('chart.trophic.caption'), columns: [t('view.trophic.class'), t('ui.bodies')], rows: values.map((row) => [row.trophicClass, row.bodies]) },
   };
 }
 
 export function validationChart(model: BulletinModel, index: number): ChartDefinition | null {
   const entry = model.validation[index];
   if (!entry || entry.pairs.length === 0) return null;
-  const name = entry.parameter === 'chlorophyll_a' ? 'Chlorophyll-a' : 'Turbidity';
+  const t = translator(model.meta.locale);
+  const name = nameOf(model, entry);
   const unit = entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU';
   const values = entry.pairs.map((pair) => ({ field: round(pair.field), satellite: round(pair.satellite), body: pair.bodyId, date: pair.date }));
   const top = Math.max(...values.map((row) => Math.max(row.field ?? 0, row.satellite ?? 0)));
   const a = entry.agreement;
   const locale = model.meta.locale;
-  const stats = `n = ${a.n}, bias ${formatNumber(locale, a.bias, 2)} ${unit}, RMSE ${formatNumber(locale, a.rootMeanSquareError, 2)} ${unit}, R² ${formatNumber(locale, a.rSquared, 2)}`;
+  const stats = t('chart.validation.stats', { n: a.n, bias: formatNumber(locale, a.bias, 2), rmse: formatNumber(locale, a.rootMeanSquareError, 2), r2: formatNumber(locale, a.rSquared, 2), unit });
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 320,
@@ -132,14 +138,14 @@ export function validationChart(model: BulletinModel, index: number): ChartDefin
     padding: 12,
     layer: [
       { data: { values: [{ v: 0 }, { v: round(top * 1.05) }] }, mark: { type: 'line', color: GREY, strokeDash: [4, 3] }, encoding: { x: { field: 'v', type: 'quantitative' }, y: { field: 'v', type: 'quantitative' } } },
-      { data: { values }, mark: { type: 'point', filled: false, color: OKABE_ITO.blue, size: 30, strokeWidth: 1.2 }, encoding: { x: { field: 'field', type: 'quantitative', title: `Field, ${unit}` }, y: { field: 'satellite', type: 'quantitative', title: `Satellite, ${unit}` } } },
+      { data: { values }, mark: { type: 'point', filled: false, color: OKABE_ITO.blue, size: 30, strokeWidth: 1.2 }, encoding: { x: { field: 'field', type: 'quantitative', title: t('chart.validation.field', { unit }) }, y: { field: 'satellite', type: 'quantitative', title: t('chart.validation.satellite', { unit }) } } },
     ],
   };
   return {
     id: `validation-${entry.parameter === 'chlorophyll_a' ? 'chlorophyll' : 'turbidity'}`,
-    title: `${name}: satellite against field measurements`,
-    description: `Scatter of satellite estimates against field samples, with the 1:1 line dashed. ${stats}.`,
+    title: t('chart.validation.title', { name }),
+    description: t('chart.validation.desc', { stats }),
     spec,
-    table: { caption: `${name}: matched pairs`, columns: ['Water body', 'Date', `Field, ${unit}`, `Satellite, ${unit}`], rows: values.map((row) => [row.body, row.date, row.field ?? '–', row.satellite ?? '–']) },
+    table: { caption: t('chart.validation.caption', { name }), columns: [t('ui.body'), t('chart.date'), t('chart.validation.field', { unit }), t('chart.validation.satellite', { unit })], rows: values.map((row) => [row.body, row.date, row.field ?? '–', row.satellite ?? '–']) },
   };
 }

@@ -1,7 +1,7 @@
 /** Chart definitions for surface water, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
-import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatMessage, loadMessages, translator } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
 import { monthLabel } from '../ingest/index.ts';
@@ -13,6 +13,7 @@ const cell = (value: number | null) => (value === null ? '–' : value);
 
 export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   const messages = loadMessages(model.meta.locale);
+  const t = translator(model.meta.locale);
   const series = model.surfaceWater.region.series;
   const envelope = model.surfaceWater.regionEnvelope;
   const bulletinYear = Number(model.meta.month.slice(0, 4));
@@ -36,7 +37,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'area', color: ENVELOPE, opacity: 0.9 }, encoding: { x, y: { field: 'p10', type: 'quantitative', title: 'Water, % of reference area', scale: { zero: false } }, y2: { field: 'p90' } } },
+      { mark: { type: 'area', color: ENVELOPE, opacity: 0.9 }, encoding: { x, y: { field: 'p10', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'p90' } } },
       { mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative' } } },
       { mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
       { mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 3, point: { filled: true, size: 30, color: OKABE_ITO.vermillion } }, encoding: { x, y: { field: 'thisYear', type: 'quantitative' } } },
@@ -45,21 +46,24 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   return {
     id: 'regional-series',
     title: formatMessage(messages, 'chart.regional.title', { first: values[0]?.month ?? '', last: model.meta.month }),
-    description: `${formatMessage(messages, 'chart.regional.desc', { headline: model.headline })} ${bulletinYear} is drawn thick in orange-red; the shaded band is the 10th–90th percentile of the baseline years, the dashed line their median.`,
+    description: `${formatMessage(messages, 'chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
     spec,
     table: {
-      caption: 'Regional filling, coverage and baseline by month',
-      columns: ['Month', 'Water, % of reference area', 'Coverage, %', 'Baseline median, %', 'Baseline 10th percentile, %', 'Baseline 90th percentile, %'],
-      rows: values.map((row) => [row.month, row.filling ?? 'not stated', row.coverage ?? 0, cell(row.median), cell(row.p10), cell(row.p90)]),
+      caption: t('chart.regional.caption'),
+      columns: [t('chart.month'), t('view.water'), t('chart.coverage'), t('chart.baselineMedian'), t('chart.baselineP10'), t('chart.baselineP90')],
+      rows: values.map((row) => [row.month, row.filling ?? t('chart.notStated'), row.coverage ?? 0, cell(row.median), cell(row.p10), cell(row.p90)]),
     },
   };
 }
 
 export function sameMonthChart(model: BulletinModel): ChartDefinition {
   const messages = loadMessages(model.meta.locale);
+  const t = translator(model.meta.locale);
   const entries = model.surfaceWater.sameMonthEachYear;
   const status = model.surfaceWater.region.status;
-  const values = entries.map((entry) => ({ year: String(entry.year), filling: round(entry.fillingPercent), group: entry.inBaseline ? 'baseline year' : 'other year' }));
+  const baselineYear = t('chart.baselineYear');
+  const otherYear = t('chart.otherYear');
+  const values = entries.map((entry) => ({ year: String(entry.year), filling: round(entry.fillingPercent), group: entry.inBaseline ? baselineYear : otherYear }));
   const spec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 480,
@@ -71,8 +75,8 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
         mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
         encoding: {
           x: { field: 'year', type: 'ordinal', title: null, axis: { labelAngle: 0 } },
-          y: { field: 'filling', type: 'quantitative', title: 'Water, % of reference area' },
-          color: { field: 'group', type: 'nominal', title: null, scale: { domain: ['baseline year', 'other year'], range: [GREY, OKABE_ITO.blue] }, legend: { orient: 'bottom' } },
+          y: { field: 'filling', type: 'quantitative', title: t('view.water') },
+          color: { field: 'group', type: 'nominal', title: null, scale: { domain: [baselineYear, otherYear], range: [GREY, OKABE_ITO.blue] }, legend: { orient: 'bottom' } },
         },
       },
       ...(status.kind === 'stated'
@@ -86,17 +90,20 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
     description: formatMessage(messages, 'chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first: entries[0]?.year ?? 0, last: entries[entries.length - 1]?.year ?? 0, headline: model.headline }),
     spec,
     table: {
-      caption: `Regional filling in ${model.meta.calendarMonthName} of each year`,
-      columns: ['Year', 'Water, % of reference area', 'In baseline'],
-      rows: entries.map((entry) => [entry.year, round(entry.fillingPercent) ?? 'not stated', entry.inBaseline ? 'yes' : 'no']),
+      caption: t('chart.calendar.caption', { calendarMonth: model.meta.calendarMonthName }),
+      columns: [t('chart.year'), t('view.water'), t('chart.inBaseline')],
+      rows: entries.map((entry) => [entry.year, round(entry.fillingPercent) ?? t('chart.notStated'), t(entry.inBaseline ? 'chart.yes' : 'chart.no')]),
     },
   };
 }
 
 export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
   const locale = model.meta.locale;
+  const t = translator(locale);
   const rows = model.surfaceWater.regionAnomalies.slice(-36);
-  const values = rows.map((row) => ({ month: monthLabel(row.month), points: round(row.points), sign: row.points < 0 ? 'below the baseline median' : 'at or above the baseline median' }));
+  const belowWords = t('chart.anomaly.below');
+  const aboveWords = t('chart.anomaly.above');
+  const values = rows.map((row) => ({ month: monthLabel(row.month), points: round(row.points), sign: row.points < 0 ? belowWords : aboveWords }));
   const below = rows.filter((row) => row.points < 0).length;
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
@@ -107,26 +114,26 @@ export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
     mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
     encoding: {
       x: { field: 'month', type: 'ordinal', title: null, axis: { labelAngle: -90, labelExpr: "substring(datum.value, 5) == '01' || substring(datum.value, 5) == '07' ? datum.value : ''" } },
-      y: { field: 'points', type: 'quantitative', title: 'Difference from baseline median, points' },
-      color: { field: 'sign', type: 'nominal', title: null, scale: { domain: ['below the baseline median', 'at or above the baseline median'], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] }, legend: { orient: 'bottom' } },
+      y: { field: 'points', type: 'quantitative', title: t('chart.anomaly.axis') },
+      color: { field: 'sign', type: 'nominal', title: null, scale: { domain: [belowWords, aboveWords], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] }, legend: { orient: 'bottom' } },
     },
   };
   const first = rows[0] ? formatMonth(locale, rows[0].month) : '';
   return {
     id: 'anomaly-bars',
-    title: `Monthly difference from usual, ${first} to ${model.meta.monthName}`,
-    description: `Bar chart of the regional filling minus the baseline median of the same calendar month, in percentage points of reference area. ${below} of the last ${rows.length} months with a figure were below the baseline median.`,
+    title: t('chart.anomaly.title', { first, last: model.meta.monthName }),
+    description: t('chart.anomaly.desc', { below, months: rows.length }),
     spec,
-    table: { caption: 'Difference from the baseline median by month', columns: ['Month', 'Difference, percentage points'], rows: values.map((row) => [row.month, row.points ?? '–']) },
+    table: { caption: t('chart.anomaly.caption'), columns: [t('chart.month'), t('chart.anomaly.column')], rows: values.map((row) => [row.month, row.points ?? '–']) },
   };
 }
 
 export function subRegionChart(model: BulletinModel): ChartDefinition {
   const locale = model.meta.locale;
-  const t = (key: string) => formatMessage(loadMessages(locale), key);
+  const t = translator(locale);
   const values = model.surfaceWater.subRegions.map((group) => {
     const stated = group.status.kind === 'stated' ? group.status : null;
-    return { name: group.name, percent: round(stated?.percentOfBaseline ?? null, 0), label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : 'not stated' };
+    return { name: group.name, percent: round(stated?.percentOfBaseline ?? null, 0), label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : t('chart.notStated') };
   });
   const lowest = [...values].filter((row) => row.percent !== null).sort((a, b) => (a.percent as number) - (b.percent as number))[0];
   const spec: TopLevelSpec = {
@@ -136,25 +143,26 @@ export function subRegionChart(model: BulletinModel): ChartDefinition {
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'bar', color: OKABE_ITO.blue }, encoding: { y: { field: 'name', type: 'nominal', title: null, sort: null }, x: { field: 'percent', type: 'quantitative', title: 'Percent of usual', scale: { domain: [0, 150] } } } },
+      { mark: { type: 'bar', color: OKABE_ITO.blue }, encoding: { y: { field: 'name', type: 'nominal', title: null, sort: null }, x: { field: 'percent', type: 'quantitative', title: t('ui.percentOfUsual'), scale: { domain: [0, 150] } } } },
       { data: { values: [{ usual: 100 }] }, mark: { type: 'rule', color: OUTLINE, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x: { field: 'usual', type: 'quantitative' } } },
       { mark: { type: 'text', align: 'left', dx: 4, color: OUTLINE }, encoding: { y: { field: 'name', type: 'nominal', sort: null }, x: { field: 'percent', type: 'quantitative' }, text: { field: 'label' } } },
     ],
   };
   return {
     id: 'sub-regions',
-    title: `Sub-regions against usual, ${model.meta.monthName}`,
-    description: lowest ? `Bar chart of each sub-region's water as percent of its baseline median; the dashed line marks usual (100 %). ${lowest.name} is lowest at ${formatPercent(locale, lowest.percent as number)}.` : 'No sub-region has a figure this month.',
+    title: t('chart.subRegions.title', { month: model.meta.monthName }),
+    description: lowest ? t('chart.subRegions.desc', { name: lowest.name, percent: formatPercent(locale, lowest.percent as number) }) : t('chart.subRegions.none'),
     spec,
-    table: { caption: 'Sub-regions, percent of usual', columns: ['Sub-region', 'Percent of usual', 'Status'], rows: values.map((row) => [row.name, row.percent ?? '–', row.label]) },
+    table: { caption: t('chart.subRegions.caption'), columns: [t('chart.subRegion'), t('ui.percentOfUsual'), t('ui.status')], rows: values.map((row) => [row.name, row.percent ?? '–', row.label]) },
   };
 }
 
 export function sizeClassChart(model: BulletinModel): ChartDefinition {
   const locale = model.meta.locale;
+  const t = translator(locale);
   const values = model.surfaceWater.sizeClasses.flatMap((entry) => [
     { sizeClass: entry.name, when: model.meta.monthName, dry: round(entry.lossPercent) },
-    { sizeClass: entry.name, when: `usual ${model.meta.calendarMonthName}`, dry: round(entry.baselineLossPercent) },
+    { sizeClass: entry.name, when: t('chart.sizeClasses.usual', { calendarMonth: model.meta.calendarMonthName }), dry: round(entry.baselineLossPercent) },
   ]);
   const worst = [...model.surfaceWater.sizeClasses].filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null).sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
   const spec: TopLevelSpec = {
@@ -167,16 +175,16 @@ export function sizeClassChart(model: BulletinModel): ChartDefinition {
     encoding: {
       x: { field: 'sizeClass', type: 'nominal', title: null, sort: null, axis: { labelAngle: 0 } },
       xOffset: { field: 'when', sort: null },
-      y: { field: 'dry', type: 'quantitative', title: 'Dry share of reference area, %' },
+      y: { field: 'dry', type: 'quantitative', title: t('chart.sizeClasses.axis') },
       color: { field: 'when', type: 'nominal', title: null, sort: null, scale: { range: [OKABE_ITO.vermillion, GREY] }, legend: { orient: 'bottom' } },
     },
   };
   return {
     id: 'size-classes',
-    title: `Loss from maximum filling by size class, ${model.meta.monthName}`,
-    description: worst ? `Grouped bars of the share of each size class's reference area that is dry, now and in a usual ${model.meta.calendarMonthName}. Water bodies of ${worst.name} lost the most: ${formatPercent(locale, worst.lossPercent as number)} dry against ${formatPercent(locale, worst.baselineLossPercent as number)} usually.` : 'No size class has a figure this month.',
+    title: t('chart.sizeClasses.title', { month: model.meta.monthName }),
+    description: worst ? t('chart.sizeClasses.desc', { calendarMonth: model.meta.calendarMonthName, name: worst.name, loss: formatPercent(locale, worst.lossPercent as number), usual: formatPercent(locale, worst.baselineLossPercent as number) }) : t('chart.sizeClasses.none'),
     spec,
-    table: { caption: 'Dry share by size class', columns: ['Size class', model.meta.monthName, `Usual ${model.meta.calendarMonthName}`], rows: model.surfaceWater.sizeClasses.map((entry) => [entry.name, round(entry.lossPercent) ?? '–', round(entry.baselineLossPercent) ?? '–']) },
+    table: { caption: t('chart.sizeClasses.caption'), columns: [t('view.sizeClass'), model.meta.monthName, t('chart.sizeClasses.usualColumn', { calendarMonth: model.meta.calendarMonthName })], rows: model.surfaceWater.sizeClasses.map((entry) => [entry.name, round(entry.lossPercent) ?? '–', round(entry.baselineLossPercent) ?? '–']) },
   };
 }
 
@@ -184,6 +192,7 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
   const rain = model.rainfall;
   if (!rain) return null;
   const locale = model.meta.locale;
+  const t = translator(locale);
   const values = rain.subRegions.flatMap((entry) => entry.monthly.slice(-36).map((row) => ({ month: monthLabel(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })));
   const names = rain.subRegions.map((entry) => entry.name);
   const spec: TopLevelSpec = {
@@ -195,23 +204,24 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
     mark: { type: 'line', strokeWidth: 2, point: { filled: true, size: 24 } },
     encoding: {
       x: { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%b %Y', tickCount: 6 } },
-      y: { field: 'rainfall', type: 'quantitative', title: 'Rainfall, mm' },
+      y: { field: 'rainfall', type: 'quantitative', title: t('chart.rainfall.axis') },
       color: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange] }, legend: { orient: 'bottom' } },
       shape: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: ['circle', 'square', 'triangle-up', 'diamond', 'cross'] } },
     },
   };
-  const parts = rain.subRegions.map((entry) => `${entry.name} ${entry.percentOfBaseline === null ? 'no figure' : formatPercent(locale, entry.percentOfBaseline)}`);
+  const parts = rain.subRegions.map((entry) => `${entry.name} ${entry.percentOfBaseline === null ? t('chart.noFigure') : formatPercent(locale, entry.percentOfBaseline)}`);
   return {
     id: 'rainfall',
-    title: `Rainfall by sub-region, last 36 months`,
-    description: `Line chart of monthly rainfall per sub-region, for context. ${model.meta.monthName} as percent of the baseline median: ${parts.join(', ')}.`,
+    title: t('chart.rainfall.title'),
+    description: t('chart.rainfall.desc', { month: model.meta.monthName, parts: parts.join(', ') }),
     spec,
-    table: { caption: 'Monthly rainfall by sub-region, mm', columns: ['Month', ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthLabel(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
+    table: { caption: t('chart.rainfall.caption'), columns: [t('chart.month'), ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthLabel(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
   };
 }
 
 /** A small line per monitored body for tables: the last 36 months of filling, no axes. */
 export function sparklineChart(model: BulletinModel, bodyIndex: number, values: Array<number | null>, firstMonth: number): ChartDefinition {
+  const t = translator(model.meta.locale);
   const body = model.bodies[bodyIndex] as BulletinModel['bodies'][number];
   const rows = values.map((value, k) => ({ month: monthLabel(firstMonth + k), filling: round(value) }));
   const known = rows.filter((row) => row.filling !== null);
@@ -228,9 +238,9 @@ export function sparklineChart(model: BulletinModel, bodyIndex: number, values: 
   };
   return {
     id: `spark-${body.id.toLowerCase().replace(/[^a-z0-9-]/g, '-')}`,
-    title: `${body.name}: filling over 36 months`,
-    description: last ? `Small line of ${body.name}'s water as percent of its reference area, last value ${formatNumber(model.meta.locale, last.filling as number, 0)} % in ${last.month}.` : `${body.name} has no value in the last 36 months.`,
+    title: t('chart.spark.title', { name: body.name }),
+    description: last ? t('chart.spark.desc', { name: body.name, value: formatNumber(model.meta.locale, last.filling as number, 0), month: last.month }) : t('chart.spark.none', { name: body.name }),
     spec,
-    table: { caption: `${body.name}, filling by month`, columns: ['Month', 'Water, % of reference area'], rows: rows.map((row) => [row.month, row.filling ?? '–']) },
+    table: { caption: t('chart.spark.caption', { name: body.name }), columns: [t('chart.month'), t('view.water')], rows: rows.map((row) => [row.month, row.filling ?? '–']) },
   };
 }

@@ -91,7 +91,8 @@ export const configSchema = z.strictObject({
     maxBodyPages: z.number().int().min(0).default(500),
     bodiesPerListPage: z.number().int().min(1).default(500),
   }),
-  locales: z.array(z.enum(['en'])).min(1).default(['en']),
+  /** Interface languages: the first is published at the site root, each other under /<locale>/. */
+  locales: z.array(z.enum(['en', 'fr'])).min(1).refine((list) => new Set(list).size === list.length, 'each locale once').default(['en']),
   inputs: z.strictObject({
     inventory: z.string(),
     surfaceArea: z.string(),

@@ -1,6 +1,6 @@
 /**
  * Stage 2, model: turns the typed inputs into the bulletin model: every figure the site prints,
- * the words that go with it, and the method each rests on (ids into METHODS). The model is written
+ * the words that go with it, and the method each rests on (ids into METHOD_IDS, written out per locale). The model is written
  * out as JSON beside the site.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
@@ -13,7 +13,7 @@ import type { WorkerPool } from '../parallel/pool.ts';
 import { statusOf } from './status.ts';
 import { grid, type Grid } from './grid.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
-import { METHODS } from './methods.ts';
+import { methodTexts, type MethodId } from './methods.ts';
 import { prepareQuality, quality, type PreparedQuality, type Quality } from './quality.ts';
 import { rainfall, type RainfallSummary } from './rainfall.ts';
 import { referenceAreasOf, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
@@ -76,7 +76,7 @@ export interface BulletinModel {
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
   headline: string;
   notices: Notice[];
-  methods: typeof METHODS;
+  methods: Record<MethodId, string>;
   warnings: Array<Problem & { text: string }>;
   inputs: InputFile[];
 }
@@ -86,6 +86,8 @@ export interface ModelOptions {
   issuePath?: string;
   /** The body series and their trend tests when computed beforehand (prepareModel, on worker threads). */
   prepared?: PreparedModel;
+  /** Language of the model's words; by default the first configured locale. */
+  locale?: string;
 }
 
 export interface PreparedModel {
@@ -108,17 +110,17 @@ export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onS
 
 export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
   const { config, bulletinMonth } = inputs;
-  const locale = config.locales[0] ?? 'en';
+  const locale = options.locale ?? config.locales[0] ?? 'en';
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
   const pct = (value: number) => formatPercent(locale, value);
 
   const series = options.prepared?.series ?? bodySeries(inputs);
   const referenceAreas = referenceAreasOf(inputs);
   const forStatus = statusMonths(bulletinMonth);
-  const surface = surfaceWater(inputs, series);
+  const surface = surfaceWater(inputs, series, locale);
   const trendsOfBodies = bodyTrends(series, inputs.bodies, config, options.prepared?.bodyTests);
   const trendsOfRegion = groupTrends([surface.region], config);
-  const waterQuality = quality(inputs, options.prepared?.quality);
+  const waterQuality = quality(inputs, options.prepared?.quality, locale);
   const firstYear = Math.floor(series.firstMonth / 12);
   const key = keyMessages({ locale, bulletinMonth, firstYear, surface, bodyTrends: trendsOfBodies, regionTrend: trendsOfRegion.entries[0]?.test ?? null, quality: waterQuality });
 
@@ -186,7 +188,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,
-    methods: METHODS,
+    methods: methodTexts(locale),
     warnings: warnings.map((problem) => ({ ...problem, text: formatProblem(problem) })),
     inputs: inputs.files,
   };

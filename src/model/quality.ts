@@ -18,6 +18,7 @@ import { benjaminiHochberg, mannKendall, median, quantile, sensSlope, TROPHIC_BO
 import { referenceAreasOf, sizeClassBounds } from './surfaceWater.ts';
 import { manyTrendTests, trendTest, type TrendTest } from './trends.ts';
 import type { WorkerPool } from '../parallel/pool.ts';
+import { sizeClassLabel } from '../text/index.ts';
 
 /**
  * WHO (2003), Guidelines for Safe Recreational Water Environments, Vol. 1, ch. 8: chlorophyll-a of
@@ -83,7 +84,7 @@ function binOf(value: number, edges: number[]): number {
   return edges.length - 2;
 }
 
-function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared?: Array<TrendTest | null>): QualityParameterSummary {
+function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared: Array<TrendTest | null> | undefined, locale: string): QualityParameterSummary {
   const { bodies, config, bulletinMonth } = inputs;
   const reference = referenceAreasOf(inputs);
   // Month-major copy of the body values: each month's values are then one contiguous view.
@@ -117,7 +118,7 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
   const bySizeClass = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => {
     const values = now.filter((value, k) => Number.isFinite(value) && (reference[k] as number) >= fromHa && (toHa === null || (reference[k] as number) < toHa));
     const q = (p: number) => (values.length > 0 ? quantile(values, p) : null);
-    const label = toHa === null ? `over ${fromHa.toLocaleString('en')} ha` : `${fromHa.toLocaleString('en')}–${toHa.toLocaleString('en')} ha`;
+    const label = sizeClassLabel(locale, fromHa, toHa);
     return { label, fromHa, toHa, bodies: values.length, p10: q(0.1), p25: q(0.25), p50: q(0.5), p75: q(0.75), p90: q(0.9) };
   });
 
@@ -140,7 +141,7 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
     bodiesThisMonth: now.filter(Number.isFinite).length,
     medianTrend: medianTrend(monthly),
     trends: { tested: entries.filter((e) => e.direction !== 'untested').length, rising: entries.filter((e) => e.direction === 'rise').length, falling: entries.filter((e) => e.direction === 'fall').length, falseDiscoveryRate: config.trends.falseDiscoveryRate, entries },
-    seasonal: seasonalClassTrends(inputs, data, config),
+    seasonal: seasonalClassTrends(inputs, data, config, locale),
   };
 }
 
@@ -156,7 +157,7 @@ function medianTrend(monthly: Array<{ month: number; median: number | null }>): 
  * seasonal mean, year by year, tested with Mann-Kendall and Sen's slope per year (years with no
  * value are left out).
  */
-function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig): QualityParameterSummary['seasonal'] {
+function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig, locale: string): QualityParameterSummary['seasonal'] {
   const out: QualityParameterSummary['seasonal'] = [];
   const reference = Array.from(referenceAreasOf(inputs));
   const firstYear = Math.floor(data.firstMonth / 12);
@@ -188,7 +189,7 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
           values.push(value);
         }
       }
-      const label = toHa === null ? `over ${fromHa.toLocaleString('en')} ha` : `${fromHa.toLocaleString('en')}–${toHa.toLocaleString('en')} ha`;
+      const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
       out.push({ season: season.key, sizeClass: label, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
     }
@@ -215,7 +216,7 @@ export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, o
   );
 }
 
-export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null): Quality | null {
+export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null, locale = 'en'): Quality | null {
   if (!inputs.quality || inputs.quality.length === 0) return null;
   const byParameter = prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
   const chlorophyll = byParameter.find((entry) => entry.parameter === 'chlorophyll_a')?.data;
@@ -228,7 +229,7 @@ export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | nul
   const withValue = now.filter(Number.isFinite);
   return {
     methods: ['quality-medians', 'quality-classes', 'trend-bodies', 'trophic', 'who-levels'],
-    parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests)),
+    parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests, locale)),
     trophic: {
       bodies: trophicBodies,
       counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({ trophicClass: trophicClassName, upperBound: Number.isFinite(upper) ? upper : null, bodies: trophicBodies.filter((entry) => entry.trophicClass === trophicClassName).length })),

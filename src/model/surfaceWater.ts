@@ -9,6 +9,7 @@ import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
 import { statusOf, type Status } from './status.ts';
+import { sizeClassLabel } from '../text/index.ts';
 
 export interface GroupSurface {
   id: string;
@@ -80,7 +81,7 @@ export function sizeClassBounds(boundaries: number[], openBottom: boolean): Arra
   return edges.map((fromHa, k) => ({ fromHa, toHa: edges[k + 1] ?? null }));
 }
 
-export function surfaceWater(inputs: BulletinInputs, series: BodySeries): SurfaceWater {
+export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale = 'en'): SurfaceWater {
   const all = inputs.bodies.map((_, k) => k);
   const region = group(inputs, series, 'region', inputs.config.region.name, all);
   const subRegions = inputs.subRegions.map((subRegion) =>
@@ -91,7 +92,7 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
       const ha = inputs.bodies[k]?.referenceHa ?? 0;
       return ha >= fromHa && (toHa === null || ha < toHa);
     });
-    const label = toHa === null ? `over ${fromHa.toLocaleString('en')} ha` : fromHa === 0 ? `up to ${toHa.toLocaleString('en')} ha` : `${fromHa.toLocaleString('en')}–${toHa.toLocaleString('en')} ha`;
+    const label = sizeClassLabel(locale, fromHa, toHa, true);
     const base = group(inputs, series, `size-${fromHa}`, label, members);
     const status = base.status;
     return {

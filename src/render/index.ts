@@ -11,7 +11,7 @@ import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
 
 import type { BulletinModel } from '../model/index.ts';
-import { formatMessage, loadMessages } from '../text/index.ts';
+import { fillMessage, formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
 import { siteFiles, siteUrl } from './siteFiles.ts';
 import { bodyView, subRegionView, views } from './views.ts';
@@ -29,17 +29,41 @@ export interface IssueBundle {
   charts: ChartSet;
   /** The issue's bulletin folder, for its content and its input files. */
   folder: string;
+  /** Site path of the issue in the site's first language, where its input files are published once for every language. */
+  inputsPath?: string;
+  /** The site's first language, published at the root; others live under /<locale>/. */
+  siteLocale?: string;
+  /** The issue's first language, the one its editorial text is written in unless a translation is given. */
+  firstLocale?: string;
+}
+
+/** Each language's own name, for the language switch (in that language, as readers look for it). */
+const LANGUAGE_NAMES: Record<string, string> = { en: 'English', fr: 'Français' };
+
+/** Path prefix of a language: '' for the site's first language, '/<locale>' for the others. */
+export function prefixOf(locale: string, siteLocale: string): string {
+  return locale === siteLocale ? '' : `/${locale}`;
 }
 
 /** Everything one issue's pages read, computed here so templates only place it. */
 export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
   const { model, charts } = bundle;
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(model.meta.locale), key, params);
+  const locale = model.meta.locale;
+  const siteLocale = bundle.siteLocale ?? locale;
+  const prefix = prefixOf(locale, siteLocale);
+  const messages = loadMessages(locale);
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
   const issue = model.meta.issuePath;
-  const current = all.filter((other) => !other.model.meta.issuePath.includes('/revisions/'));
+  const sameLanguage = all.filter((other) => other.model.meta.locale === locale);
+  const current = sameLanguage.filter((other) => !other.model.meta.issuePath.includes('/revisions/'));
   const position = current.findIndex((other) => other.model.meta.month === model.meta.month);
   const link = (other: IssueBundle | undefined) => (other ? { href: other.model.meta.issuePath, label: other.model.meta.monthName } : null);
-  const revisions = all
+  // The same issue and revision in the other languages: every page of it exists there at the same path below the prefix.
+  const languages = all
+    .filter((other) => other.model.meta.month === model.meta.month && other.model.meta.revision === model.meta.revision)
+    .map((other) => ({ locale: other.model.meta.locale, prefix: prefixOf(other.model.meta.locale, siteLocale), name: LANGUAGE_NAMES[other.model.meta.locale] ?? other.model.meta.locale, current: other === bundle }));
+  const inputsPath = bundle.inputsPath ?? issue;
+  const revisions = sameLanguage
     .filter((other) => other.model.meta.month === model.meta.month)
     .map((other) => ({ revision: other.model.meta.revision, published: other.model.meta.published, publishedName: other.model.meta.publishedName, href: other.model.meta.issuePath, corrections: other.model.meta.corrections, current: other === bundle }))
     .sort((a, b) => a.revision - b.revision);
@@ -48,29 +72,32 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     charts: charts.charts,
     sparklines: charts.sparklines,
     view: views(model),
-    content: renderMarkdown(bundle.folder),
+    content: renderMarkdown(bundle.folder, locale, bundle.firstLocale ?? locale),
     cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
     pageUrl: siteUrl(model.meta.baseUrl, issue),
     isRevisionCopy: issue.includes('/revisions/'),
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
     revisions,
-    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${issue}data/inputs/${file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${issue}data/inputs/${file.path}/${part.path}` })) })),
+    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.path}/${part.path}` })) })),
+    t: messages,
+    prefix,
+    languages,
     jsonLd: jsonLd(model),
     subRegions: model.boundaries.map((region) => subRegionView(model, region.id)),
     monitoredBodies: model.monitored.map((entry) => bodyView(model, entry.body)),
     navigation: [
-      { key: 'home', href: '/', label: t('site.home') },
+      { key: 'home', href: `${prefix}/`, label: t('site.home') },
       { key: 'overview', href: issue, label: t('page.overview') },
       { key: 'surfaceWater', href: `${issue}surface-water/`, label: t('page.surfaceWater') },
       { key: 'places', href: `${issue}water-bodies/`, label: t('page.places') },
       { key: 'waterQuality', href: `${issue}water-quality/`, label: t('page.waterQuality') },
       { key: 'trends', href: `${issue}trends/`, label: t('page.trends') },
       { key: 'dataMethods', href: `${issue}data-and-methods/`, label: t('page.dataMethods') },
-      { key: 'archive', href: '/archive/', label: t('page.archive') },
+      { key: 'archive', href: `${prefix}/archive/`, label: t('page.archive') },
     ],
     footer: t('site.footer', { publisher: model.meta.publisher, version: model.meta.toolVersion }),
-    noticeLabels: { notice: 'Note', caveat: 'Caveat', caution: 'Caution' },
+    noticeLabels: { notice: t('label.notice'), caveat: t('label.caveat'), caution: t('label.caution') },
   };
 }
 
@@ -97,16 +124,31 @@ function jsonLd(model: BulletinModel): string {
   return JSON.stringify(data).replace(/</g, '\\u003c').replace(/>/g, '\\u003e').replace(/&/g, '\\u0026');
 }
 
-/** The site-level data: the latest issue and the archive by year. */
-export function siteData(issues: Array<ReturnType<typeof issueData>>) {
-  const current = issues.filter((issue) => !issue.isRevisionCopy);
-  const latest = current[current.length - 1] as ReturnType<typeof issueData>;
+type IssueData = ReturnType<typeof issueData>;
+
+/** The site-level pages of one language: its latest issue and its archive by year. */
+function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<{ locale: string; prefix: string; name: string }>) {
+  const current = issues.filter((issue) => !issue.isRevisionCopy && issue.bulletin.meta.locale === locale);
+  const latest = current[current.length - 1] as IssueData;
   const years = [...new Set(current.map((issue) => issue.bulletin.meta.month.slice(0, 4)))].sort().reverse();
   return {
+    locale,
+    prefix: prefixOf(locale, siteLocale),
     latest,
     archive: years.map((year) => ({ year, issues: current.filter((issue) => issue.bulletin.meta.month.startsWith(year)).reverse() })),
-    t: loadMessages(latest.bulletin.meta.locale),
+    t: loadMessages(locale),
+    languages: languages.map((language) => ({ ...language, current: language.locale === locale })),
   };
+}
+
+/** The site-level data: per language, the latest issue and the archive by year; the first language's at the root. */
+export function siteData(issues: IssueData[], siteLocale?: string) {
+  const first = siteLocale ?? (issues[issues.length - 1] as IssueData).bulletin.meta.locale;
+  const locales = [first, ...[...new Set(issues.map((issue) => issue.bulletin.meta.locale))].filter((locale) => locale !== first).sort()];
+  const languages = locales.map((locale) => ({ locale, prefix: prefixOf(locale, first), name: LANGUAGE_NAMES[locale] ?? locale }));
+  const sites = locales.map((locale) => languageSite(issues, locale, first, languages));
+  const root = sites[0] as ReturnType<typeof languageSite>;
+  return { ...root, sites };
 }
 
 export async function renderSite(bundles: IssueBundle[], outDir: string): Promise<void> {
@@ -118,7 +160,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
   // Downloads first: a large model's JSON is written and let go before the pages take their memory.
   for (const bundle of bundles) for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
   const issues = bundles.map((bundle) => issueData(bundle, bundles));
-  const site = siteData(issues);
+  const site = siteData(issues, bundles[bundles.length - 1]?.siteLocale);
   const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
     configPath: join(projectRoot, '.eleventy.js'),
     quietMode: true,
@@ -130,7 +172,13 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
         issues.flatMap((issue) => issue.subRegions.flatMap((subRegion) => subRegion.listPages.map((page) => ({ issue, subRegion, page, pages: subRegion.listPages.map(({ number, href }) => ({ number, href })) })))),
       );
       eleventyConfig.addGlobalData('bodyPages', issues.flatMap((issue) => issue.monitoredBodies.map((body) => ({ issue, body }))));
+      // Wording: a catalogue entry with its {placeholders} filled (the result is escaped like any text).
+      eleventyConfig.addFilter('fmt', (template: string, params: Record<string, string | number>) => fillMessage(template, params));
+      // The same page in another language: only the language prefix of the path differs.
+      eleventyConfig.addFilter('switchPrefix', (url: string, from: string, to: string) => `${to}${from && url.startsWith(`${from}/`) ? url.slice(from.length) : url}`);
+      eleventyConfig.addFilter('absoluteUrl', (path: string, baseUrl: string) => siteUrl(baseUrl, path));
       eleventyConfig.addGlobalData('site', site);
+      eleventyConfig.addGlobalData('sites', site.sites);
       eleventyConfig.addGlobalData('t', site.t);
     },
   });
@@ -139,11 +187,15 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
   await eleventy.write();
   // Hashes of the copied inputs (known from reading them, or taken while copying): the manifests need not read them again.
   const known = new Map<string, string>();
+  const published = new Set<string>();
   for (const bundle of bundles) {
-    // Every input table, as published, for download.
+    // Every input table, as published, for download: once per issue, beside its first language's pages.
+    const inputsPath = bundle.inputsPath ?? bundle.model.meta.issuePath;
+    if (published.has(inputsPath)) continue;
+    published.add(inputsPath);
     for (const input of bundle.model.inputs) {
       const source = join(bundle.folder, input.path);
-      const target = join(outDir, bundle.model.meta.issuePath, 'data', 'inputs', input.path);
+      const target = join(outDir, inputsPath, 'data', 'inputs', input.path);
       // A folder of Parquet partitions is published as its partitions, the files its hash covers.
       const folder = statSync(source).isDirectory();
       for (const part of folder ? (input.parts ?? []) : [input]) {
@@ -156,7 +208,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
       }
     }
   }
-  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known)) write(file);
+  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known, site.locale)) write(file);
 }
 
 /** Inventories larger than this get their model JSON written without indentation. */

@@ -16,7 +16,7 @@ export const MANIFEST = 'manifest.json';
 export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
 const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.baseUrl, path);
 
-function atom(models: BulletinModel[]): string {
+function atom(models: BulletinModel[], prefix: string): string {
   const latest = models[0] as BulletinModel;
   const entries = models.map((model) => [
     '  <entry>',
@@ -30,26 +30,26 @@ function atom(models: BulletinModel[]): string {
   return [
     '<?xml version="1.0" encoding="utf-8"?>',
     `<feed xmlns="http://www.w3.org/2005/Atom" xml:lang="${escapeXml(latest.meta.locale)}">`,
-    `  <id>${escapeXml(absolute(latest, '/'))}</id>`,
+    `  <id>${escapeXml(absolute(latest, `${prefix}/`))}</id>`,
     `  <title>${escapeXml(latest.meta.title)}</title>`,
     `  <updated>${latest.meta.published}T00:00:00Z</updated>`,
     `  <author><name>${escapeXml(latest.meta.publisher)}</name></author>`,
-    `  <link rel="self" type="application/atom+xml" href="${escapeXml(absolute(latest, '/feed.xml'))}"/>`,
-    `  <link rel="alternate" type="text/html" href="${escapeXml(absolute(latest, '/'))}"/>`,
+    `  <link rel="self" type="application/atom+xml" href="${escapeXml(absolute(latest, `${prefix}/feed.xml`))}"/>`,
+    `  <link rel="alternate" type="text/html" href="${escapeXml(absolute(latest, `${prefix}/`))}"/>`,
     ...entries,
     '</feed>',
     '',
   ].join('\n');
 }
 
-function jsonFeed(models: BulletinModel[]): string {
+function jsonFeed(models: BulletinModel[], prefix: string): string {
   const latest = models[0] as BulletinModel;
   return `${JSON.stringify(
     {
       version: 'https://jsonfeed.org/version/1.1',
       title: latest.meta.title,
-      home_page_url: absolute(latest, '/'),
-      feed_url: absolute(latest, '/feed.json'),
+      home_page_url: absolute(latest, `${prefix}/`),
+      feed_url: absolute(latest, `${prefix}/feed.json`),
       language: latest.meta.locale,
       authors: [{ name: latest.meta.publisher }],
       items: models.map((model) => ({
@@ -67,13 +67,19 @@ function jsonFeed(models: BulletinModel[]): string {
 }
 
 /** Feeds and sitemap first; then the manifests over everything written, the site manifest last. */
-export function siteFiles(models: BulletinModel[], outDir: string, known: ReadonlyMap<string, string> = new Map()): SiteFile[] {
+export function siteFiles(models: BulletinModel[], outDir: string, known: ReadonlyMap<string, string> = new Map(), siteLocale = models[models.length - 1]?.meta.locale ?? 'en'): SiteFile[] {
   const current = models.filter((model) => !model.meta.issuePath.includes('/revisions/')).sort((a, b) => b.meta.month.localeCompare(a.meta.month));
-  const latest = current[0] as BulletinModel;
-  const files: SiteFile[] = [
-    { path: 'feed.xml', content: atom(current) },
-    { path: 'feed.json', content: jsonFeed(current) },
-  ];
+  const latest = (current.find((model) => model.meta.locale === siteLocale) ?? current[0]) as BulletinModel;
+  // One pair of feeds per language, the first language's at the root.
+  const locales = [...new Set(current.map((model) => model.meta.locale))].sort((a, b) => Number(b === siteLocale) - Number(a === siteLocale) || a.localeCompare(b));
+  const files: SiteFile[] = locales.flatMap((locale) => {
+    const prefix = locale === siteLocale ? '' : `/${locale}`;
+    const own = current.filter((model) => model.meta.locale === locale);
+    return [
+      { path: `${prefix.slice(1)}${prefix ? '/' : ''}feed.xml`, content: atom(own, prefix) },
+      { path: `${prefix.slice(1)}${prefix ? '/' : ''}feed.json`, content: jsonFeed(own, prefix) },
+    ];
+  });
   const pages = [...listFiles(outDir).filter((path) => path.endsWith('index.html')).map((path) => `/${path.replace(/index\.html$/, '')}`)].sort();
   files.push({
     path: 'sitemap.xml',

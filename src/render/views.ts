@@ -34,13 +34,13 @@ export function views(model: BulletinModel) {
   const locale = model.meta.locale;
   const { t, pct, num, signed, p } = formatters(locale);
 
-  const statusWords = (status: Status) => (status.kind === 'stated' ? t(`band.${status.bandKey}`) : status.kind === 'low-coverage' ? 'not stated: too little seen' : 'not stated: baseline too short');
+  const statusWords = (status: Status) => (status.kind === 'stated' ? t(`band.${status.bandKey}`) : status.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline'));
   const statusRow = (name: string, group: GroupSurface) => {
     const s = group.status;
     const stated = s.kind === 'stated' ? s : null;
     return [name, String(group.bodies), pct(s.kind === 'low-coverage' ? null : s.fillingPercent), pct(stated?.baseline.median), pct(stated?.percentOfBaseline), signed(stated?.standardized, 2), stated ? formatNumber(locale, stated.percentileRank, 0) : '–', statusWords(s), pct(s.coveragePercent)];
   };
-  const statusColumns = ['Area', 'Water bodies', 'Water, % of reference area', 'Baseline median', 'Percent of usual', 'Standardized anomaly', 'Percentile rank', 'Status', 'Seen by satellite'];
+  const statusColumns = [t('view.area'), t('ui.bodies'), t('view.water'), t('view.baselineMedian'), t('ui.percentOfUsual'), t('view.standardized'), t('view.percentileRank'), t('ui.status'), t('view.seen')];
 
   const sw = model.surfaceWater;
   const regionStatus = sw.region.status;
@@ -48,96 +48,96 @@ export function views(model: BulletinModel) {
   const surfaceTables: TableView[] = [
     {
       id: 'status',
-      caption: `The region in ${model.meta.monthName} against ${model.meta.calendarMonthName} of ${model.meta.baseline.firstYear}–${model.meta.baseline.lastYear}`,
-      columns: ['Figure', 'Value'],
+      caption: t('view.status.caption', { month: model.meta.monthName, calendarMonth: model.meta.calendarMonthName, baselineFirst: model.meta.baseline.firstYear, baselineLast: model.meta.baseline.lastYear }),
+      columns: [t('ui.figure'), t('ui.value')],
       rows: [
-        ['Water, % of reference area', pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.fillingPercent, 1)],
-        ['Baseline median', pct(regionStated?.baseline.median, 1)],
-        ['Baseline 10th–90th percentile', regionStated ? `${pct(regionStated.baseline.p10, 1)} – ${pct(regionStated.baseline.p90, 1)}` : '–'],
-        ['Difference from the median, percentage points', signed(regionStated?.anomalyPoints)],
-        ['Percent of usual (of the baseline median)', pct(regionStated?.percentOfBaseline)],
-        ['Standardized anomaly', signed(regionStated?.standardized, 2)],
-        ['Percentile rank among baseline years', regionStated ? formatNumber(locale, regionStated.percentileRank, 0) : '–'],
-        ['Status', statusWords(regionStatus)],
-        [`Change from ${formatMonth(locale, (parseMonth(model.meta.month) as number) - 12)}, percentage points`, signed(regionStated?.changeFromLastYear)],
-        [`Change from ${formatMonth(locale, (parseMonth(model.meta.month) as number) - 1)}, percentage points`, signed(regionStated?.changeFromPreviousMonth)],
-        ['Seen by satellite', pct(regionStatus.coveragePercent)],
-        ['Filled in from neighbouring months', pct(regionStated?.filledPercent)],
+        [t('view.water'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.fillingPercent, 1)],
+        [t('view.baselineMedian'), pct(regionStated?.baseline.median, 1)],
+        [t('view.baselineEnvelope'), regionStated ? `${pct(regionStated.baseline.p10, 1)} – ${pct(regionStated.baseline.p90, 1)}` : '–'],
+        [t('view.difference'), signed(regionStated?.anomalyPoints)],
+        [t('view.percentOfMedian'), pct(regionStated?.percentOfBaseline)],
+        [t('view.standardized'), signed(regionStated?.standardized, 2)],
+        [t('view.percentileRankBaseline'), regionStated ? formatNumber(locale, regionStated.percentileRank, 0) : '–'],
+        [t('ui.status'), statusWords(regionStatus)],
+        [t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 12) }), signed(regionStated?.changeFromLastYear)],
+        [t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 1) }), signed(regionStated?.changeFromPreviousMonth)],
+        [t('view.seen'), pct(regionStatus.coveragePercent)],
+        [t('view.filled'), pct(regionStated?.filledPercent)],
       ],
     },
-    { id: 'sub-regions', caption: `Sub-regions in ${model.meta.monthName}`, columns: statusColumns, rows: sw.subRegions.map((group) => statusRow(group.name, group)) },
+    { id: 'sub-regions', caption: t('view.subRegions.caption', { month: model.meta.monthName }), columns: statusColumns, rows: sw.subRegions.map((group) => statusRow(group.name, group)) },
     {
       id: 'size-classes',
-      caption: `Loss from maximum filling by size class in ${model.meta.monthName}`,
-      columns: ['Size class', 'Water bodies', 'Dry share of reference area', `Dry share in a usual ${model.meta.calendarMonthName}`, 'Status'],
+      caption: t('view.sizeClasses.caption', { month: model.meta.monthName }),
+      columns: [t('view.sizeClass'), t('ui.bodies'), t('view.dryShare'), t('view.dryShareUsual', { calendarMonth: model.meta.calendarMonthName }), t('ui.status')],
       rows: sw.sizeClasses.map((entry) => [entry.name, String(entry.bodies), pct(entry.lossPercent), pct(entry.baselineLossPercent), statusWords(entry.status)]),
     },
     {
       id: 'grid',
-      caption: `Grid cells of ${formatNumber(locale, model.grid.cellDegrees, 2)}° in ${model.meta.monthName}`,
-      columns: ['Cell (south-west corner)', 'Water bodies', 'Water, % of reference area', 'Baseline mean', 'Standardized anomaly', 'State'],
-      rows: model.grid.cells.map((cell) => [`${formatNumber(locale, Math.abs(cell.south), 2)}° ${cell.south < 0 ? 'S' : 'N'}, ${formatNumber(locale, Math.abs(cell.west), 2)}° ${cell.west < 0 ? 'W' : 'E'}`, String(cell.bodies), pct(cell.fillingPercent), pct(cell.baselineMean), signed(cell.standardized, 2), cellWords[cell.state] ?? cell.state]),
-      note: `Cells with fewer than ${model.grid.minBodies} water bodies, too little seen, or too short a baseline show no anomaly.`,
+      caption: t('view.grid.caption', { degrees: formatNumber(locale, model.grid.cellDegrees, 2), month: model.meta.monthName }),
+      columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('view.standardized'), t('view.grid.state')],
+      rows: model.grid.cells.map((cell) => [`${formatNumber(locale, Math.abs(cell.south), 2)}° ${t(cell.south < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(cell.west), 2)}° ${t(cell.west < 0 ? 'view.west' : 'view.east')}`, String(cell.bodies), pct(cell.fillingPercent), pct(cell.baselineMean), signed(cell.standardized, 2), t(`view.cell.${cell.state}`)]),
+      note: t('view.grid.note', { minBodies: model.grid.minBodies }),
     },
   ];
 
   const bodyName = new Map(model.bodies.map((body) => [body.id, body.name]));
-  const trendRow = (entry: TrendEntry): string[] => [entry.name, methodWords[entry.test?.method ?? ''] ?? 'not tested', signed(entry.test?.slopePerYear, 2), p(entry.test?.p), p(entry.pAdjusted), directionWords[entry.direction] ?? entry.direction];
-  const trendColumns = ['Water body', 'Test', 'Trend, points a year', 'p', 'Adjusted p', 'After adjustment'];
+  const trendRow = (entry: TrendEntry): string[] => [entry.name, entry.test ? t(`view.test.${entry.test.method}`) : t('view.notTested'), signed(entry.test?.slopePerYear, 2), p(entry.test?.p), p(entry.pAdjusted), t(`view.direction.${entry.direction}`)];
+  const trendColumns = [t('ui.body'), t('view.test'), t('view.trendPoints'), 'p', t('view.adjustedP'), t('view.afterAdjustment')];
   const tested = model.trends.bodies.entries.filter((entry) => entry.test);
   const declines = tested.filter((entry) => (entry.test?.slopePerYear ?? 0) < 0).sort((a, b) => (a.test?.slopePerYear ?? 0) - (b.test?.slopePerYear ?? 0)).slice(0, 10);
   const rises = tested.filter((entry) => (entry.test?.slopePerYear ?? 0) > 0).sort((a, b) => (b.test?.slopePerYear ?? 0) - (a.test?.slopePerYear ?? 0)).slice(0, 10);
   const regionTrend = model.trends.region.entries[0];
   const change = model.trends.changePoint;
   const trendTables: TableView[] = [
-    { id: 'region', caption: 'The regional series', columns: trendColumns, rows: regionTrend ? [trendRow(regionTrend)] : [], note: change.month !== null ? `Change point (Pettitt test): the series shifts from ${formatMonth(locale, change.month)} by ${signed((change.meanAfter ?? 0) - (change.meanBefore ?? 0))} points against the seasonal cycle (p ${p(change.p)}).` : 'No change point can be tested.' },
-    { id: 'sub-region-trends', caption: 'Sub-regions', columns: trendColumns, rows: model.trends.subRegions.entries.map(trendRow) },
-    { id: 'declines', caption: 'The ten strongest declines among water bodies', columns: trendColumns, rows: declines.map(trendRow) },
-    { id: 'rises', caption: 'The ten strongest rises among water bodies', columns: trendColumns, rows: rises.map(trendRow) },
+    { id: 'region', caption: t('view.trends.region'), columns: trendColumns, rows: regionTrend ? [trendRow(regionTrend)] : [], note: change.month !== null ? t('view.trends.changePoint', { month: formatMonth(locale, change.month), points: signed((change.meanAfter ?? 0) - (change.meanBefore ?? 0)), p: p(change.p) }) : t('view.trends.noChangePoint') },
+    { id: 'sub-region-trends', caption: t('ui.surface.subRegions'), columns: trendColumns, rows: model.trends.subRegions.entries.map(trendRow) },
+    { id: 'declines', caption: t('view.trends.declines'), columns: trendColumns, rows: declines.map(trendRow) },
+    { id: 'rises', caption: t('view.trends.rises'), columns: trendColumns, rows: rises.map(trendRow) },
   ];
 
   const quality = model.quality;
   const qualityTables: TableView[] = [];
   if (quality) {
     for (const parameter of quality.parameters) {
-      const name = parameter.parameter === 'chlorophyll_a' ? 'Chlorophyll-a' : 'Turbidity';
+      const name = t(`parameter.${parameter.parameter}`);
       const last = parameter.monthly[parameter.monthly.length - 1];
       qualityTables.push({
         id: `${parameter.parameter}-classes`,
-        caption: `${name} (${parameter.unit}) by size class in ${model.meta.monthName}: percentiles of the water bodies' medians`,
-        columns: ['Size class', 'Water bodies', '10th', '25th', '50th', '75th', '90th'],
+        caption: t('view.quality.caption', { name, unit: parameter.unit, month: model.meta.monthName }),
+        columns: [t('view.sizeClass'), t('ui.bodies'), t('view.p10'), t('view.p25'), t('view.p50'), t('view.p75'), t('view.p90')],
         rows: parameter.bySizeClass.map((entry) => [entry.label, String(entry.bodies), num(entry.p10), num(entry.p25), num(entry.p50), num(entry.p75), num(entry.p90)]),
-        note: `Region median ${num(last?.median ?? null)} ${parameter.unit} (each body counted once), ${num(last?.weightedMedian ?? null)} ${parameter.unit} weighted by area. Trends: ${parameter.trends.rising} of ${parameter.trends.tested} bodies rising and ${parameter.trends.falling} falling after adjustment for testing many at once.`,
+        note: t('view.quality.note', { median: num(last?.median ?? null), weighted: num(last?.weightedMedian ?? null), unit: parameter.unit, rising: parameter.trends.rising, tested: parameter.trends.tested, falling: parameter.trends.falling }),
       });
     }
     qualityTables.push({
       id: 'trophic',
-      caption: `Trophic classes from chlorophyll-a in ${model.meta.monthName} (OECD 1982 boundaries)`,
-      columns: ['Class', 'Chlorophyll-a up to', 'Water bodies'],
-      rows: quality.trophic.counts.map((entry) => [entry.trophicClass, entry.upperBound === null ? 'above 25 µg/L' : `${num(entry.upperBound, 1)} µg/L`, String(entry.bodies)]),
+      caption: t('view.trophic.caption', { month: model.meta.monthName }),
+      columns: [t('view.trophic.class'), t('view.trophic.upTo'), t('ui.bodies')],
+      rows: quality.trophic.counts.map((entry) => [t(`trophic.${entry.trophicClass}`), entry.upperBound === null ? t('view.trophic.above', { value: num(25, 0) }) : `${num(entry.upperBound, 1)} µg/L`, String(entry.bodies)]),
     });
     qualityTables.push({
       id: 'who',
-      caption: `Water bodies above the WHO (2003) recreational guidance levels for chlorophyll-a in ${model.meta.monthName}`,
-      columns: ['Level', 'Water bodies above', 'Share of those with a value'],
-      rows: quality.who.levels.map((level) => [`${level.level} µg/L`, `${level.bodiesAbove} of ${quality.who.bodiesWithValue}`, pct(level.sharePercent)]),
+      caption: t('view.who.caption', { month: model.meta.monthName }),
+      columns: [t('view.who.level'), t('view.who.above'), t('view.who.share')],
+      rows: quality.who.levels.map((level) => [`${level.level} µg/L`, t('view.countOf', { count: level.bodiesAbove, total: quality.who.bodiesWithValue }), pct(level.sharePercent)]),
     });
-    const seasonal = quality.parameters.flatMap((parameter) => parameter.seasonal.map((entry) => ({ ...entry, parameter: parameter.parameter === 'chlorophyll_a' ? 'Chlorophyll-a' : 'Turbidity', unit: parameter.unit })));
+    const seasonal = quality.parameters.flatMap((parameter) => parameter.seasonal.map((entry) => ({ ...entry, parameter: t(`parameter.${parameter.parameter}`), unit: parameter.unit })));
     if (seasonal.length > 0) {
       qualityTables.push({
         id: 'seasonal-trends',
-        caption: 'Seasonal trends by size class (median of the bodies\' seasonal means, year by year)',
-        columns: ['Parameter, season and size class', 'Years', 'Trend a year', 'p', 'Evidence'],
-        rows: seasonal.map((entry) => [`${entry.parameter}, ${entry.season} season, ${entry.sizeClass}`, String(entry.years), entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`, p(entry.p), entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`)]),
+        caption: t('view.seasonal.caption'),
+        columns: [t('view.seasonal.row'), t('view.years'), t('view.trendYear'), 'p', t('view.evidence')],
+        rows: seasonal.map((entry) => [t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.season, sizeClass: entry.sizeClass }), String(entry.years), entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`, p(entry.p), entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`)]),
       });
     }
   }
   const validationTables: TableView[] = model.validation.length === 0 ? [] : [{
     id: 'validation',
-    caption: 'Agreement of satellite estimates with field measurements',
-    columns: ['Parameter', 'Pairs', 'Bias (satellite − field)', 'Mean absolute error', 'RMSE', 'R²', 'Line: satellite = a + b × field'],
-    rows: model.validation.map((entry) => [entry.parameter === 'chlorophyll_a' ? 'Chlorophyll-a (µg/L)' : 'Turbidity (FNU)', String(entry.agreement.n), signed(entry.agreement.bias, 2), num(entry.agreement.meanAbsoluteError, 2), num(entry.agreement.rootMeanSquareError, 2), num(entry.agreement.rSquared, 2), `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`]),
-    note: `Field samples are matched to the satellite month that contains them, or to the next or previous month when within ${model.validation[0]?.windowDays ?? 0} days of it.`,
+    caption: t('view.validation.caption'),
+    columns: [t('view.validation.parameter'), t('view.validation.pairs'), t('view.validation.bias'), t('view.validation.mae'), 'RMSE', 'R²', t('view.validation.line')],
+    rows: model.validation.map((entry) => [`${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`, String(entry.agreement.n), signed(entry.agreement.bias, 2), num(entry.agreement.meanAbsoluteError, 2), num(entry.agreement.rootMeanSquareError, 2), num(entry.agreement.rSquared, 2), `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`]),
+    note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
   }];
 
   const monitored = model.monitored.map((entry) => {
@@ -147,8 +147,8 @@ export function views(model: BulletinModel) {
       id: entry.id,
       name: entry.name,
       last: pct(last),
-      status: status?.bandKey ? t(`band.${status.bandKey}`) : status?.state === 'low-coverage' ? 'not seen well enough' : 'baseline too short',
-      trend: entry.slopePerYear === null ? 'not tested' : `${signed(entry.slopePerYear, 2)} points a year (${directionWords[entry.direction] ?? entry.direction})`,
+      status: status?.bandKey ? t(`band.${status.bandKey}`) : status?.state === 'low-coverage' ? t('view.body.lowCoverage') : t('view.cell.short-baseline'),
+      trend: entry.slopePerYear === null ? t('view.notTested') : t('view.monitored.trend', { slope: signed(entry.slopePerYear, 2), direction: t(`view.direction.${entry.direction}`) }),
     };
   });
 
@@ -164,16 +164,13 @@ export function views(model: BulletinModel) {
       percentOfBaseline: pct(regionStated?.percentOfBaseline),
       band: statusWords(regionStatus),
       coverage: pct(regionStatus.coveragePercent),
-      declines: `${model.trends.bodies.declining} of ${model.trends.bodies.tested}`,
+      declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
       minObservedShare: pct(100 * model.meta.minObservedShare),
       minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
     },
   };
 }
 
-const cellWords: Record<string, string> = { stated: 'shown', 'too-few-bodies': 'too few water bodies', 'low-coverage': 'too little seen', 'short-baseline': 'baseline too short' };
-const methodWords: Record<string, string> = { 'seasonal-kendall': 'seasonal Kendall', 'seasonal-kendall-covariance': 'seasonal Kendall, covariance-corrected', 'mann-kendall-hamed-rao': 'Mann-Kendall, autocorrelation-corrected' };
-const directionWords: Record<string, string> = { decline: 'decline holds', rise: 'rise holds', none: 'no trend shown', untested: 'not tested' };
 
 export interface BodyListPage<T> {
   number: number;
@@ -207,7 +204,7 @@ export function subRegionView(model: BulletinModel, id: string) {
     .filter(({ body }) => body.subRegionId === id)
     .map(({ body, k }) => {
       const own = model.bodyStatus[k];
-      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? 'not seen well enough' : 'baseline too short', percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
+      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t('view.body.lowCoverage') : t('view.cell.short-baseline'), percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
     });
   const slug = slugOf(id);
   // Up to site.bodiesPerListPage bodies are listed on the sub-region's page and the index; more get numbered pages.
@@ -221,15 +218,15 @@ export function subRegionView(model: BulletinModel, id: string) {
     bodyCount: bodies.length,
     listPages,
     summary: [
-      ['Water bodies', String(group?.bodies ?? 0)],
-      ['Reference area', `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],
-      ['Water, % of reference area', pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
-      ['Percent of usual', pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
-      ['Status', status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? 'not stated: too little seen' : 'not stated: baseline too short'],
-      ['Seen by satellite', pct(status?.coveragePercent)],
-      ['Trend since the first month, points a year', trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : 'not tested'],
-      ['Trend after adjustment for testing many at once', trend ? (directionWords[trend.direction] ?? trend.direction) : 'not tested'],
-      [`Rainfall in ${model.meta.monthName}`, rain?.bulletinMonthMm === null || rain?.bulletinMonthMm === undefined ? '–' : `${formatNumber(locale, rain.bulletinMonthMm, 0)} mm (${pct(rain.percentOfBaseline)} of usual)`],
+      [t('ui.bodies'), String(group?.bodies ?? 0)],
+      [t('view.referenceArea'), `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],
+      [t('view.water'), pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
+      [t('ui.percentOfUsual'), pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
+      [t('ui.status'), status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline')],
+      [t('view.seen'), pct(status?.coveragePercent)],
+      [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
+      [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],
+      [t('view.rainfallIn', { month: model.meta.monthName }), rain?.bulletinMonthMm === null || rain?.bulletinMonthMm === undefined ? '–' : t('view.rainfall', { mm: formatNumber(locale, rain.bulletinMonthMm, 0), percent: pct(rain.percentOfBaseline) })],
     ],
   };
 }
@@ -237,7 +234,7 @@ export function subRegionView(model: BulletinModel, id: string) {
 /** One monitored water body's page, formatted. */
 export function bodyView(model: BulletinModel, index: number) {
   const locale = model.meta.locale;
-  const { t } = formatters(locale);
+  const { t, pct } = formatters(locale);
   const body = model.bodies[index] as BulletinModel['bodies'][number];
   const own = model.bodyStatus[index];
   const monitored = model.monitored.find((entry) => entry.body === index);
@@ -249,14 +246,14 @@ export function bodyView(model: BulletinModel, index: number) {
     name: body.name,
     subRegion: { name: subRegion?.name ?? body.subRegionId, href: `${model.meta.issuePath}sub-regions/${slugOf(body.subRegionId)}/` },
     summary: [
-      ['Kind', body.kind],
-      ['Reference area', `${formatNumber(locale, body.referenceHa, 1)} ha`],
-      ['Location', `${formatNumber(locale, Math.abs(body.lat), 3)}° ${body.lat < 0 ? 'S' : 'N'}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${body.lon < 0 ? 'W' : 'E'}`],
-      ['Percent of usual', own?.percentOfBaseline === null || own?.percentOfBaseline === undefined ? '–' : formatPercent(locale, own.percentOfBaseline)],
-      ['Status', own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? 'not seen well enough this month' : 'baseline too short'],
-      ['Trend since the first month, points a year', monitored?.slopePerYear === null || monitored?.slopePerYear === undefined ? 'not tested' : formatNumber(locale, monitored.slopePerYear, 2)],
-      ['Trend after adjustment for testing many at once', directionWords[monitored?.direction ?? 'untested'] ?? 'not tested'],
-      ['Chlorophyll-a this month', trophic ? `${formatNumber(locale, trophic.chlorophyll, 1)} µg/L (trophic state index ${formatNumber(locale, trophic.index, 0)}, ${trophic.trophicClass})` : 'no estimate'],
+      [t('ui.kind'), body.kind],
+      [t('view.referenceArea'), `${formatNumber(locale, body.referenceHa, 1)} ha`],
+      [t('view.location'), `${formatNumber(locale, Math.abs(body.lat), 3)}° ${t(body.lat < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${t(body.lon < 0 ? 'view.west' : 'view.east')}`],
+      [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
+      [t('ui.status'), own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t('view.body.lowCoverageMonth') : t('view.cell.short-baseline')],
+      [t('view.trendSinceFirst'), monitored?.slopePerYear === null || monitored?.slopePerYear === undefined ? t('view.notTested') : formatNumber(locale, monitored.slopePerYear, 2)],
+      [t('view.trendAdjusted'), t(`view.direction.${monitored?.direction ?? 'untested'}`)],
+      [t('view.chlorophyllNow'), trophic ? t('view.chlorophyllValue', { value: formatNumber(locale, trophic.chlorophyll, 1), index: formatNumber(locale, trophic.index, 0), trophicClass: t(`trophic.${trophic.trophicClass}`) }) : t('view.noEstimate')],
     ],
   };
 }

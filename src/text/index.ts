@@ -23,9 +23,33 @@ export function loadMessages(locale: string): Messages {
 export function formatMessage(messages: Messages, key: string, params: Record<string, string | number> = {}): string {
   const template = messages[key];
   if (template === undefined) throw new RangeError(`no message ${key}`);
+  return fillMessage(template, params, key);
+}
+
+/** Fills the `{name}` placeholders of a message already looked up (templates look messages up themselves). */
+export function fillMessage(template: string, params: Record<string, string | number> = {}, key = template): string {
+  if (typeof template !== 'string') throw new RangeError('fillMessage requires a message; is its key in the catalogue?');
   return template.replace(/\{(\w+)\}/g, (_, name: string) => {
     const value = params[name];
     if (value === undefined) throw new RangeError(`message ${key} needs ${name}`);
     return String(value);
   });
+}
+
+/**
+ * The name of a size class of water bodies by reference area, e.g. "10–100 ha", "over 1,000 ha",
+ * and, when `upToFromZero` is set, "up to 10 ha" for a class that starts at 0.
+ */
+export function sizeClassLabel(locale: string, fromHa: number, toHa: number | null, upToFromZero = false): string {
+  const messages = loadMessages(locale);
+  const ha = (value: number) => new Intl.NumberFormat(locale, { maximumFractionDigits: 20 }).format(value);
+  if (toHa === null) return formatMessage(messages, 'sizeClass.over', { from: ha(fromHa) });
+  if (fromHa === 0 && upToFromZero) return formatMessage(messages, 'sizeClass.upTo', { to: ha(toHa) });
+  return formatMessage(messages, 'sizeClass.range', { from: ha(fromHa), to: ha(toHa) });
+}
+
+/** `t(key, params)` for one locale: the catalogue looked up once. */
+export function translator(locale: string): (key: string, params?: Record<string, string | number>) => string {
+  const messages = loadMessages(locale);
+  return (key, params) => formatMessage(messages, key, params);
 }

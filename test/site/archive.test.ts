@@ -67,8 +67,9 @@ describe('the archive', () => {
 
   it('lists every page in the sitemap, and carries schema.org Dataset metadata on each overview', () => {
     const sitemap = read('sitemap.xml');
-    // Every page but the 404: 4 site pages and 4 issues × (6 + 3 sub-regions + 6 list pages + 22 bodies), less one.
-    expect(sitemap.match(/<url>/g)).toHaveLength(4 + 4 * (6 + 3 + 6 + 22) - 1);
+    // Every page but the 404, in both languages: 4 site pages and 4 issues × (6 + 3 sub-regions + 6 list pages + 22 bodies), less one.
+    expect(sitemap.match(/<url>/g)).toHaveLength(2 * (4 + 4 * (6 + 3 + 6 + 22) - 1));
+    expect(sitemap).toContain('<loc>https://bulletin.example.org/fr/issues/2026-10/revisions/1/trends/</loc>');
     expect(sitemap).toContain('<loc>https://bulletin.example.org/issues/2026-10/revisions/1/trends/</loc>');
     const ld = /<script type="application\/ld\+json">(.*?)<\/script>/.exec(read('issues/2026-11/index.html'))?.[1] ?? '';
     expect(JSON.parse(ld)).toMatchObject({ '@type': 'Dataset', datePublished: '2026-12-03', version: '1' });
@@ -119,21 +120,21 @@ describe('the overview on narrow and wide screens', () => {
     await browser?.close();
   });
 
-  it('has no horizontal overflow at 320 px and 1280 px, and leaves a screenshot of each', async () => {
+  it('has no horizontal overflow at 320 px and 1280 px in either language, and leaves a screenshot of each', async () => {
     const server = await serveFolder(site);
     const shots = join(import.meta.dirname, '..', '..', '.tmp', 'screenshots');
     mkdirSync(shots, { recursive: true });
     try {
-      for (const width of [320, 1280]) {
+      for (const [language, path] of [['en', '/issues/2026-11/'], ['fr', '/fr/issues/2026-11/']] as const) for (const width of [320, 1280]) {
         const context = await browser.newContext({ viewport: { width, height: 900 } });
         const page = await context.newPage();
-        await page.goto(`${server.origin}/issues/2026-11/`);
+        await page.goto(`${server.origin}${path}`);
         const { scrollWidth, clientWidth } = await page.evaluate(() => {
           const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
           return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
         });
-        await page.screenshot({ path: join(shots, `overview-${width}.png`), fullPage: true });
-        expect(scrollWidth, `width ${width}`).toBeLessThanOrEqual(clientWidth);
+        await page.screenshot({ path: join(shots, `overview-${language}-${width}.png`), fullPage: true });
+        expect(scrollWidth, `${language} at width ${width}`).toBeLessThanOrEqual(clientWidth);
         await context.close();
       }
     } finally {

@@ -32,12 +32,13 @@ function brokenCopy(name: string, edit: (html: string) => string): string {
 }
 
 describe('example site', () => {
-  it('has the site pages and, for each of the four issues, its six pages, three sub-regions, their water-body lists in pages of 20 and 22 monitored water bodies', () => {
+  it('has the site pages and, for each of the four issues in both languages, its six pages, three sub-regions, their water-body lists in pages of 20 and 22 monitored water bodies', () => {
     const pages = htmlPages(site);
     // Each sub-region has 26 or 27 water bodies: two list pages of at most 20 (site.bodiesPerListPage).
-    expect(pages).toHaveLength(4 + 4 * (6 + 3 + 3 * 2 + 22));
-    for (const page of ['index.html', '404.html', 'archive/index.html', 'latest/index.html']) expect(pages).toContain(page);
-    for (const issue of ['issues/2026-09/', 'issues/2026-10/', 'issues/2026-10/revisions/1/', 'issues/2026-11/']) {
+    // English at the root with the 404 page, French under fr/ with its own home, archive and latest page.
+    expect(pages).toHaveLength(4 + 3 + 2 * 4 * (6 + 3 + 3 * 2 + 22));
+    for (const page of ['index.html', '404.html', 'archive/index.html', 'latest/index.html', 'fr/index.html', 'fr/archive/index.html', 'fr/latest/index.html']) expect(pages).toContain(page);
+    for (const issue of ['issues/2026-09/', 'issues/2026-10/', 'issues/2026-10/revisions/1/', 'issues/2026-11/', 'fr/issues/2026-09/', 'fr/issues/2026-10/', 'fr/issues/2026-10/revisions/1/', 'fr/issues/2026-11/']) {
       for (const page of ['', 'surface-water/', 'water-quality/', 'trends/', 'data-and-methods/', 'water-bodies/', 'sub-regions/cor/', 'sub-regions/cor/water-bodies/', 'sub-regions/cor/water-bodies/page-2/', 'water-bodies/wb079/']) expect(pages).toContain(`${issue}${page}index.html`);
     }
   });

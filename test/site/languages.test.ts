@@ -1,0 +1,102 @@
+/**
+ * The second language on the example: every page of every issue in French under /fr/, a language
+ * switch to the same page in the other language, hreflang alternates, French feeds, French words,
+ * numbers and dates, and the input files published once and linked from both languages.
+ */
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { renderMarkdown } from '../../src/render/markdown.ts';
+import { listFiles } from '../../src/site/files.ts';
+
+let site: string;
+const read = (path: string) => readFileSync(join(site, path), 'utf8');
+
+beforeAll(() => {
+  site = inject('exampleSite');
+});
+
+describe('the French edition', () => {
+  it('has a French page for every English page and the other way round (the 404 page apart)', () => {
+    const pages = listFiles(site).filter((path) => path.endsWith('.html') && path !== '404.html');
+    const french = pages.filter((path) => path.startsWith('fr/')).map((path) => path.slice(3)).sort();
+    const english = pages.filter((path) => !path.startsWith('fr/')).sort();
+    expect(french.length).toBeGreaterThan(100);
+    expect(french).toEqual(english);
+  });
+
+  it('marks each page with its language and links the same page in the other language', () => {
+    const page = read('fr/issues/2026-11/trends/index.html');
+    expect(page).toContain('<html lang="fr">');
+    expect(page).toContain('<link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/">');
+    expect(page).toContain('<link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/">');
+    expect(page).toContain('<a href="/issues/2026-11/trends/" hreflang="en" lang="en">English</a>');
+    expect(page).toContain('<a href="/fr/issues/2026-11/trends/" aria-current="page" lang="fr">Français</a>');
+    const english = read('issues/2026-10/revisions/1/water-quality/index.html');
+    expect(english).toContain('<html lang="en">');
+    expect(english).toContain('<a href="/fr/issues/2026-10/revisions/1/water-quality/" hreflang="fr" lang="fr">Français</a>');
+  });
+
+  it('speaks French in headings, navigation, key messages, tables and charts, with French numbers and dates', () => {
+    const overview = read('fr/issues/2026-11/index.html');
+    for (const text of ['Messages clés', 'Chiffres principaux', 'Réserves et précautions', 'Qualité de l&#39;eau', 'novembre 2026', '3 décembre 2026', 'Aller au contenu principal']) expect(overview).toContain(text);
+    for (const text of ['Key messages', 'Headline figures', 'Skip to main content', 'See the figures']) expect(overview).not.toContain(text);
+    // Intl's French percent: a narrow no-break space before the sign.
+    expect(overview).toMatch(/\d\u202f%/);
+    const surface = read('fr/issues/2026-11/surface-water/index.html');
+    expect(surface).toContain('Anomalie standardisée');
+    expect(surface).toMatch(/<title id="[^"]+">Sous-régions par état, novembre 2026<\/title>/);
+    expect(surface).not.toContain('Grid cells against usual');
+  });
+
+  it('shows the health cautions in French too', () => {
+    const quality = read('fr/issues/2026-11/water-quality/index.html');
+    expect(quality).toContain('<strong>Précaution\u00a0:</strong> Là où la chlorophylle a est élevée');
+    expect(quality).toContain('L&#39;autorité sanitaire locale décide de la sécurité de la baignade et de l&#39;eau potable');
+  });
+
+  it('has its own home, archive, latest page and feeds', () => {
+    expect(read('fr/index.html')).toContain('Lire le numéro de novembre 2026');
+    expect(read('fr/archive/index.html')).toContain('<a href="/fr/issues/2026-10/revisions/1/">révision 1</a>');
+    expect(read('fr/latest/index.html')).toContain('href="/fr/issues/2026-11/"');
+    const atom = read('fr/feed.xml');
+    expect(atom).toContain('xml:lang="fr"');
+    expect(atom).toContain('<link rel="self" type="application/atom+xml" href="https://bulletin.example.org/fr/feed.xml"/>');
+    expect(atom).toContain('<id>https://bulletin.example.org/fr/issues/2026-11/</id>');
+    const json = JSON.parse(read('fr/feed.json')) as { language: string; feed_url: string; items: Array<{ url: string }> };
+    expect(json.language).toBe('fr');
+    expect(json.feed_url).toBe('https://bulletin.example.org/fr/feed.json');
+    expect(json.items.map((item) => item.url)).toContain('https://bulletin.example.org/fr/issues/2026-09/');
+  });
+
+  it('links the input files published once, beside the first language, from both languages', () => {
+    const methods = read('fr/issues/2026-11/data-and-methods/index.html');
+    expect(methods).toContain('href="/issues/2026-11/data/inputs/data/water-bodies.csv"');
+    expect(existsSync(join(site, 'issues/2026-11/data/inputs/data/water-bodies.csv'))).toBe(true);
+    expect(existsSync(join(site, 'fr/issues/2026-11/data/inputs'))).toBe(false);
+    // Each language has its own model (its words) and manifest.
+    expect(JSON.parse(read('fr/issues/2026-11/data/bulletin-model.json')).meta.locale).toBe('fr');
+    expect(JSON.parse(read('fr/issues/2026-11/manifest.json')).issue).toBe('2026-11');
+  });
+
+  it('uses the French editorial text where the editors wrote one', () => {
+    expect(read('fr/issues/2026-11/index.html')).toContain('La période sèche commencée en décembre 2024 se poursuit.');
+    expect(read('issues/2026-11/index.html')).toContain('The dry spell that began in December 2024 goes on.');
+  });
+});
+
+describe('renderMarkdown', () => {
+  it('renderMarkdown(folder, locale, firstLocale) falls back to the first language, marked with its lang', () => {
+    const folder = mkdtempSync(join(tmpdir(), 'limnopress-markdown-'));
+    mkdirSync(join(folder, 'content'));
+    writeFileSync(join(folder, 'content', 'foreword.md'), 'Only in *English*.\n');
+    writeFileSync(join(folder, 'content', 'notes.fr.md'), 'Seulement en français.\n');
+    const french = renderMarkdown(folder, 'fr', 'en');
+    expect(french.foreword).toBe('<div lang="en">\n<p>Only in <em>English</em>.</p>\n</div>\n');
+    expect(french.notes).toBe('<p>Seulement en français.</p>\n');
+    const english = renderMarkdown(folder, 'en', 'en');
+    expect(english.foreword).toBe('<p>Only in <em>English</em>.</p>\n');
+    expect(english.notes).toBeNull();
+  });
+});

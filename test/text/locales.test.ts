@@ -1,0 +1,54 @@
+/** The locale catalogues: every language says everything English says, with the same placeholders. */
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { fillMessage, formatMessage, loadMessages, sizeClassLabel } from '../../src/text/index.ts';
+
+const folder = join(import.meta.dirname, '..', '..', 'content', 'locales');
+const locales = readdirSync(folder).filter((name) => name.endsWith('.json')).map((name) => name.slice(0, -5));
+const placeholders = (text: string) => [...new Set(text.match(/\{\w+\}/g) ?? [])].sort();
+
+describe('locale catalogues', () => {
+  it('include English and French', () => {
+    expect(locales).toEqual(expect.arrayContaining(['en', 'fr']));
+  });
+
+  for (const locale of locales.filter((name) => name !== 'en')) {
+    it(`${locale}.json has exactly the keys of en.json, each with the same placeholders and some text`, () => {
+      const english = loadMessages('en');
+      const other = JSON.parse(readFileSync(join(folder, `${locale}.json`), 'utf8')) as Record<string, string>;
+      expect(Object.keys(other).sort()).toEqual(Object.keys(english).sort());
+      for (const [key, text] of Object.entries(english)) {
+        expect(placeholders(other[key] as string), key).toEqual(placeholders(text));
+        expect((other[key] as string).trim().length, key).toBeGreaterThan(0);
+      }
+    });
+  }
+
+  it('fr.json puts a no-break space before the high punctuation of French typography', () => {
+    const french = loadMessages('fr');
+    for (const [key, text] of Object.entries(french)) expect(text, key).not.toMatch(/ [:;?!»]|« /);
+  });
+});
+
+describe('formatMessage', () => {
+  it('formatMessage(messages, key, params) fills every placeholder and throws on a missing one', () => {
+    expect(formatMessage(loadMessages('fr'), 'ui.pager.next', { month: 'décembre 2026' })).toBe('Numéro suivant\u00a0: décembre 2026');
+    expect(() => formatMessage(loadMessages('en'), 'ui.pager.next')).toThrow(/needs month/);
+    expect(() => formatMessage(loadMessages('en'), 'no.such.key')).toThrow(/no message/);
+  });
+
+  it('fillMessage(template, params) leaves braces inside the values alone', () => {
+    expect(fillMessage('{a} and {b}', { a: '{b}', b: 'x' })).toBe('{b} and x');
+  });
+});
+
+describe('sizeClassLabel', () => {
+  it('sizeClassLabel(locale, from, to) groups thousands the way each language does', () => {
+    expect(sizeClassLabel('en', 1000, 10000)).toBe('1,000–10,000 ha');
+    expect(sizeClassLabel('en', 10000, null)).toBe('over 10,000 ha');
+    expect(sizeClassLabel('en', 0, 10, true)).toBe('up to 10 ha');
+    // French groups with a narrow no-break space (U+202F), as Intl.NumberFormat('fr') does.
+    expect(sizeClassLabel('fr', 10000, null)).toBe('plus de 10\u202f000 ha');
+  });
+});
