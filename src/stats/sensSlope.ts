@@ -3,6 +3,7 @@ import { kendallScore } from './kendallScore.ts';
 import { normalQuantile } from './normalQuantile.ts';
 import { scratch } from './scratch.ts';
 import { selectRanks } from './selectRanks.ts';
+import { pairSlopeRanks } from './pairSlopeRanks.ts';
 import type { TrendReason } from './mannKendall.ts';
 
 export interface SensSlopeResult {
@@ -31,9 +32,12 @@ export interface SensSlopeResult {
  * scipy.stats.theilslopes), and kept within 1..N. The intercept is the "separate medians" one of
  * Conover (1980), scipy's default.
  *
- * Selecting the median and the two limits dominates the cost, so the slopes are never sorted: a
- * sample brackets the four ranks and they are selected among the slopes inside the bracket (see
- * selectRanks), expected O(N). O(n²) time in all, O(N) work memory reused between calls.
+ * Selecting the median and the two limits dominates the cost. When the times strictly increase
+ * (no pair tied in time) they are selected without making every slope: randomized slope selection
+ * by inversion counting (see pairSlopeRanks), O(n log n + N^(2/3) + K) for the K slopes between
+ * the limits; when it cannot vouch for its answer, and when times repeat, all N slopes are made
+ * and the four ranks selected among them (selectRanks), O(n²). Either way the result is the same
+ * double as from sorting all slopes. O(N) work memory at most, reused between calls.
  */
 export function sensSlope(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, { confidence = 0.95 } = {}): SensSlopeResult {
   if (!(confidence > 0 && confidence < 1)) throw new RangeError('sensSlope requires a confidence between 0 and 1');
@@ -55,6 +59,18 @@ export function sensSlope(times: ArrayLike<number | null | undefined>, values: A
   const middleLow = Math.floor((count - 1) / 2);
   const middleHigh = Math.ceil((count - 1) / 2);
 
+  const ranks = [...new Set([lowerIndex, middleLow, middleHigh, upperIndex])].sort((a, b) => a - b);
+  // + 0 turns −0 into 0: a −0 slope (from a value of −0) and a 0 slope are the same, whichever a selection meets first.
+  const at = (found: number[], rank: number) => (found[ranks.indexOf(rank)] as number) + 0;
+  const result = (found: number[]) => {
+    const slope = (at(found, middleLow) + at(found, middleHigh)) / 2;
+    const intercept = valueTies.median - slope * timeTies.median;
+    return { ...none, slope, intercept, lower: at(found, lowerIndex), upper: at(found, upperIndex), reason: n < 3 ? ('too-few-values' as const) : null };
+  };
+  // Times in order, the usual case: select without making every slope; null means it could not vouch.
+  const selected = timeTies.tiedPairs === 0 && count >= SELECT_FROM ? pairSlopeRanks(t, y, n, ranks) : null;
+  if (selected) return result(selected);
+
   const slopes = scratch('sen-slopes', count);
   let size = 0;
   for (let i = 0; i < n - 1; i++) {
@@ -67,13 +83,11 @@ export function sensSlope(times: ArrayLike<number | null | undefined>, values: A
       size += dt !== 0 ? 1 : 0;
     }
   }
-  const ranks = [...new Set([lowerIndex, middleLow, middleHigh, upperIndex])].sort((a, b) => a - b);
-  const found = selectRanks(slopes, count, ranks);
-  const at = (rank: number) => found[ranks.indexOf(rank)] as number;
-  const slope = (at(middleLow) + at(middleHigh)) / 2;
-  const intercept = valueTies.median - slope * timeTies.median;
-  return { ...none, slope, intercept, lower: at(lowerIndex), upper: at(upperIndex), reason: n < 3 ? 'too-few-values' : null };
+  return result(selectRanks(slopes, count, ranks));
 }
+
+/** From this many slopes on, selecting them without making them all is the faster way (bench:stats). */
+const SELECT_FROM = 300;
 
 /** Whether the first n times are strictly increasing (the usual case: then no pair is tied in time). */
 function increasing(t: Float64Array, n: number): boolean {

@@ -1,0 +1,162 @@
+import { scratch, scratchInts } from './scratch.ts';
+import { selectKth } from './selectKth.ts';
+import { selectRanks } from './selectRanks.ts';
+
+/** Unit roundoff of IEEE 754 doubles, 2⁻⁵³. */
+const ROUNDOFF = 2 ** -53;
+
+/**
+ * The values at the given 0-based ranks (ascending, distinct) among the N = n(n − 1)/2 pairwise
+ * slopes (yⱼ − yᵢ)/(tⱼ − tᵢ), i < j, of n points whose times strictly increase, as if all slopes
+ * were made and sorted; or null when this method cannot vouch for its answer (the caller then
+ * makes all the slopes). Each slope is computed exactly as the caller's full pass computes it, so
+ * a value found here is the same double.
+ *
+ * The slopes are never all made. The method is randomized slope selection (Matoušek 1991,
+ * "Randomized optimal algorithm for slope selection", Information Processing Letters 39, 183–187;
+ * Dillencourt, Mount & Netanyahu 1992, International Journal of Computational Geometry &
+ * Applications 2, 1–27), here in one round:
+ * 1. a sample of about N^(2/3) pairs, drawn by a fixed generator, brackets the wanted ranks: its
+ *    order statistics a little below the lowest and above the highest rank, with a margin of three
+ *    standard deviations of a sample rank, give slopes lo and hi;
+ * 2. a slope is ≤ θ exactly when the residuals rᵢ = yᵢ − θ·tᵢ of its pair are out of time order
+ *    (rⱼ ≤ rᵢ for i < j), so a merge sort of the residuals at lo counts the slopes ≤ lo as
+ *    inversions (Knight 1966), and the same at hi;
+ * 3. an insertion sort from the order at lo to the order at hi swaps exactly the pairs whose slope
+ *    lies in (lo, hi], one swap each: those K slopes are made, and the wanted ranks, less the count
+ *    at lo, are selected among them (selectRanks).
+ * Rounding: the residual comparison and the slope itself are computed with rounding, so a slope
+ * within E(θ) = 16u(max|y| + |θ|·max|t|)/min Δt + 4u|θ| of θ (u = 2⁻⁵³) may be counted on the
+ * wrong side of θ. lo and hi are pushed out by 3E from the sample values, and every value found must
+ * lie more than E inside (lo, hi); then a slope counted on the wrong side cannot change any rank of
+ * it. If that check, the bracket (the sample misled it) or the swap count fails, the result is null.
+ *
+ * Cost O(n log n + N^(2/3) + K) time with K ≈ N·(span of the ranks + 6/√sample) slopes, against
+ * O(N) = O(n²) for making them all; O(n + K) work memory reused between calls.
+ */
+export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, ranks: readonly number[]): number[] | null {
+  const pairs = (n * (n - 1)) / 2;
+  const lowest = ranks[0];
+  const highest = ranks[ranks.length - 1];
+  if (lowest === undefined || highest === undefined) return [];
+  if (!(lowest >= 0 && highest < pairs)) throw new RangeError('pairSlopeRanks requires ranks within 0..N − 1');
+
+  let maxAbsY = 0;
+  let maxAbsT = 0;
+  let minStep = Infinity;
+  for (let k = 0; k < n; k++) {
+    maxAbsY = Math.max(maxAbsY, Math.abs(y[k] as number));
+    maxAbsT = Math.max(maxAbsT, Math.abs(t[k] as number));
+    if (k > 0) minStep = Math.min(minStep, (t[k] as number) - (t[k - 1] as number));
+  }
+  if (!(minStep > 0) || !Number.isFinite(maxAbsY + maxAbsT)) return null;
+  const tolerance = (theta: number) => (16 * ROUNDOFF * (maxAbsY + Math.abs(theta) * maxAbsT)) / minStep + 4 * ROUNDOFF * Math.abs(theta);
+
+  // 1. The bracket from a sample of pairs, drawn uniformly by a fixed xorshift generator.
+  const size = Math.min(4096, Math.max(128, Math.round(pairs ** (2 / 3))));
+  const sample = scratch('slope-sample', size);
+  let state = 0x9e3779b9 ^ n;
+  const next = () => {
+    state ^= state << 13;
+    state ^= state >>> 17;
+    state ^= state << 5;
+    return (state >>> 0) / 4294967296;
+  };
+  for (let s = 0; s < size; s++) {
+    const i = Math.floor(next() * n);
+    let j = Math.floor(next() * (n - 1));
+    j += j >= i ? 1 : 0;
+    const a = Math.min(i, j);
+    const b = Math.max(i, j);
+    sample[s] = ((y[b] as number) - (y[a] as number)) / ((t[b] as number) - (t[a] as number));
+  }
+  const margin = Math.ceil(3 * Math.sqrt(size / 4)) + 1;
+  const lowAt = Math.floor((lowest * size) / pairs) - margin;
+  const highAt = Math.ceil(((highest + 1) * size) / pairs) + margin;
+  const sampleLow = lowAt < 0 ? -Infinity : selectKth(sample, lowAt, 0, size - 1);
+  const sampleHigh = highAt >= size ? Infinity : selectKth(sample, highAt, Math.max(0, lowAt), size - 1);
+  const lo = sampleLow - 3 * tolerance(sampleLow);
+  const hi = sampleHigh + 3 * tolerance(sampleHigh);
+  if (!(lo < hi)) return null;
+
+  // 2. The order of the residuals at lo and at hi, and the slopes counted at or below each.
+  const orderLow = scratchInts('slope-order-low', n);
+  const orderHigh = scratchInts('slope-order-high', n);
+  const belowLow = residualOrder(t, y, n, lo, orderLow);
+  const belowHigh = residualOrder(t, y, n, hi, orderHigh);
+  if (!(belowLow <= lowest && highest < belowHigh)) return null;
+
+  // 3. From the order at lo to the order at hi: each swap is one slope in (lo, hi].
+  const positionHigh = scratchInts('slope-position-high', n);
+  for (let p = 0; p < n; p++) positionHigh[orderHigh[p] as number] = p;
+  const inside = scratch('slope-inside', belowHigh - belowLow);
+  let count = 0;
+  for (let p = 1; p < n; p++) {
+    const b = orderLow[p] as number;
+    const target = positionHigh[b] as number;
+    let q = p - 1;
+    while (q >= 0 && (positionHigh[orderLow[q] as number] as number) > target) {
+      const a = orderLow[q] as number;
+      // a came first at lo: the pair must be in time order there (slope above lo) and swap at hi.
+      if (a > b || count >= belowHigh - belowLow) return null;
+      inside[count++] = ((y[b] as number) - (y[a] as number)) / ((t[b] as number) - (t[a] as number));
+      orderLow[q + 1] = a;
+      q--;
+    }
+    orderLow[q + 1] = b;
+  }
+  if (count !== belowHigh - belowLow) return null;
+
+  const found = selectRanks(inside, count, ranks.map((rank) => rank - belowLow));
+  const floor = lo + tolerance(lo);
+  const ceiling = hi - tolerance(hi);
+  for (const value of found) if (!(value > floor && value < ceiling)) return null;
+  return found;
+}
+
+/**
+ * Fills `order` with 0..n − 1 sorted by the residual yᵢ − θ·tᵢ, ties in reverse time order, by a
+ * bottom-up merge sort that counts as it goes the pairs i < j with rⱼ ≤ rᵢ: the slopes ≤ θ.
+ * At θ = −∞ no slope is below; at +∞ all are.
+ */
+function residualOrder(t: Float64Array, y: Float64Array, n: number, theta: number, order: Int32Array): number {
+  if (theta === -Infinity || theta === Infinity) {
+    for (let k = 0; k < n; k++) order[k] = theta === -Infinity ? k : n - 1 - k;
+    return theta === -Infinity ? 0 : (n * (n - 1)) / 2;
+  }
+  const residual = scratch('slope-residual', n);
+  for (let k = 0; k < n; k++) residual[k] = (y[k] as number) - theta * (t[k] as number);
+  let source = order;
+  let target = scratchInts('slope-merge', n);
+  for (let k = 0; k < n; k++) source[k] = k;
+  let inversions = 0;
+  for (let width = 1; width < n; width *= 2) {
+    for (let left = 0; left < n; left += 2 * width) {
+      const middle = Math.min(left + width, n);
+      const right = Math.min(left + 2 * width, n);
+      let i = left;
+      let j = middle;
+      let k = left;
+      while (i < middle && j < right) {
+        const a = source[i] as number;
+        const b = source[j] as number;
+        // Every index of the right run is later in time than every index of the left run.
+        if ((residual[b] as number) <= (residual[a] as number)) {
+          inversions += middle - i;
+          target[k++] = b;
+          j++;
+        } else {
+          target[k++] = a;
+          i++;
+        }
+      }
+      while (i < middle) target[k++] = source[i++] as number;
+      while (j < right) target[k++] = source[j++] as number;
+    }
+    const swap = source;
+    source = target;
+    target = swap;
+  }
+  if (source !== order) order.set(source.subarray(0, n));
+  return inversions;
+}
