@@ -16,15 +16,15 @@ const ROUNDOFF = 2 ** -53;
  * "Randomized optimal algorithm for slope selection", Information Processing Letters 39, 183–187;
  * Dillencourt, Mount & Netanyahu 1992, International Journal of Computational Geometry &
  * Applications 2, 1–27), here in one round:
- * 1. a sample of about N^(2/3) pairs, drawn by a fixed generator, brackets the wanted ranks: its
+ * 1. a sample of about N^(2/3) pairs, drawn by a generator seeded from the values, brackets the wanted ranks: its
  *    order statistics a little below the lowest and above the highest rank, with a margin of three
  *    standard deviations of a sample rank, give slopes lo and hi;
  * 2. a slope is ≤ θ exactly when the residuals rᵢ = yᵢ − θ·tᵢ of its pair are out of time order
  *    (rⱼ ≤ rᵢ for i < j), so a merge sort of the residuals at lo counts the slopes ≤ lo as
- *    inversions (Knight 1966), and the same at hi;
- * 3. an insertion sort from the order at lo to the order at hi swaps exactly the pairs whose slope
- *    lies in (lo, hi], one swap each: those K slopes are made, and the wanted ranks, less the count
- *    at lo, are selected among them (selectRanks).
+ *    inversions (Knight 1966);
+ * 3. an insertion sort from that order to the order of the residuals at hi swaps exactly the pairs
+ *    whose slope lies in (lo, hi], one swap each: those K slopes are made, and the wanted ranks,
+ *    less the count at lo, are selected among them (selectRanks).
  * Rounding: the residual comparison and the slope itself are computed with rounding, so a slope
  * within E(θ) = 16u(max|y| + |θ|·max|t|)/min Δt + 4u|θ| of θ (u = 2⁻⁵³) may be counted on the
  * wrong side of θ. lo and hi are pushed out by 3E from the sample values, and every value found must
@@ -55,7 +55,11 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
   // 1. The bracket from a sample of pairs, drawn uniformly by a fixed xorshift generator.
   const size = Math.min(4096, Math.max(128, Math.round(pairs ** (2 / 3))));
   const sample = scratch('slope-sample', size);
+  // Seeded from the data, so that the samples of different series are independent draws (a
+  // fixed sample is the same draw for every series, and an unlucky one fails for many).
   let state = 0x9e3779b9 ^ n;
+  for (let k = 0; k < n; k += 7) state = Math.imul(state ^ Math.round((y[k] as number) * 1e6), 0x85ebca6b) ^ (state >>> 13);
+  state ||= 1;
   const next = () => {
     state ^= state << 13;
     state ^= state >>> 17;
@@ -79,33 +83,35 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
   const hi = sampleHigh + 3 * tolerance(sampleHigh);
   if (!(lo < hi)) return null;
 
-  // 2. The order of the residuals at lo and at hi, and the slopes counted at or below each.
-  const orderLow = scratchInts('slope-order-low', n);
-  const orderHigh = scratchInts('slope-order-high', n);
-  const belowLow = residualOrder(t, y, n, lo, orderLow);
-  const belowHigh = residualOrder(t, y, n, hi, orderHigh);
-  if (!(belowLow <= lowest && highest < belowHigh)) return null;
+  // 2. The order of the residuals at lo, and the slopes counted at or below it.
+  const order = scratchInts('slope-order', n);
+  const belowLow = residualOrder(t, y, n, lo, order);
+  if (belowLow > lowest) return null;
 
-  // 3. From the order at lo to the order at hi: each swap is one slope in (lo, hi].
-  const positionHigh = scratchInts('slope-position-high', n);
-  for (let p = 0; p < n; p++) positionHigh[orderHigh[p] as number] = p;
-  const inside = scratch('slope-inside', belowHigh - belowLow);
+  // 3. From the order at lo to the order at hi (residuals at hi, ties in reverse time order) by
+  //    insertion sort: each swap is one slope in (lo, hi], so the count at hi comes on the way.
+  const room = pairs - belowLow;
+  const inside = scratch('slope-inside', room);
+  const atHigh = scratch('slope-residual', n);
+  if (hi === Infinity) for (let k = 0; k < n; k++) atHigh[k] = -k;
+  else for (let k = 0; k < n; k++) atHigh[k] = (y[k] as number) - hi * (t[k] as number);
   let count = 0;
   for (let p = 1; p < n; p++) {
-    const b = orderLow[p] as number;
-    const target = positionHigh[b] as number;
+    const b = order[p] as number;
+    const key = atHigh[b] as number;
     let q = p - 1;
-    while (q >= 0 && (positionHigh[orderLow[q] as number] as number) > target) {
-      const a = orderLow[q] as number;
+    for (; q >= 0; q--) {
+      const a = order[q] as number;
+      const other = atHigh[a] as number;
+      if (!(other > key || (other === key && a < b))) break;
       // a came first at lo: the pair must be in time order there (slope above lo) and swap at hi.
-      if (a > b || count >= belowHigh - belowLow) return null;
+      if (a > b || count >= room) return null;
       inside[count++] = ((y[b] as number) - (y[a] as number)) / ((t[b] as number) - (t[a] as number));
-      orderLow[q + 1] = a;
-      q--;
+      order[q + 1] = a;
     }
-    orderLow[q + 1] = b;
+    order[q + 1] = b;
   }
-  if (count !== belowHigh - belowLow) return null;
+  if (!(highest < belowLow + count)) return null;
 
   const found = selectRanks(inside, count, ranks.map((rank) => rank - belowLow));
   const floor = lo + tolerance(lo);
@@ -117,12 +123,12 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
 /**
  * Fills `order` with 0..n − 1 sorted by the residual yᵢ − θ·tᵢ, ties in reverse time order, by a
  * bottom-up merge sort that counts as it goes the pairs i < j with rⱼ ≤ rᵢ: the slopes ≤ θ.
- * At θ = −∞ no slope is below; at +∞ all are.
+ * At θ = −∞ no slope is below.
  */
 function residualOrder(t: Float64Array, y: Float64Array, n: number, theta: number, order: Int32Array): number {
-  if (theta === -Infinity || theta === Infinity) {
-    for (let k = 0; k < n; k++) order[k] = theta === -Infinity ? k : n - 1 - k;
-    return theta === -Infinity ? 0 : (n * (n - 1)) / 2;
+  if (theta === -Infinity) {
+    for (let k = 0; k < n; k++) order[k] = k;
+    return 0;
   }
   const residual = scratch('slope-residual', n);
   for (let k = 0; k < n; k++) residual[k] = (y[k] as number) - theta * (t[k] as number);

@@ -86,8 +86,12 @@ export function sensSlope(times: ArrayLike<number | null | undefined>, values: A
   return result(selectRanks(slopes, count, ranks));
 }
 
-/** From this many slopes on, selecting them without making them all is the faster way (bench:stats). */
-const SELECT_FROM = 300;
+/**
+ * From this many slopes on, selecting without making them all is the faster way. Measured here
+ * (one core, monthly series with ties and 5 % missing; µs a call, making all / selecting):
+ * n = 48: 19 / 26; 120: 69 / 58; 240: 224 / 134; 360: 490 / 225; 600: 1,336 / 399.
+ */
+const SELECT_FROM = 2500;
 
 /** Whether the first n times are strictly increasing (the usual case: then no pair is tied in time). */
 function increasing(t: Float64Array, n: number): boolean {
