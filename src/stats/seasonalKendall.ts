@@ -1,5 +1,4 @@
 import type { TrendReason } from './mannKendall.ts';
-import { kendallScore } from './kendallScore.ts';
 import { scratch } from './scratch.ts';
 import { normalSurvival } from './normalSurvival.ts';
 import { selectRanks } from './selectRanks.ts';
@@ -64,24 +63,36 @@ export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<num
   let n = 0;
   const slopes = scratch('seasonal-slopes', (12 * grid.years * (grid.years - 1)) / 2);
   let slopeCount = 0;
-  const observed = scratch('seasonal-observed', grid.years);
+  const equal = scratch('seasonal-equal', grid.years);
   for (let season = 0; season < 12; season++) {
     const column = grid.columns[season] as Float64Array;
+    // Within one season, the Mann-Kendall S and the tie term over its years from the same pair
+    // loop as the slopes (a season has a few dozen years at most, so pairs beat a merge sort):
+    // with cᵢ the other years equal to year i, a group of t equal values gives each member
+    // c = t − 1, so Σ t(t − 1)(2t + 5) over groups = Σᵢ cᵢ(2cᵢ + 7) over values.
     let count = 0;
+    let seasonS = 0;
+    equal.fill(0, 0, grid.years);
     for (let i = 0; i < grid.years; i++) {
       const xi = column[i] as number;
       if (xi !== xi) continue; // NaN: missing
-      observed[count++] = xi;
+      count++;
       for (let j = i + 1; j < grid.years; j++) {
         const xj = column[j] as number;
-        if (xj === xj) slopes[slopeCount++] = (xj - xi) / (j - i);
+        if (xj !== xj) continue;
+        slopes[slopeCount++] = (xj - xi) / (j - i);
+        seasonS += +(xj > xi) - +(xj < xi);
+        if (xj === xi) {
+          equal[i] = (equal[i] as number) + 1;
+          equal[j] = (equal[j] as number) + 1;
+        }
       }
     }
-    // Within one season, the Mann-Kendall S and tie-corrected Var(S) over its years.
-    const score = kendallScore(observed, count);
-    const seasonVariance = (count * (count - 1) * (2 * count + 5) - score.varianceTerm) / 18;
-    seasons.push({ season: season + 1, n: count, s: score.s, varianceS: seasonVariance });
-    s += score.s;
+    let varianceTerm = 0;
+    for (let i = 0; i < grid.years; i++) varianceTerm += (equal[i] as number) * (2 * (equal[i] as number) + 7);
+    const seasonVariance = (count * (count - 1) * (2 * count + 5) - varianceTerm) / 18;
+    seasons.push({ season: season + 1, n: count, s: seasonS, varianceS: seasonVariance });
+    s += seasonS;
     varianceS += seasonVariance;
     n += count;
   }
@@ -134,32 +145,35 @@ const sgn = (value: number) => (value > 0 ? 1 : value < 0 ? -1 : 0); // NaN → 
 
 function withCovariance(grid: YearGrid, s: number, seasonVarianceSum: number): { applied: true; varianceS: number; z: number; p: number } {
   const n = grid.years;
-  // signs[g][i·n + j] = sgn(x_jg − x_ig), 0 where either is missing; ranks[g][j] = R_jg.
-  const signs = grid.columns.map((column) => {
-    const table = new Float64Array(n * n);
-    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) table[i * n + j] = sgn((column[j] as number) - (column[i] as number));
-    return table;
-  });
-  const ranks = signs.map((table) => {
-    const rank = new Float64Array(n);
-    for (let j = 0; j < n; j++) {
-      let sum = 0;
-      for (let i = 0; i < n; i++) sum += table[i * n + j] as number;
-      rank[j] = (n + 1 + sum) / 2;
+  const pairs = (n * (n - 1)) / 2;
+  // signs[g·pairs + p] = sgn(x_jg − x_ig) for the p-th pair i < j, 0 where either is missing;
+  // ranks[g·n + j] = R_jg. Work buffers: no allocation per call.
+  const signs = scratch('seasonal-signs', 12 * pairs);
+  const ranks = scratch('seasonal-ranks', 12 * n);
+  for (let g = 0; g < 12; g++) {
+    const column = grid.columns[g] as Float64Array;
+    const rankBase = g * n;
+    for (let j = 0; j < n; j++) ranks[rankBase + j] = n + 1;
+    let p = g * pairs;
+    for (let i = 0; i < n - 1; i++) {
+      const xi = column[i] as number;
+      for (let j = i + 1; j < n; j++) {
+        const sign = sgn((column[j] as number) - xi);
+        signs[p++] = sign;
+        // R_jg sums sgn(x_jg − x_ig) over every i; the pair (i, j) adds it to j and its opposite to i.
+        ranks[rankBase + j] = (ranks[rankBase + j] as number) + sign;
+        ranks[rankBase + i] = (ranks[rankBase + i] as number) - sign;
+      }
     }
-    return rank;
-  });
+    for (let j = 0; j < n; j++) ranks[rankBase + j] = (ranks[rankBase + j] as number) / 2;
+  }
   let covarianceSum = 0;
   for (let g = 0; g < 12; g++) {
-    const signG = signs[g] as Float64Array;
-    const rankG = ranks[g] as Float64Array;
     for (let h = g + 1; h < 12; h++) {
-      const signH = signs[h] as Float64Array;
-      const rankH = ranks[h] as Float64Array;
       let k = 0;
-      for (let i = 0; i < n - 1; i++) for (let j = i + 1; j < n; j++) k += (signG[i * n + j] as number) * (signH[i * n + j] as number);
+      for (let p = 0, a = g * pairs, b = h * pairs; p < pairs; p++) k += (signs[a + p] as number) * (signs[b + p] as number);
       let rankProducts = 0;
-      for (let j = 0; j < n; j++) rankProducts += (rankG[j] as number) * (rankH[j] as number);
+      for (let j = 0; j < n; j++) rankProducts += (ranks[g * n + j] as number) * (ranks[h * n + j] as number);
       // σ_gh = σ_hg: each unordered pair of seasons counts twice.
       covarianceSum += (2 * (k + 4 * rankProducts - n * (n + 1) * (n + 1))) / 3;
     }
