@@ -103,6 +103,6 @@ function accessibleSvg(svg: string, chart: ChartDefinition): string {
     // The headless renderer marks the root as a graphics document; one image with a name and a
     // description is what a screen-reader user needs here.
     const kept = attributes.replace(ariaAttributes, '');
-    return `<svg${kept} role="img" aria-labelledby="${titleId}" aria-describedby="${descId}" style="max-width:100%;height:auto"><title id="${titleId}">${escapeXml(chart.title)}</title><desc id="${descId}">${escapeXml(chart.description)}</desc>`;
+    return `<svg${kept} role="img" aria-labelledby="${titleId}" aria-describedby="${descId}"><title id="${titleId}">${escapeXml(chart.title)}</title><desc id="${descId}">${escapeXml(chart.description)}</desc>`;
   });
 }

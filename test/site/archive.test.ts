@@ -120,6 +120,32 @@ describe('the overview on narrow and wide screens', () => {
     await browser?.close();
   });
 
+  it('loads its pages under a Content-Security-Policy that allows no script, with no violation reported', async () => {
+    const server = await serveFolder(site);
+    try {
+      const context = await browser.newContext({ viewport: { width: 800, height: 900 } });
+      const page = await context.newPage();
+      const refused: string[] = [];
+      page.on('console', (message) => {
+        if (/Content Security Policy|Refused to/i.test(message.text())) refused.push(message.text());
+      });
+      for (const path of ['/issues/2026-11/', '/fr/issues/2026-11/surface-water/', '/fr/issues/2026-11/water-bodies/wb079/', '/archive/']) {
+        await page.goto(`${server.origin}${path}`);
+        const policy = await page.locator('meta[http-equiv="Content-Security-Policy"]').getAttribute('content');
+        expect(policy).toContain("script-src 'none'");
+        expect(policy).toContain("style-src 'self'");
+      }
+      // The charts still fit their column: the width rule comes from the stylesheet, not a style attribute.
+      await page.goto(`${server.origin}/issues/2026-11/surface-water/`);
+      const maxWidth = await page.locator('svg[role="img"]').first().evaluate((svg) => (globalThis as unknown as { getComputedStyle(element: unknown): { maxWidth: string } }).getComputedStyle(svg).maxWidth);
+      expect(maxWidth).toBe('100%');
+      expect(refused).toEqual([]);
+      await context.close();
+    } finally {
+      await server.close();
+    }
+  }, 60_000);
+
   it('has no horizontal overflow at 320 px and 1280 px in either language, and leaves a screenshot of each', async () => {
     const server = await serveFolder(site);
     const shots = join(import.meta.dirname, '..', '..', '.tmp', 'screenshots');

@@ -87,6 +87,19 @@ describe('the French edition', () => {
   });
 });
 
+describe('page weight', () => {
+  it('keeps each overview, with its stylesheet and inline SVG, under 300 KB and fetches nothing from other hosts', () => {
+    const css = readFileSync(join(site, 'assets/site.css')).length;
+    for (const path of ['issues/2026-11/index.html', 'fr/issues/2026-11/index.html']) {
+      const html = read(path);
+      expect(Buffer.byteLength(html) + css, path).toBeLessThanOrEqual(300 * 1024);
+      // Resources a browser would fetch: stylesheets, scripts, images, fonts. Only site paths.
+      const fetched = [...html.matchAll(/<(?:link rel="stylesheet"|script|img|source)[^>]*(?:href|src)="([^"]+)"/g)].map((match) => match[1]);
+      for (const url of fetched) expect(url, path).toMatch(/^\/(?!\/)/);
+    }
+  });
+});
+
 describe('renderMarkdown', () => {
   it('renderMarkdown(folder, locale, firstLocale) falls back to the first language, marked with its lang', () => {
     const folder = mkdtempSync(join(tmpdir(), 'limnopress-markdown-'));
