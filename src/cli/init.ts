@@ -8,14 +8,21 @@ import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { CONFIG_FILE, monthLabel, parseMonth } from '../ingest/index.ts';
+import { LOCALES } from '../ingest/config.ts';
 import { ARCHIVE_FOLDER } from '../ingest/issues.ts';
 import { HELP, UsageError } from './usage.ts';
 
 const FOREWORD = `Write the foreword of this issue here, in Markdown. It appears at the top of the overview.
 `;
 
+/** Foreword stubs for the other languages, each in its own language (content/foreword.<locale>.md). */
+const FOREWORD_IN: Record<string, string> = {
+  fr: `Écrivez ici l'avant-propos de ce numéro en français, en Markdown. Il apparaît en haut de la synthèse.
+`,
+};
+
 /** Sample tables: deterministic, invented, just enough for every page to have content. */
-function sampleFiles(month: string): Record<string, string> {
+function sampleFiles(month: string, locales: string[]): Record<string, string> {
   const last = parseMonth(month) as number;
   const first = last - 35;
   const bodies = [
@@ -61,6 +68,7 @@ function sampleFiles(month: string): Record<string, string> {
       { key: 'much-higher', fromPercent: 125 },
     ],
     site: { baseUrl: 'https://bulletin.example.org/' },
+    locales,
     inputs: { inventory: 'data/water-bodies.csv', surfaceArea: 'data/surface-area.csv', quality: 'data/water-quality.csv', rainfall: 'data/rainfall.csv', boundaries: 'data/subregions.geojson' },
   };
   return {
@@ -71,16 +79,20 @@ function sampleFiles(month: string): Record<string, string> {
     'data/rainfall.csv': `${rain.join('\n')}\n`,
     'data/subregions.geojson': `${JSON.stringify(geojson)}\n`,
     'content/foreword.md': FOREWORD,
+    ...Object.fromEntries(locales.slice(1).map((locale) => [`content/foreword.${locale}.md`, FOREWORD_IN[locale] ?? FOREWORD])),
     'README.md': `# ${config.title}\n\nA bulletin folder made by \`limnopress init\`. The tables in \`data/\` are invented samples: replace them with your own (formats in limnopress's docs/input-format.md), edit \`bulletin.json\`, then run \`limnopress check .\` and \`limnopress build . --out _site\`. The issue is marked as a draft until you set \`issue.draft\` to false.\n`,
   };
 }
 
 export async function runInit(args: string[]): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { month: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
+  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { month: { type: 'string' }, locales: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
   if (values.help) {
     process.stdout.write(HELP.init);
     return 0;
   }
+  const locales = (values.locales ?? 'en').split(',').map((locale) => locale.trim());
+  const unknown = locales.filter((locale) => !(LOCALES as readonly string[]).includes(locale));
+  if (unknown.length > 0 || new Set(locales).size !== locales.length) throw new UsageError(`--locales takes a comma-separated list of ${LOCALES.join(', ')}, each once (found "${values.locales}")`);
   if (positionals.length !== 1) throw new UsageError('init needs exactly one folder');
   const month = values.month ?? '';
   if (parseMonth(month) === null) throw new UsageError('init needs --month YYYY-MM, the month of the first issue');
@@ -89,7 +101,7 @@ export async function runInit(args: string[]): Promise<number> {
     process.stderr.write(`limnopress: ${folder} is not empty; init writes only into a new or empty folder\n`);
     return 1;
   }
-  for (const [path, content] of Object.entries(sampleFiles(month))) {
+  for (const [path, content] of Object.entries(sampleFiles(month, locales))) {
     mkdirSync(join(folder, path, '..'), { recursive: true });
     writeFileSync(join(folder, path), content);
   }
@@ -137,6 +149,11 @@ export async function runNewIssue(args: string[]): Promise<number> {
   writeFileSync(configPath, `${JSON.stringify(config, null, 2)}\n`);
   mkdirSync(join(folder, 'content'), { recursive: true });
   writeFileSync(join(folder, 'content', 'foreword.md'), FOREWORD);
+  // Last month's translated forewords are archived with it; the new issue gets fresh stubs.
+  for (const name of readdirSync(join(folder, 'content'))) {
+    const locale = /^foreword\.([a-z]{2})\.md$/.exec(name)?.[1];
+    if (locale) writeFileSync(join(folder, 'content', name), FOREWORD_IN[locale] ?? FOREWORD);
+  }
   process.stdout.write(`Archived ${monthLabel(current)} in ${archived}. The folder now holds the ${next} issue (a draft): add the ${next} rows to the tables, then run limnopress check ${folder}.\n`);
   return 0;
 }

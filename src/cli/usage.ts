@@ -10,7 +10,7 @@ Commands:
   build <bulletin-folder> --out <dir>      check the inputs and build the bulletin site
   check <bulletin-folder>                  check the inputs only, and list every problem
   verify <site-folder>                     check a built site against its manifests
-  init <folder> --month YYYY-MM            start a new bulletin folder that builds at once
+  init <folder> --month YYYY-MM [--locales en,fr]   start a new bulletin folder that builds at once
   new-issue <bulletin-folder>              archive the current issue and start next month's
   preview <bulletin-folder> [--port N]     build, serve on 127.0.0.1 and rebuild on every change
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
@@ -45,17 +45,23 @@ error.
 Options:
   -h, --help   show this help
 `,
-  init: `Usage: limnopress init <folder> --month YYYY-MM
+  init: `Usage: limnopress init <folder> --month YYYY-MM [--locales en,fr]
 
 Writes a new bulletin folder: bulletin.json, small invented sample tables in data/ (two
 sub-regions, four water bodies, 36 months up to --month), and content/foreword.md. It builds at
 once; replace the samples with your own tables. The folder must be new or empty.
+
+Options:
+  --locales L   languages to publish in, comma-separated, the first at the site root
+                (default en; available: en, fr); each further language gets a foreword stub
+                content/foreword.<locale>.md
+  -h, --help    show this help
 `,
   'new-issue': `Usage: limnopress new-issue <bulletin-folder> [--published YYYY-MM-DD]
 
 Copies the current issue (bulletin.json, every input it names, content/) into archive/YYYY-MM/,
 where it keeps its address and its inputs, then moves bulletin.json on to the next month as a
-draft, first revision, with a fresh foreword. --published sets the new issue's publication date
+draft, first revision, with a fresh foreword (and fresh translated forewords). --published sets the new issue's publication date
 (default: the 3rd of the month after the new bulletin month).
 `,
   preview: `Usage: limnopress preview <bulletin-folder> [--port 8080]

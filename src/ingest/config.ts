@@ -7,6 +7,9 @@ import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { ProblemList } from './problems.ts';
 
+/** The languages with a catalogue in content/locales/. */
+export const LOCALES = ['en', 'fr'] as const;
+
 const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'a month as YYYY-MM');
 const date = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'a date as YYYY-MM-DD');
 /** Rising class boundaries in hectares: [100, 10000] makes three classes. */
@@ -92,7 +95,7 @@ export const configSchema = z.strictObject({
     bodiesPerListPage: z.number().int().min(1).default(500),
   }),
   /** Interface languages: the first is published at the site root, each other under /<locale>/. */
-  locales: z.array(z.enum(['en', 'fr'])).min(1).refine((list) => new Set(list).size === list.length, 'each locale once').default(['en']),
+  locales: z.array(z.enum(LOCALES)).min(1).refine((list) => new Set(list).size === list.length, 'each locale once').default(['en']),
   inputs: z.strictObject({
     inventory: z.string(),
     surfaceArea: z.string(),

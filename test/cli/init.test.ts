@@ -22,6 +22,26 @@ describe('limnopress init and new-issue', () => {
     expect(overview).toContain('Write the foreword of this issue here');
   }, 240_000);
 
+  it('init --locales en,fr writes a bilingual folder with a French foreword stub, and new-issue renews it', async () => {
+    const folder = join(mkdtempSync(join(tmpdir(), 'limnopress-init-')), 'bulletin');
+    expect(run('init', folder, '--month', '2026-03', '--locales', 'en,fr').status).toBe(0);
+    expect(JSON.parse(readFileSync(join(folder, 'bulletin.json'), 'utf8')).locales).toEqual(['en', 'fr']);
+    const site = join(folder, '..', 'site');
+    await build({ bulletinFolder: folder, outDir: site });
+    const french = readFileSync(join(site, 'fr', 'issues', '2026-03', 'index.html'), 'utf8');
+    expect(french).toContain('<html lang="fr">');
+    expect(french).toContain('Brouillon\u00a0: ce numéro n&#39;est pas encore publié');
+    expect(french).toContain("Écrivez ici l'avant-propos de ce numéro en français");
+    // The French foreword written for March goes to the archive; April starts from a fresh stub.
+    writeFileSync(join(folder, 'content', 'foreword.fr.md'), 'Avant-propos de mars.\n');
+    expect(run('new-issue', folder).status).toBe(0);
+    expect(readFileSync(join(folder, 'archive', '2026-03', 'content', 'foreword.fr.md'), 'utf8')).toBe('Avant-propos de mars.\n');
+    expect(readFileSync(join(folder, 'content', 'foreword.fr.md'), 'utf8')).toContain("Écrivez ici l'avant-propos");
+    const unknown = run('init', join(folder, '..', 'other'), '--month', '2026-03', '--locales', 'en,xx');
+    expect(unknown.status).toBe(2);
+    expect(unknown.stderr).toContain('--locales takes a comma-separated list of en, fr');
+  }, 240_000);
+
   it('init refuses a folder that is not empty, and needs --month', () => {
     const folder = mkdtempSync(join(tmpdir(), 'limnopress-init-'));
     writeFileSync(join(folder, 'keep.txt'), 'mine');
