@@ -115,6 +115,7 @@ function jsonLd(model: BulletinModel): string {
     url: url(model.meta.issuePath),
     datePublished: model.meta.published,
     version: String(model.meta.revision),
+    inLanguage: model.meta.locale,
     temporalCoverage: `${model.meta.firstMonth}/${model.meta.month}`,
     spatialCoverage: { '@type': 'Place', name: model.meta.region },
     publisher: { '@type': 'Organization', name: model.meta.publisher },

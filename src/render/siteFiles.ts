@@ -81,9 +81,18 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
     ];
   });
   const pages = [...listFiles(outDir).filter((path) => path.endsWith('index.html')).map((path) => `/${path.replace(/index\.html$/, '')}`)].sort();
+  // Each page with its versions in the other languages (hreflang alternates, as in the pages).
+  const pageSet = new Set(pages);
+  const prefixes = locales.map((locale) => ({ locale, prefix: locale === siteLocale ? '' : `/${locale}` }));
+  const baseOf = (page: string) => prefixes.filter(({ prefix }) => prefix && page.startsWith(`${prefix}/`)).map(({ prefix }) => page.slice(prefix.length))[0] ?? page;
+  const entry = (page: string) => {
+    const versions = prefixes.map(({ locale, prefix }) => ({ locale, page: `${prefix}${baseOf(page)}` })).filter((version) => pageSet.has(version.page));
+    const links = versions.length > 1 ? versions.map((version) => `<xhtml:link rel="alternate" hreflang="${escapeXml(version.locale)}" href="${escapeXml(absolute(latest, version.page))}"/>`).join('') : '';
+    return `  <url><loc>${escapeXml(absolute(latest, page))}</loc>${links}</url>`;
+  };
   files.push({
     path: 'sitemap.xml',
-    content: ['<?xml version="1.0" encoding="UTF-8"?>', '<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">', ...pages.map((page) => `  <url><loc>${escapeXml(absolute(latest, page))}</loc></url>`), '</urlset>', ''].join('\n'),
+    content: ['<?xml version="1.0" encoding="UTF-8"?>', `<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9"${locales.length > 1 ? ' xmlns:xhtml="http://www.w3.org/1999/xhtml"' : ''}>`, ...pages.map(entry), '</urlset>', ''].join('\n'),
   });
   // Manifests cover the files on disk plus the feed files above (not yet written).
   const pending = new Map(files.map((file) => [file.path, file.content]));

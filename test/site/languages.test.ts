@@ -57,6 +57,20 @@ describe('the French edition', () => {
     expect(quality).toContain('L&#39;autorité sanitaire locale décide de la sécurité de la baignade et de l&#39;eau potable');
   });
 
+  it('lists each page with its other-language version in the sitemap', () => {
+    const sitemap = read('sitemap.xml');
+    expect(sitemap).toContain('xmlns:xhtml="http://www.w3.org/1999/xhtml"');
+    const both = '<xhtml:link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/"/><xhtml:link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/"/>';
+    expect(sitemap).toContain(`<url><loc>https://bulletin.example.org/issues/2026-11/trends/</loc>${both}</url>`);
+    expect(sitemap).toContain(`<url><loc>https://bulletin.example.org/fr/issues/2026-11/trends/</loc>${both}</url>`);
+  });
+
+  it('says its language in the schema.org Dataset metadata', () => {
+    const ld = (path: string) => JSON.parse(/<script type="application\/ld\+json">(.*?)<\/script>/.exec(read(path))?.[1] ?? '{}') as { inLanguage: string; url: string };
+    expect(ld('fr/issues/2026-11/index.html')).toMatchObject({ inLanguage: 'fr', url: 'https://bulletin.example.org/fr/issues/2026-11/' });
+    expect(ld('issues/2026-11/index.html')).toMatchObject({ inLanguage: 'en', url: 'https://bulletin.example.org/issues/2026-11/' });
+  });
+
   it('has its own home, archive, latest page and feeds', () => {
     expect(read('fr/index.html')).toContain('Lire le numéro de novembre 2026');
     expect(read('fr/archive/index.html')).toContain('<a href="/fr/issues/2026-10/revisions/1/">révision 1</a>');
