@@ -26,7 +26,7 @@ function formatters(locale: string) {
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
     signed: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`),
-    p: (value: number | null | undefined) => (missing(value) ? '–' : value < 0.001 ? '< 0.001' : formatNumber(locale, value, 3)),
+    p: (value: number | null | undefined) => (missing(value) ? '–' : value < 0.001 ? `< ${formatNumber(locale, 0.001, 3)}` : formatNumber(locale, value, 3)),
   };
 }
 
@@ -166,6 +166,8 @@ export function views(model: BulletinModel) {
       coverage: pct(regionStatus.coveragePercent),
       declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
       minObservedShare: pct(100 * model.meta.minObservedShare),
+      firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
+      falseDiscoveryRate: formatNumber(locale, model.trends.bodies.falseDiscoveryRate, 2),
       minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
     },
   };

@@ -51,6 +51,15 @@ describe('the French edition', () => {
     expect(surface).not.toContain('Grid cells against usual');
   });
 
+  it('writes months, p values and rates the French way in the trend tables', () => {
+    const trends = read('fr/issues/2026-11/trends/index.html');
+    expect(trends).toContain('<h1>Tendances depuis janvier 2018</h1>');
+    expect(trends).toContain('taux de fausses découvertes 0,05');
+    expect(trends).toContain('<td>&lt; 0,001</td>');
+    expect(trends).not.toMatch(/\d\.\d{2,3}</);
+    expect(read('issues/2026-11/trends/index.html')).toContain('<h1>Trends since January 2018</h1>');
+  });
+
   it('shows the health cautions in French too', () => {
     const quality = read('fr/issues/2026-11/water-quality/index.html');
     expect(quality).toContain('<strong>Précaution\u00a0:</strong> Là où la chlorophylle a est élevée');
