@@ -71,7 +71,7 @@ export class CellReader {
   private decimalComma(raw: string, line: number, column: string): string {
     if (!/^-?\d+,\d+$/.test(raw)) return raw;
     if (this.decimal === 'auto' && !this.decimalCommaSeen) {
-      this.problems.warning({ code: 'decimal-comma-detected', file: this.file, line, column, value: raw, expected: 'a decimal point, or csv.decimal set to "," in bulletin.json', message: 'a decimal comma was read as a decimal point' });
+      this.problems.warning({ code: 'decimal-comma-detected', file: this.file, line, column, value: raw, expected: 'a decimal point, or csv.decimal set to "," in bulletin.json', message: 'a decimal comma was read as a decimal point', params: {} });
     }
     this.decimalCommaSeen = true;
     return raw.replace(',', '.');

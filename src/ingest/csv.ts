@@ -164,7 +164,7 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
     }
     seen.add(name);
     if (!columns.some((column) => column.name === name)) {
-      problems.warning({ code: 'column-unknown', file: label, line: 1, column: name, value: name, expected: columns.map((c) => c.name).join(', '), message: 'an unknown column is ignored' });
+      problems.warning({ code: 'column-unknown', file: label, line: 1, column: name, value: name, expected: columns.map((c) => c.name).join(', '), message: 'an unknown column is ignored', params: { columns: columns.map((c) => c.name).join(', ') } });
     }
   }
   return usable;

@@ -125,7 +125,7 @@ function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: Water
     lastYear = Math.max(lastYear, yearOf(month));
   }
   bodies.forEach((body, k) => {
-    if (!hasData[k]) problems.warning({ code: 'body-without-data', file: paths.inventory, line: body.line, column: 'body_id', value: body.id, expected: `rows in ${paths.surfaceArea}`, message: 'the water body has no surface-area data' });
+    if (!hasData[k]) problems.warning({ code: 'body-without-data', file: paths.inventory, line: body.line, column: 'body_id', value: body.id, expected: `rows in ${paths.surfaceArea}`, message: 'the water body has no surface-area data', params: { table: paths.surfaceArea } });
   });
   if (!inBulletinMonth) {
     problems.error({ code: 'bulletin-month-without-data', file: configLabel, line: 0, column: 'issue.month', value: config.issue.month, expected: `a month present in ${paths.surfaceArea}`, message: 'the surface-area table has no row for the bulletin month' });
@@ -135,6 +135,6 @@ function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: Water
     problems.error({ code: 'baseline-outside-data', file: configLabel, line: 0, column: 'baseline', value: `${baselineFirst}-${baselineLast}`, expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`, message: 'the baseline period reaches beyond the surface-area data' });
   }
   if (baselineLast >= yearOf(bulletinMonth)) {
-    problems.warning({ code: 'baseline-includes-bulletin-year', file: configLabel, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself` });
+    problems.warning({ code: 'baseline-includes-bulletin-year', file: configLabel, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself`, params: { year: String(yearOf(bulletinMonth)), month: monthLabel(bulletinMonth) } });
   }
 }

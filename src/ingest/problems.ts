@@ -16,6 +16,11 @@ export interface Problem {
   value: string;
   expected: string;
   message: string;
+  /**
+   * For warnings, which the site shows in every language: the figures of the message, to fill the
+   * catalogue's `warning.<code>` sentence (the value found is always there as `value`).
+   */
+  params?: Record<string, string | number>;
 }
 
 /** Problems of one kind in one file kept in full; the rest are counted in one closing line. */

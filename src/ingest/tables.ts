@@ -110,7 +110,7 @@ class LaterMonths {
   }
   report(): void {
     if (this.count === 0) return;
-    this.context.problems.warning({ code: 'month-after-bulletin', file: this.file, line: this.firstLine, column: 'month', value: String(this.count), expected: `months up to ${monthLabel(this.context.bulletinMonth)}`, message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)` });
+    this.context.problems.warning({ code: 'month-after-bulletin', file: this.file, line: this.firstLine, column: 'month', value: String(this.count), expected: `months up to ${monthLabel(this.context.bulletinMonth)}`, message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)`, params: { count: this.count, month: monthLabel(this.context.bulletinMonth) } });
   }
 }
 
@@ -188,7 +188,7 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
     }
     const reference = (bodies[position] as WaterBody).referenceHa;
     if (waterHa > 1.5 * reference) {
-      context.problems.warning({ code: 'area-above-reference', file: label, line, column: 'water_area_ha', value: values[at.water_area_ha!] ?? '', expected: `at most 1.5 × the reference area (${reference} ha)`, message: 'the water area is far above the reference area: check the units or the inventory' });
+      context.problems.warning({ code: 'area-above-reference', file: label, line, column: 'water_area_ha', value: values[at.water_area_ha!] ?? '', expected: `at most 1.5 × the reference area (${reference} ha)`, message: 'the water area is far above the reference area: check the units or the inventory', params: { reference } });
     }
     body.push(position);
     month.push(when);

@@ -4,7 +4,7 @@
  * out as JSON beside the site.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
-import { calendarMonthOf, formatProblem, monthLabel, QUALITY_PARAMETERS } from '../ingest/index.ts';
+import { calendarMonthOf, monthLabel, QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
 import { aggregate, statusMonths } from './aggregate.ts';
@@ -19,6 +19,7 @@ import { rainfall, type RainfallSummary } from './rainfall.ts';
 import { referenceAreasOf, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
 import { bodyTrends, bodyTrendTests, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary, type TrendTest } from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
+import { warningText, type ShownWarning } from './warnings.ts';
 
 export type { Status } from './status.ts';
 export type { GroupMonth } from './aggregate.ts';
@@ -77,7 +78,8 @@ export interface BulletinModel {
   headline: string;
   notices: Notice[];
   methods: Record<MethodId, string>;
-  warnings: Array<Problem & { text: string }>;
+  /** The input check's warnings, worded in the model's language where the catalogue can. */
+  warnings: ShownWarning[];
   inputs: InputFile[];
 }
 
@@ -189,7 +191,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,
     methods: methodTexts(locale),
-    warnings: warnings.map((problem) => ({ ...problem, text: formatProblem(problem) })),
+    warnings: warnings.map((problem) => warningText(problem, locale)),
     inputs: inputs.files,
   };
 }

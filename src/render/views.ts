@@ -168,6 +168,8 @@ export function views(model: BulletinModel) {
       minObservedShare: pct(100 * model.meta.minObservedShare),
       firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
       falseDiscoveryRate: formatNumber(locale, model.trends.bodies.falseDiscoveryRate, 2),
+      /** Some warning has no sentence in this language and keeps the input check's English. */
+      warningsInEnglish: model.warnings.some((warning) => warning.lang !== locale),
       minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
     },
   };

@@ -60,6 +60,12 @@ describe('the French edition', () => {
     expect(read('issues/2026-11/trends/index.html')).toContain('<h1>Trends since January 2018</h1>');
   });
 
+  it('words the input check warnings in French, marked as French', () => {
+    const methods = read('fr/issues/2026-10/revisions/1/data-and-methods/index.html');
+    expect(methods).toContain('<code lang="fr">avertissement archive/2026-10-r1/data/surface-area.csv:8046 [water_area_ha]\u00a0: la surface en eau dépasse de loin la surface de référence');
+    expect(methods).not.toContain('Certains avertissements sont en anglais');
+  });
+
   it('shows the health cautions in French too', () => {
     const quality = read('fr/issues/2026-11/water-quality/index.html');
     expect(quality).toContain('<strong>Précaution\u00a0:</strong> Là où la chlorophylle a est élevée');
