@@ -83,7 +83,8 @@ export const configSchema = z.strictObject({
   quality: z
     .strictObject({
       /** Named seasons (calendar months 1–12) for the seasonal water-quality trends; none by default. */
-      seasons: z.array(z.strictObject({ key: z.string().regex(/^[a-z][a-z-]*$/), months: z.array(z.number().int().min(1).max(12)).min(1) })).default([]),
+      // `names` gives the season's name in each language ("dry" / "sèche"); without one, the key is shown.
+      seasons: z.array(z.strictObject({ key: z.string().regex(/^[a-z][a-z-]*$/), months: z.array(z.number().int().min(1).max(12)).min(1), names: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() })).default([]),
     })
     .default({ seasons: [] }),
   statusBands: z.array(statusBand).min(2),

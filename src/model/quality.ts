@@ -45,7 +45,7 @@ export interface QualityParameterSummary {
   /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
   medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
   trends: { tested: number; rising: number; falling: number; falseDiscoveryRate: number; entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }> };
-  seasonal: Array<{ season: string; sizeClass: string; years: number; slopePerYear: number | null; p: number | null }>;
+  seasonal: Array<{ season: string; seasonName: string; sizeClass: string; years: number; slopePerYear: number | null; p: number | null }>;
 }
 
 export interface Quality {
@@ -191,7 +191,7 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
       }
       const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
-      out.push({ season: season.key, sizeClass: label, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
+      out.push({ season: season.key, seasonName: season.names?.[locale as keyof typeof season.names] ?? season.key, sizeClass: label, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
     }
   }
   return out;

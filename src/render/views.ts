@@ -128,7 +128,7 @@ export function views(model: BulletinModel) {
         id: 'seasonal-trends',
         caption: t('view.seasonal.caption'),
         columns: [t('view.seasonal.row'), t('view.years'), t('view.trendYear'), 'p', t('view.evidence')],
-        rows: seasonal.map((entry) => [t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.season, sizeClass: entry.sizeClass }), String(entry.years), entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`, p(entry.p), entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`)]),
+        rows: seasonal.map((entry) => [t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.seasonName, sizeClass: entry.sizeClass }), String(entry.years), entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`, p(entry.p), entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`)]),
       });
     }
   }

@@ -66,6 +66,11 @@ describe('the French edition', () => {
     expect(methods).not.toContain('Certains avertissements sont en anglais');
   });
 
+  it('names the configured seasons in each language', () => {
+    expect(read('fr/issues/2026-11/water-quality/index.html')).toContain('Chlorophylle a, saison sèche, 1–5 ha');
+    expect(read('issues/2026-11/water-quality/index.html')).toContain('Chlorophyll-a, dry season, 1–5 ha');
+  });
+
   it('shows the health cautions in French too', () => {
     const quality = read('fr/issues/2026-11/water-quality/index.html');
     expect(quality).toContain('<strong>Précaution\u00a0:</strong> Là où la chlorophylle a est élevée');
