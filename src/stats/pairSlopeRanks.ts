@@ -60,15 +60,16 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
   let state = 0x9e3779b9 ^ n;
   for (let k = 0; k < n; k += 7) state = Math.imul(state ^ Math.round((y[k] as number) * 1e6), 0x85ebca6b) ^ (state >>> 13);
   state ||= 1;
-  const next = () => {
+  // xorshift32 (Marsaglia 2003) inline; an index is the high bits scaled to the range.
+  for (let s = 0; s < size; s++) {
     state ^= state << 13;
     state ^= state >>> 17;
     state ^= state << 5;
-    return (state >>> 0) / 4294967296;
-  };
-  for (let s = 0; s < size; s++) {
-    const i = Math.floor(next() * n);
-    let j = Math.floor(next() * (n - 1));
+    const i = Math.floor((state >>> 0) * (n / 4294967296));
+    state ^= state << 13;
+    state ^= state >>> 17;
+    state ^= state << 5;
+    let j = Math.floor((state >>> 0) * ((n - 1) / 4294967296));
     j += j >= i ? 1 : 0;
     const a = Math.min(i, j);
     const b = Math.max(i, j);
