@@ -249,7 +249,7 @@ function upTo(rows: string[], column: number, month: string): string[] {
   return rows.filter((row, k) => k === 0 || (row.split(',')[column] ?? '').slice(0, 7) <= month);
 }
 
-const ARCHIVE: Array<{ folder: string; month: string; published: string; revision: number; corrections: Array<{ date: string; text: string }>; tenfold?: string }> = [
+const ARCHIVE: Array<{ folder: string; month: string; published: string; revision: number; corrections: Array<{ date: string; text: string; translations?: Record<string, string> }>; tenfold?: string }> = [
   { folder: '2026-09', month: '2026-09', published: '2026-10-02', revision: 1, corrections: [] },
   { folder: '2026-10-r1', month: '2026-10', published: '2026-11-03', revision: 1, corrections: [], tenfold: 'WB079,2026-10,' },
   {
@@ -257,7 +257,13 @@ const ARCHIVE: Array<{ folder: string; month: string; published: string; revisio
     month: '2026-10',
     published: '2026-11-10',
     revision: 2,
-    corrections: [{ date: '2026-11-10', text: 'The October 2026 water area of water body WB079 had been entered ten times too large. All figures of this issue are recomputed with the corrected value.' }],
+    corrections: [
+      {
+        date: '2026-11-10',
+        text: 'The October 2026 water area of water body WB079 had been entered ten times too large. All figures of this issue are recomputed with the corrected value.',
+        translations: { fr: 'La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande. Tous les chiffres de ce numéro sont recalculés avec la valeur corrigée.' },
+      },
+    ],
   },
 ];
 

@@ -32,7 +32,8 @@ export const configSchema = z.strictObject({
     published: date,
     draft: z.boolean().default(false),
     /** Corrections made in this revision, shown at the top of every page of the issue. */
-    corrections: z.array(z.strictObject({ date, text: z.string().min(1) })).default([]),
+    // `text` in the issue's first language; `translations` the same note in the others ({"fr": "…"}).
+    corrections: z.array(z.strictObject({ date, text: z.string().min(1), translations: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() })).default([]),
   }),
   baseline: z.strictObject({
     firstYear: z.number().int(),

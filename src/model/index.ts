@@ -47,7 +47,8 @@ export interface BulletinModel {
     baseUrl: string;
     /** Site path of the issue, with leading and trailing slash. */
     issuePath: string;
-    corrections: Array<{ date: string; text: string }>;
+    /** Correction notes in the model's language where the configuration gives one; `lang` says which. */
+    corrections: Array<{ date: string; text: string; lang: string }>;
     baseline: { firstYear: number; lastYear: number; minYears: number };
     minObservedShare: number;
     minRegionCoverage: number;
@@ -159,7 +160,10 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       draft: config.issue.draft,
       baseUrl: config.site.baseUrl,
       issuePath: options.issuePath ?? `/issues/${monthLabel(bulletinMonth)}/`,
-      corrections: config.issue.corrections,
+      corrections: config.issue.corrections.map(({ date, text, translations }) => {
+        const translated = translations?.[locale as keyof typeof translations];
+        return { date, text: translated ?? text, lang: translated === undefined ? (config.locales[0] ?? locale) : locale };
+      }),
       baseline: config.baseline,
       minObservedShare: config.coverage.minObservedShare,
       minRegionCoverage: config.coverage.minRegionCoverage,
