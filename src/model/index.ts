@@ -48,7 +48,7 @@ export interface BulletinModel {
     /** Site path of the issue, with leading and trailing slash. */
     issuePath: string;
     /** Correction notes in the model's language where the configuration gives one; `lang` says which. */
-    corrections: Array<{ date: string; text: string; lang: string }>;
+    corrections: Array<{ date: string; dateName: string; text: string; lang: string }>;
     baseline: { firstYear: number; lastYear: number; minYears: number };
     minObservedShare: number;
     minRegionCoverage: number;
@@ -162,7 +162,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       issuePath: options.issuePath ?? `/issues/${monthLabel(bulletinMonth)}/`,
       corrections: config.issue.corrections.map(({ date, text, translations }) => {
         const translated = translations?.[locale as keyof typeof translations];
-        return { date, text: translated ?? text, lang: translated === undefined ? (config.locales[0] ?? locale) : locale };
+        return { date, dateName: formatDate(locale, date), text: translated ?? text, lang: translated === undefined ? (config.locales[0] ?? locale) : locale };
       }),
       baseline: config.baseline,
       minObservedShare: config.coverage.minObservedShare,

@@ -31,7 +31,10 @@ export function formatCalendarMonth(locale: string, calendarMonth: number): stri
   return new Intl.DateTimeFormat(locale, { month: 'long', timeZone: 'UTC' }).format(new Date(Date.UTC(2000, calendarMonth - 1, 1)));
 }
 
-/** "3 December 2026" for an ISO date. */
+/**
+ * "3 December 2026" for an ISO date: day, month, year in every language (the English catalogue is
+ * British English, so its dates are too, rather than Intl's American default for plain "en").
+ */
 export function formatDate(locale: string, isoDate: string): string {
-  return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${isoDate}T00:00:00Z`));
+  return new Intl.DateTimeFormat(locale === 'en' ? 'en-GB' : locale, { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${isoDate}T00:00:00Z`));
 }

@@ -74,8 +74,8 @@ describe('the French edition', () => {
   it('shows the correction note in French where the configuration gives its translation', () => {
     const corrected = read('fr/issues/2026-10/index.html');
     expect(corrected).toContain('<h2 id="corrections-heading">Corrections de cette révision</h2>');
-    expect(corrected).toContain('<time datetime="2026-11-10">2026-11-10</time>\u00a0: <span>La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande.');
-    expect(read('issues/2026-10/index.html')).toContain('<time datetime="2026-11-10">2026-11-10</time>: <span>The October 2026 water area of water body WB079');
+    expect(corrected).toContain('<time datetime="2026-11-10">10 novembre 2026</time>\u00a0: <span>La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande.');
+    expect(read('issues/2026-10/index.html')).toContain('<time datetime="2026-11-10">10 November 2026</time>: <span>The October 2026 water area of water body WB079');
   });
 
   it('shows the health cautions in French too', () => {
