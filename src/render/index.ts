@@ -61,7 +61,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
   // The same issue and revision in the other languages: every page of it exists there at the same path below the prefix.
   const languages = all
     .filter((other) => other.model.meta.month === model.meta.month && other.model.meta.revision === model.meta.revision)
-    .map((other) => ({ locale: other.model.meta.locale, prefix: prefixOf(other.model.meta.locale, siteLocale), name: LANGUAGE_NAMES[other.model.meta.locale] ?? other.model.meta.locale, current: other === bundle }));
+    .map((other) => ({ locale: other.model.meta.locale, prefix: prefixOf(other.model.meta.locale, siteLocale), name: LANGUAGE_NAMES[other.model.meta.locale] ?? other.model.meta.locale, ogLocale: loadMessages(other.model.meta.locale)['site.ogLocale'], current: other === bundle }));
   const inputsPath = bundle.inputsPath ?? issue;
   const revisions = sameLanguage
     .filter((other) => other.model.meta.month === model.meta.month)
@@ -128,7 +128,7 @@ function jsonLd(model: BulletinModel): string {
 type IssueData = ReturnType<typeof issueData>;
 
 /** The site-level pages of one language: its latest issue and its archive by year. */
-function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<{ locale: string; prefix: string; name: string }>) {
+function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<{ locale: string; prefix: string; name: string; ogLocale: string | undefined }>) {
   const current = issues.filter((issue) => !issue.isRevisionCopy && issue.bulletin.meta.locale === locale);
   const latest = current[current.length - 1] as IssueData;
   const years = [...new Set(current.map((issue) => issue.bulletin.meta.month.slice(0, 4)))].sort().reverse();
@@ -146,7 +146,7 @@ function languageSite(issues: IssueData[], locale: string, siteLocale: string, l
 export function siteData(issues: IssueData[], siteLocale?: string) {
   const first = siteLocale ?? (issues[issues.length - 1] as IssueData).bulletin.meta.locale;
   const locales = [first, ...[...new Set(issues.map((issue) => issue.bulletin.meta.locale))].filter((locale) => locale !== first).sort()];
-  const languages = locales.map((locale) => ({ locale, prefix: prefixOf(locale, first), name: LANGUAGE_NAMES[locale] ?? locale }));
+  const languages = locales.map((locale) => ({ locale, prefix: prefixOf(locale, first), name: LANGUAGE_NAMES[locale] ?? locale, ogLocale: loadMessages(locale)['site.ogLocale'] }));
   const sites = locales.map((locale) => languageSite(issues, locale, first, languages));
   const root = sites[0] as ReturnType<typeof languageSite>;
   return { ...root, sites };
