@@ -12,3 +12,18 @@ describe('methods', () => {
     for (const id of named) expect(Object.keys(model.methods), id).toContain(id);
   }, 60_000);
 });
+
+describe('methodTexts', () => {
+  it('every method has a name and a written method in every language', async () => {
+    const { METHOD_IDS, methodTexts } = await import('../../src/model/methods.ts');
+    const { loadMessages } = await import('../../src/text/index.ts');
+    for (const locale of ['en', 'fr']) {
+      const texts = methodTexts(locale);
+      for (const id of METHOD_IDS) {
+        expect(texts[id].length, `${locale} ${id}`).toBeGreaterThan(40);
+        expect(loadMessages(locale)[`methodName.${id}`], `${locale} ${id}`).toBeTruthy();
+      }
+    }
+    expect(methodTexts('fr').trophic).toContain('TSI = 10 (6 − (2,04 − 0,68 ln Chl) / ln 2)');
+  });
+});
