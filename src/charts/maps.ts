@@ -31,24 +31,25 @@ function subRegionFeatures<T extends object>(model: BulletinModel, properties: (
 }
 
 /** Graticule lines every `step` degrees inside the bounds, and their labels along the south and west edges. */
-function graticule(bounds: Bounds, step = 0.5) {
+function graticule(bounds: Bounds, locale: string, step = 0.5) {
   const lines: unknown[] = [];
   const labels: Array<{ lon: number; lat: number; text: string; align: string }> = [];
-  const degrees = (value: number, positive: string, negative: string) => `${formatNumber('en', Math.abs(value), 1)}° ${value < 0 ? negative : positive}`;
+  const t = translator(locale);
+  const degrees = (value: number, positive: string, negative: string) => `${formatNumber(locale, Math.abs(value), 1)}° ${t(value < 0 ? negative : positive)}`;
   for (let lon = Math.ceil(bounds.west / step) * step; lon <= bounds.east + 1e-9; lon += step) {
     lines.push({ type: 'Feature', properties: {}, geometry: { type: 'LineString', coordinates: [[lon, bounds.south], [lon, bounds.north]] } });
-    labels.push({ lon, lat: bounds.south, text: degrees(lon, 'E', 'W'), align: 'center' });
+    labels.push({ lon, lat: bounds.south, text: degrees(lon, 'view.east', 'view.west'), align: 'center' });
   }
   for (let lat = Math.ceil(bounds.south / step) * step; lat <= bounds.north + 1e-9; lat += step) {
     lines.push({ type: 'Feature', properties: {}, geometry: { type: 'LineString', coordinates: [[bounds.west, lat], [bounds.east, lat]] } });
-    labels.push({ lon: bounds.west, lat, text: degrees(lat, 'N', 'S'), align: 'right' });
+    labels.push({ lon: bounds.west, lat, text: degrees(lat, 'view.north', 'view.south'), align: 'right' });
   }
   return { lines, labels };
 }
 
 function baseLayers(model: BulletinModel) {
   const bounds = boundsOf(model);
-  const grid = graticule(bounds);
+  const grid = graticule(bounds, model.meta.locale);
   return [
     { data: { values: grid.lines }, mark: { type: 'geoshape', filled: false, stroke: '#bdbdbd', strokeWidth: 0.6 } },
     { data: { values: grid.labels.filter((label) => label.align === 'center') }, mark: { type: 'text', dy: 12, fontSize: 10, color: '#333333' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },

@@ -45,7 +45,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   };
   return {
     id: 'regional-series',
-    title: formatMessage(messages, 'chart.regional.title', { first: values[0]?.month ?? '', last: model.meta.month }),
+    title: formatMessage(messages, 'chart.regional.title', { first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '', last: model.meta.monthName }),
     description: `${formatMessage(messages, 'chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
     spec,
     table: {

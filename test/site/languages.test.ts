@@ -50,6 +50,9 @@ describe('the French edition', () => {
     expect(surface).toContain('Anomalie standardisée');
     expect(surface).toMatch(/<title id="[^"]+">Sous-régions par état, novembre 2026<\/title>/);
     expect(surface).not.toContain('Grid cells against usual');
+    // Map graticules: French decimal comma and O(uest) for west.
+    expect(surface).toMatch(/>\d+,\d° O<\/text>/);
+    expect(surface).not.toMatch(/>\d+\.\d° W<\/text>/);
   });
 
   it('writes months, p values and rates the French way in the trend tables', () => {
