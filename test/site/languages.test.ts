@@ -3,12 +3,15 @@
  * switch to the same page in the other language, hreflang alternates, French feeds, French words,
  * numbers and dates, and the input files published once and linked from both languages.
  */
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { build } from '../../src/build.ts';
 import { renderMarkdown } from '../../src/render/markdown.ts';
 import { listFiles } from '../../src/site/files.ts';
+import { checkLinks } from '../support/gates.ts';
+import { EXAMPLE } from '../support/exampleSite.ts';
 
 let site: string;
 const read = (path: string) => readFileSync(join(site, path), 'utf8');
@@ -158,4 +161,26 @@ describe('renderMarkdown', () => {
     expect(english.foreword).toBe('<p>Only in <em>English</em>.</p>\n');
     expect(english.notes).toBeNull();
   });
+});
+
+describe('a language added later', () => {
+  it('publishes the older issues in their own languages only, with no link to a page that does not exist', async () => {
+    const root = mkdtempSync(join(tmpdir(), 'limnopress-languages-'));
+    const folder = join(root, 'bulletin');
+    cpSync(EXAMPLE, folder, { recursive: true });
+    // September was published in English only; French starts with October.
+    const september = join(folder, 'archive', '2026-09', 'bulletin.json');
+    writeFileSync(september, readFileSync(september, 'utf8').replace('"en",\n    "fr"', '"en"'));
+    const out = join(root, 'site');
+    await build({ bulletinFolder: folder, outDir: out });
+    const page = (path: string) => readFileSync(join(out, path), 'utf8');
+    expect(existsSync(join(out, 'fr', 'issues', '2026-09'))).toBe(false);
+    expect(page('issues/2026-09/index.html')).not.toContain('hreflang');
+    expect(page('issues/2026-09/index.html')).not.toContain('class="languages"');
+    expect(page('fr/issues/2026-10/index.html')).not.toContain('rel="prev"');
+    expect(page('issues/2026-10/index.html')).toContain('<a rel="prev" href="/issues/2026-09/">');
+    expect(page('fr/archive/index.html')).not.toContain('/fr/issues/2026-09/');
+    const { broken } = await checkLinks(out, 'https://bulletin.example.org/');
+    expect(broken).toEqual([]);
+  }, 240_000);
 });
