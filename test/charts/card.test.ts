@@ -16,11 +16,13 @@ import { EXAMPLE } from '../support/exampleSite.ts';
 
 let svg: string;
 let png: Buffer;
+let frenchSvg: string;
 
 beforeAll(async () => {
   const { inputs, problems } = await loadBulletin(EXAMPLE);
   if (!inputs) throw new Error('the example does not load');
   svg = cardSvg(buildModel(inputs, problems.warnings, 'test'));
+  frenchSvg = cardSvg(buildModel(inputs, problems.warnings, 'test', { locale: 'fr' }));
   png = await svgToPng(svg);
 }, 60_000);
 
@@ -48,6 +50,16 @@ describe('preview card', () => {
     expect(svg).toContain('Velduran Lakeland Water Bulletin');
     expect(svg).toContain('>64%<');
     expect(svg).toContain('Velduran Basin Water Office (an invented agency)');
+  });
+
+  it('the French card wraps its longer status words and keeps every glyph inside the card', async () => {
+    expect(frenchSvg).toContain('>de la surface en eau habituelle\u00a0: bien plus bas</text>');
+    expect(frenchSvg).toContain(">que d'habitude</text>");
+    // Rendered: the right margin (x ≥ 1150, below the top bar) stays white, so no line runs off the card.
+    const { data, info } = await sharp(await svgToPng(frenchSvg)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    let inked = 0;
+    for (let y = 20; y < info.height; y++) for (let x = 1150; x < info.width; x++) if ((data[(y * info.width + x) * 3] as number) < 200) inked++;
+    expect(inked).toBe(0);
   });
 
   it('the text is drawn with a font: a render with no fonts differs', async () => {
