@@ -60,7 +60,7 @@ export function toCsv(table: DataTable): string {
 export async function renderChart(chart: ChartDefinition, { png = false } = {}): Promise<RenderedChart> {
   const spec: TopLevelSpec = {
     ...chart.spec,
-    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400 }, ...(chart.spec.config ?? {}) },
+    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 }, ...(chart.spec.config ?? {}) },
   } as TopLevelSpec;
   const compiled = compile(spec).spec;
   // Vega numbers clip paths and gradients with process-wide counters: reset them so each chart's
