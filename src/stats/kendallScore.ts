@@ -19,14 +19,31 @@ export interface KendallScore {
  * terms and the median are read off the sorted values. The values must have no missing entries.
  * Cost O(n log n) time, O(n) work memory, against O(n²) for the pair loop.
  */
+/** Width of the runs sorted by insertion before merging. */
+const RUN = 8;
+
 export function kendallScore(values: ArrayLike<number>, length = values.length): KendallScore {
   const n = length;
   let source = scratch('kendall-a', n);
   let target = scratch('kendall-b', n);
   for (let k = 0; k < n; k++) source[k] = values[k] as number;
   let inversions = 0;
-  // Bottom-up merge sort; runs of width 1, 2, 4, …
-  for (let width = 1; width < n; width *= 2) {
+  // Runs of RUN values sorted by insertion first (each shift past a larger value is one inverted
+  // pair), then a bottom-up merge sort from that width: fewer passes over the values.
+  for (let left = 0; left < n; left += RUN) {
+    const right = Math.min(left + RUN, n);
+    for (let i = left + 1; i < right; i++) {
+      const value = source[i] as number;
+      let j = i - 1;
+      while (j >= left && (source[j] as number) > value) {
+        source[j + 1] = source[j] as number;
+        j--;
+      }
+      inversions += i - 1 - j;
+      source[j + 1] = value;
+    }
+  }
+  for (let width = RUN; width < n; width *= 2) {
     for (let left = 0; left < n; left += 2 * width) {
       const middle = Math.min(left + width, n);
       const right = Math.min(left + 2 * width, n);
