@@ -10,7 +10,7 @@ Commands:
   build <bulletin-folder> --out <dir>      check the inputs and build the bulletin site
   check <bulletin-folder>                  check the inputs only, and list every problem
   verify <site-folder>                     check a built site against its manifests
-  init <folder> --month YYYY-MM [--locales en,fr]   start a new bulletin folder that builds at once
+  init <folder> --month YYYY-MM            start a new bulletin folder that builds at once
   new-issue <bulletin-folder>              archive the current issue and start next month's
   preview <bulletin-folder> [--port N]     build, serve on 127.0.0.1 and rebuild on every change
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
