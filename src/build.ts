@@ -9,7 +9,7 @@ import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
 import { InputError, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
 import { issueFolders } from './ingest/issues.ts';
 import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
-import { renderSite, type IssueBundle } from './render/index.ts';
+import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { publishAtomically } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
 import { lineProgress, seconds, silentProgress, type Progress } from './progress.ts';
@@ -47,11 +47,6 @@ export interface BuildResult {
 export function toolVersion(): string {
   const pkg = JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')) as { version: string };
   return pkg.version;
-}
-
-/** Where a language's pages live: the site's first language at the root, any other under /<locale>. */
-export function localePrefix(locale: string, siteLocale: string): string {
-  return locale === siteLocale ? '' : `/${locale}`;
 }
 
 /** Site path of each issue: the latest revision of a month at /issues/YYYY-MM/, earlier ones below it. */
@@ -124,7 +119,7 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
     // The statistics are shared; each language gets its own words, dates and numbers.
     for (const locale of inputs.config.locales) {
-      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${localePrefix(locale, siteLocale)}${paths[k] as string}`, prepared, locale });
+      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale });
       localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
       if (locale === inputs.config.locales[0]) models.push(model);
     }

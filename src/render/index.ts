@@ -13,7 +13,9 @@ import type { ChartSet } from '../charts/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { fillMessage, formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
-import { siteFiles, siteUrl } from './siteFiles.ts';
+import { prefixOf, siteFiles, siteUrl } from './siteFiles.ts';
+
+export { prefixOf } from './siteFiles.ts';
 import { bodyView, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
@@ -40,10 +42,7 @@ export interface IssueBundle {
 /** Each language's own name, for the language switch (in that language, as readers look for it). */
 const LANGUAGE_NAMES: Record<string, string> = { en: 'English', fr: 'Français' };
 
-/** Path prefix of a language: '' for the site's first language, '/<locale>' for the others. */
-export function prefixOf(locale: string, siteLocale: string): string {
-  return locale === siteLocale ? '' : `/${locale}`;
-}
+
 
 /** Everything one issue's pages read, computed here so templates only place it. */
 export function issueData(bundle: IssueBundle, all: IssueBundle[]) {

@@ -12,6 +12,11 @@ import type { SiteFile } from './index.ts';
 
 export const MANIFEST = 'manifest.json';
 
+/** Path prefix of a language: '' for the site's first language, '/<locale>' for the others. */
+export function prefixOf(locale: string, siteLocale: string): string {
+  return locale === siteLocale ? '' : `/${locale}`;
+}
+
 /** Absolute address of a site path on the published site. */
 export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
 const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.baseUrl, path);
@@ -73,7 +78,7 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
   // One pair of feeds per language, the first language's at the root.
   const locales = [...new Set(current.map((model) => model.meta.locale))].sort((a, b) => Number(b === siteLocale) - Number(a === siteLocale) || a.localeCompare(b));
   const files: SiteFile[] = locales.flatMap((locale) => {
-    const prefix = locale === siteLocale ? '' : `/${locale}`;
+    const prefix = prefixOf(locale, siteLocale);
     const own = current.filter((model) => model.meta.locale === locale);
     return [
       { path: `${prefix.slice(1)}${prefix ? '/' : ''}feed.xml`, content: atom(own, prefix) },
@@ -83,7 +88,7 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
   const pages = [...listFiles(outDir).filter((path) => path.endsWith('index.html')).map((path) => `/${path.replace(/index\.html$/, '')}`)].sort();
   // Each page with its versions in the other languages (hreflang alternates, as in the pages).
   const pageSet = new Set(pages);
-  const prefixes = locales.map((locale) => ({ locale, prefix: locale === siteLocale ? '' : `/${locale}` }));
+  const prefixes = locales.map((locale) => ({ locale, prefix: prefixOf(locale, siteLocale) }));
   const baseOf = (page: string) => prefixes.filter(({ prefix }) => prefix && page.startsWith(`${prefix}/`)).map(({ prefix }) => page.slice(prefix.length))[0] ?? page;
   const entry = (page: string) => {
     const versions = prefixes.map(({ locale, prefix }) => ({ locale, page: `${prefix}${baseOf(page)}` })).filter((version) => pageSet.has(version.page));
