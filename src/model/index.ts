@@ -1,7 +1,7 @@
 /**
  * Stage 2, model: turns the typed inputs into the bulletin model: every figure the site prints,
- * the words that go with it, and the method each rests on (ids into METHOD_IDS, written out per locale). The model is written
- * out as JSON beside the site.
+ * the words that go with it in one language, and the method each rests on (ids into METHOD_IDS,
+ * written out in that language). The model is written out as JSON beside the site, one per language.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, monthLabel, QUALITY_PARAMETERS } from '../ingest/index.ts';
