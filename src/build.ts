@@ -117,11 +117,13 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   for (const [k, { inputs, warnings: own }] of loaded.entries()) {
     const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
     progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
-    // The statistics are shared; each language gets its own words, dates and numbers.
+    // The statistics are shared: the first language's model carries the figures, every other
+    // language reuses them and gets its own words, dates and numbers.
+    let first: BulletinModel | undefined;
     for (const locale of inputs.config.locales) {
-      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale });
+      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale, base: first });
       localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
-      if (locale === inputs.config.locales[0]) models.push(model);
+      if (first === undefined) models.push((first = model));
     }
     // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
     loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };

@@ -14,9 +14,9 @@ import { statusOf } from './status.ts';
 import { grid, type Grid } from './grid.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
 import { methodTexts, type MethodId } from './methods.ts';
-import { prepareQuality, quality, type PreparedQuality, type Quality } from './quality.ts';
+import { prepareQuality, quality, relabelQuality, type PreparedQuality, type Quality } from './quality.ts';
 import { rainfall, type RainfallSummary } from './rainfall.ts';
-import { referenceAreasOf, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
+import { referenceAreasOf, relabelSurface, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
 import { bodyTrends, bodyTrendTests, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary, type TrendTest } from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
 import { warningText, type ShownWarning } from './warnings.ts';
@@ -91,6 +91,11 @@ export interface ModelOptions {
   prepared?: PreparedModel;
   /** Language of the model's words; by default the first configured locale. */
   locale?: string;
+  /**
+   * The same issue's model in another language: its figures are reused (shared, not copied) and
+   * only the words are made anew, so a second language costs little time or memory.
+   */
+  base?: BulletinModel;
 }
 
 export interface PreparedModel {
@@ -111,19 +116,50 @@ export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onS
   return { series, bodyTests, quality: waterQuality };
 }
 
+/** The parts of the model that hold no words: computed once per issue, shared by its languages. */
+type Figures = Pick<BulletinModel, 'bodies' | 'bodyStatus' | 'monitored' | 'grid' | 'trends' | 'rainfall' | 'boundaries' | 'validation'>;
+
+function sharedFigures(base: BulletinModel): Figures {
+  const { bodies, bodyStatus, monitored, grid: cells, trends, rainfall: rain, boundaries, validation: checks } = base;
+  return { bodies, bodyStatus, monitored, grid: cells, trends, rainfall: rain, boundaries, validation: checks };
+}
+
+function figuresOf(inputs: BulletinInputs, series: BodySeries, trendsOfBodies: TrendSummary, trendsOfRegion: TrendSummary, surface: SurfaceWater, pageBodies: Set<number>): Figures {
+  const { config, bulletinMonth } = inputs;
+  const referenceAreas = referenceAreasOf(inputs);
+  const forStatus = statusMonths(bulletinMonth);
+  return {
+    bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
+    bodyStatus: inputs.bodies.map((_, k) => {
+      const status = statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config);
+      return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
+    }),
+    monitored: inputs.bodies.flatMap((body, k) => {
+      if (!pageBodies.has(k)) return [];
+      const from = Math.max(0, series.months - 36);
+      const trend = trendsOfBodies.entries[k];
+      return [{ body: k, id: body.id, name: body.name, firstMonth: series.firstMonth + from, filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)), direction: trend?.direction ?? 'untested', slopePerYear: trend?.test?.slopePerYear ?? null }];
+    }),
+    grid: grid(inputs, series),
+    trends: { methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'], bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
+    rainfall: rainfall(inputs),
+    boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
+    validation: validation(inputs),
+  };
+}
+
 export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
   const { config, bulletinMonth } = inputs;
   const locale = options.locale ?? config.locales[0] ?? 'en';
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
   const pct = (value: number) => formatPercent(locale, value);
 
+  const base = options.base;
   const series = options.prepared?.series ?? bodySeries(inputs);
-  const referenceAreas = referenceAreasOf(inputs);
-  const forStatus = statusMonths(bulletinMonth);
-  const surface = surfaceWater(inputs, series, locale);
-  const trendsOfBodies = bodyTrends(series, inputs.bodies, config, options.prepared?.bodyTests);
-  const trendsOfRegion = groupTrends([surface.region], config);
-  const waterQuality = quality(inputs, options.prepared?.quality, locale);
+  const surface = base ? relabelSurface(base.surfaceWater, locale) : surfaceWater(inputs, series, locale);
+  const trendsOfBodies = base ? base.trends.bodies : bodyTrends(series, inputs.bodies, config, options.prepared?.bodyTests);
+  const trendsOfRegion = base ? base.trends.region : groupTrends([surface.region], config);
+  const waterQuality = base ? relabelQuality(base.quality, config, locale) : quality(inputs, options.prepared?.quality, locale);
   const firstYear = Math.floor(series.firstMonth / 12);
   const key = keyMessages({ locale, bulletinMonth, firstYear, surface, bodyTrends: trendsOfBodies, regionTrend: trendsOfRegion.entries[0]?.test ?? null, quality: waterQuality });
 
@@ -145,6 +181,7 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
   if (region.kind === 'stated' && region.percentOfBaseline < 90) notices.push({ kind: 'caution', text: t('caution.lowWater') });
   if (waterQuality) notices.push({ kind: 'caution', text: t('caution.algae') });
 
+  const figures = base ? sharedFigures(base) : figuresOf(inputs, series, trendsOfBodies, trendsOfRegion, surface, pageBodies);
   return {
     meta: {
       title: config.title,
@@ -173,24 +210,17 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       statusBands: config.statusBands.map((band) => band.key),
       bodiesPerListPage: config.site.bodiesPerListPage,
     },
-    bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
+    // The order of the JSON fields as it has always been, figures and words interleaved.
+    bodies: figures.bodies,
     surfaceWater: surface,
-    bodyStatus: inputs.bodies.map((_, k) => {
-      const status = statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config);
-      return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
-    }),
-    monitored: inputs.bodies.flatMap((body, k) => {
-      if (!pageBodies.has(k)) return [];
-      const from = Math.max(0, series.months - 36);
-      const trend = trendsOfBodies.entries[k];
-      return [{ body: k, id: body.id, name: body.name, firstMonth: series.firstMonth + from, filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)), direction: trend?.direction ?? 'untested', slopePerYear: trend?.test?.slopePerYear ?? null }];
-    }),
-    grid: grid(inputs, series),
-    trends: { methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'], bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
+    bodyStatus: figures.bodyStatus,
+    monitored: figures.monitored,
+    grid: figures.grid,
+    trends: figures.trends,
     quality: waterQuality,
-    rainfall: rainfall(inputs),
-    boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
-    validation: validation(inputs),
+    rainfall: figures.rainfall,
+    boundaries: figures.boundaries,
+    validation: figures.validation,
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,

@@ -45,7 +45,7 @@ export interface QualityParameterSummary {
   /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
   medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
   trends: { tested: number; rising: number; falling: number; falseDiscoveryRate: number; entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }> };
-  seasonal: Array<{ season: string; seasonName: string; sizeClass: string; years: number; slopePerYear: number | null; p: number | null }>;
+  seasonal: Array<{ season: string; seasonName: string; sizeClass: string; fromHa: number; toHa: number | null; years: number; slopePerYear: number | null; p: number | null }>;
 }
 
 export interface Quality {
@@ -191,7 +191,7 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
       }
       const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
-      out.push({ season: season.key, seasonName: season.names?.[locale as keyof typeof season.names] ?? season.key, sizeClass: label, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
+      out.push({ season: season.key, seasonName: season.names?.[locale as keyof typeof season.names] ?? season.key, sizeClass: label, fromHa, toHa, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
     }
   }
   return out;
@@ -214,6 +214,23 @@ export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, o
       return { parameter, data, tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool, onBatch) };
     }),
   );
+}
+
+/** The same figures with the words of another language: size-class labels and season names. */
+export function relabelQuality(base: Quality | null, config: BulletinConfig, locale: string): Quality | null {
+  if (!base) return null;
+  const seasonName = (key: string) => {
+    const names = config.quality.seasons.find((season) => season.key === key)?.names;
+    return names?.[locale as keyof typeof names] ?? key;
+  };
+  return {
+    ...base,
+    parameters: base.parameters.map((parameter) => ({
+      ...parameter,
+      bySizeClass: parameter.bySizeClass.map((entry) => ({ ...entry, label: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
+      seasonal: parameter.seasonal.map((entry) => ({ ...entry, seasonName: seasonName(entry.season), sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
+    })),
+  };
 }
 
 export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null, locale = 'en'): Quality | null {

@@ -81,6 +81,11 @@ export function sizeClassBounds(boundaries: number[], openBottom: boolean): Arra
   return edges.map((fromHa, k) => ({ fromHa, toHa: edges[k + 1] ?? null }));
 }
 
+/** The same figures with the words of another language: the size-class names. */
+export function relabelSurface(base: SurfaceWater, locale: string): SurfaceWater {
+  return { ...base, sizeClasses: base.sizeClasses.map((entry) => ({ ...entry, name: sizeClassLabel(locale, entry.fromHa, entry.toHa, true) })) };
+}
+
 export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale = 'en'): SurfaceWater {
   const all = inputs.bodies.map((_, k) => k);
   const region = group(inputs, series, 'region', inputs.config.region.name, all);

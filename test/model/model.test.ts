@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { buildModel } from '../../src/model/index.ts';
+import { EXAMPLE } from '../support/exampleSite.ts';
 import { miniFiles, writeMini, type MiniFiles } from '../support/miniBulletin.ts';
 
 async function modelOf(changes: Partial<Record<keyof MiniFiles, string>> = {}) {
@@ -69,4 +70,22 @@ describe('pages of their own', () => {
     expect(model.monitored.map((entry) => entry.id)).toEqual(['B']);
     expect(model.notices.map((notice) => notice.text)).toContain('2 water bodies are flagged for a page of their own; the 1 largest have one. All of them are in the tables.');
   });
+});
+
+describe('buildModel in a second language', () => {
+  it('buildModel(inputs, …, { locale, base }) equals the model built from scratch in that language, sharing the figures', async () => {
+    const { inputs, problems } = await loadBulletin(EXAMPLE);
+    if (!inputs) throw new Error('example does not load');
+    const english = buildModel(inputs, problems.warnings, 'test', { locale: 'en' });
+    const scratch = buildModel(inputs, problems.warnings, 'test', { locale: 'fr' });
+    const shared = buildModel(inputs, problems.warnings, 'test', { locale: 'fr', base: english });
+    expect(JSON.stringify(shared)).toBe(JSON.stringify(scratch));
+    // Shared by reference, not copied: a second language adds words, not another copy of the figures.
+    expect(shared.bodyStatus).toBe(english.bodyStatus);
+    expect(shared.trends).toBe(english.trends);
+    expect(shared.grid).toBe(english.grid);
+    // The words differ.
+    expect(shared.surfaceWater.sizeClasses.map((entry) => entry.name)).toContain('plus de 10\u202f000 ha');
+    expect(english.surfaceWater.sizeClasses.map((entry) => entry.name)).toContain('over 10,000 ha');
+  }, 60_000);
 });
