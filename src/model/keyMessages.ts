@@ -14,7 +14,7 @@
  * 6. chlorophyll-a: bodies above the WHO 10 µg/L level (when any);
  * 7. change from a year ago (when rules 2–6 left room; at most six messages in all).
  */
-import { formatMessage, loadMessages } from '../text/index.ts';
+import { formatCount, formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { evidenceFor, type EvidenceKey } from './evidence.ts';
 import type { Quality } from './quality.ts';
@@ -72,7 +72,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
 
   const trends = input.bodyTrends;
   if (trends.tested > 0) {
-    const text = trends.declining > 0 ? t('key.trendCount', { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
+    const text = trends.declining > 0 ? formatCount(loadMessages(input.locale), input.locale, 'key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
     messages.push({ id: 'trend-count', text, figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' }, link: 'trends/#bodies' });
   }
 
@@ -88,7 +88,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   const who = input.quality?.who;
   const above10 = who?.levels.find((level) => level.level === 10);
   if (who && above10 && above10.bodiesAbove > 0) {
-    messages.push({ id: 'chlorophyll', text: t('key.chlorophyll', { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
+    messages.push({ id: 'chlorophyll', text: formatCount(loadMessages(input.locale), input.locale, 'key.chlorophyll', above10.bodiesAbove, { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
   }
 
   if (region.kind === 'stated' && region.changeFromLastYear !== null && messages.length < 6) {

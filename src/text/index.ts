@@ -26,6 +26,16 @@ export function formatMessage(messages: Messages, key: string, params: Record<st
   return fillMessage(template, params, key);
 }
 
+/**
+ * A message whose wording depends on a count: `<key>.<category>` when the catalogue has it, for
+ * the count's plural category in the locale (Intl.PluralRules: "one", "other", …), else `<key>`.
+ * French puts 0 and 1 in "one", English only 1.
+ */
+export function formatCount(messages: Messages, locale: string, key: string, count: number, params: Record<string, string | number> = {}): string {
+  const variant = `${key}.${new Intl.PluralRules(locale).select(count)}`;
+  return formatMessage(messages, messages[variant] === undefined ? key : variant, params);
+}
+
 /** Fills the `{name}` placeholders of a message already looked up (templates look messages up themselves). */
 export function fillMessage(template: string, params: Record<string, string | number> = {}, key = template): string {
   if (typeof template !== 'string') throw new RangeError('fillMessage requires a message; is its key in the catalogue?');
