@@ -167,4 +167,27 @@ describe('the overview on narrow and wide screens', () => {
       await server.close();
     }
   }, 60_000);
+
+  it('reflows every kind of page at 320 px in both languages (tables scroll inside their own box)', async () => {
+    const server = await serveFolder(site);
+    const kinds = ['', 'surface-water/', 'water-quality/', 'trends/', 'data-and-methods/', 'water-bodies/', 'sub-regions/cor/', 'sub-regions/cor/water-bodies/page-2/', 'water-bodies/wb079/'];
+    const paths = [...['/issues/2026-11/', '/fr/issues/2026-11/', '/fr/issues/2026-10/revisions/1/'].flatMap((issue) => kinds.map((kind) => `${issue}${kind}`)), '/', '/fr/archive/', '/latest/', '/404.html'];
+    try {
+      const context = await browser.newContext({ viewport: { width: 320, height: 900 } });
+      const page = await context.newPage();
+      const overflowing: string[] = [];
+      for (const path of paths) {
+        await page.goto(`${server.origin}${path}`);
+        const { scrollWidth, clientWidth } = await page.evaluate(() => {
+          const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
+          return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
+        });
+        if (scrollWidth > clientWidth) overflowing.push(`${path} ${scrollWidth} > ${clientWidth}`);
+      }
+      expect(overflowing).toEqual([]);
+      await context.close();
+    } finally {
+      await server.close();
+    }
+  }, 120_000);
 });
