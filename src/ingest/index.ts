@@ -3,7 +3,7 @@
  * and one list of problems. Nothing here computes a statistic.
  */
 import { createHash } from 'node:crypto';
-import { statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { sha256File } from '../site/files.ts';
 import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
@@ -91,12 +91,29 @@ export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (d
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
 
   crossCheck(config, bulletinMonth, bodies, area, subRegions, problems, label);
+  checkTranslations(folder, config, problems, label);
   if (problems.errors.length > 0) return { inputs: null, problems };
 
   const used = [paths.inventory, paths.surfaceArea, paths.quality, paths.distribution, paths.rainfall, paths.field, paths.boundaries].filter((path): path is string => Boolean(path));
   onStep?.('input hashes');
   const files = [CONFIG_FILE, ...used].sort().map((path) => hashFile(folder, path));
   return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files }, problems };
+}
+
+/**
+ * Editorial text written for the first language but not translated for another: that language's
+ * pages will show the original (marked with its language). A warning, so editors notice.
+ */
+function checkTranslations(folder: string, config: BulletinConfig, problems: ProblemList, label: (path: string) => string): void {
+  for (const name of ['foreword', 'notes']) {
+    const original = `content/${name}.md`;
+    if (!existsSync(join(folder, original))) continue;
+    for (const locale of config.locales.slice(1)) {
+      const translation = `content/${name}.${locale}.md`;
+      if (existsSync(join(folder, translation))) continue;
+      problems.warning({ code: 'content-untranslated', file: label(original), line: 0, column: '', value: locale, expected: label(translation), message: `no ${locale} translation: the ${locale} pages show this text in the first language`, params: { locale, translation: label(translation) } });
+    }
+  }
 }
 
 function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaTable, subRegions: SubRegion[], problems: ProblemList, label: (path: string) => string): void {

@@ -2,6 +2,8 @@
  * Every kind of bad input the bulletin refuses or warns about, each on an otherwise valid folder,
  * with the file, line and column it must name.
  */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { MINI_CONFIG, miniFiles, writeMini, type MiniFiles } from '../support/miniBulletin.ts';
@@ -164,5 +166,18 @@ describe('loadBulletin', () => {
     expect(sorted).toHaveLength(51);
     expect(sorted[50]?.message).toBe('70 more problem(s) of this kind (unknown-body) not listed');
     expect(problems.total).toEqual({ errors: 120, warnings: 0 });
+  });
+});
+
+describe('loadBulletin and translations', () => {
+  it('loadBulletin warns when editorial text has no translation for a configured language', async () => {
+    const folder = writeMini({ 'bulletin.json': config((c) => Object.assign(c, { locales: ['en', 'fr'] })) });
+    mkdirSync(join(folder, 'content'));
+    writeFileSync(join(folder, 'content', 'foreword.md'), 'The foreword.\n');
+    writeFileSync(join(folder, 'content', 'notes.md'), 'The notes.\n');
+    writeFileSync(join(folder, 'content', 'notes.fr.md'), 'Les notes.\n');
+    const { inputs, problems } = await loadBulletin(folder);
+    expect(inputs).not.toBeNull();
+    expect(problems.sorted().map((p) => `${p.severity} ${p.code} ${p.file} ${p.value} ${p.expected}`)).toEqual(['warning content-untranslated content/foreword.md fr content/foreword.fr.md']);
   });
 });
