@@ -33,6 +33,7 @@ describe('the French edition', () => {
     const page = read('fr/issues/2026-11/trends/index.html');
     expect(page).toContain('<html lang="fr">');
     expect(page).toContain('<meta property="og:locale" content="fr_FR">\n<meta property="og:locale:alternate" content="en_GB">');
+    expect(page).toMatch(/<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, les lacs/);
     expect(page).toContain('<link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/">');
     expect(page).toContain('<link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/">');
     expect(page).toContain('<a href="/issues/2026-11/trends/" hreflang="en" lang="en">English</a>');
