@@ -20,7 +20,7 @@ export type { BulletinConfig } from './config.ts';
 export type { SubRegion } from './geojson.ts';
 export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tables.ts';
 export { QUALITY_PARAMETERS } from './tables.ts';
-export { describeFound, InputError, formatProblem, ProblemList, type Problem } from './problems.ts';
+export { describeFound, InputError, formatProblem, problemPlace, ProblemList, type Problem } from './problems.ts';
 export { monthLabel, parseMonth, calendarMonthOf, yearOf } from './months.ts';
 
 export const CONFIG_FILE = 'bulletin.json';

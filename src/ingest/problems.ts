@@ -89,9 +89,14 @@ export function describeFound(problem: Problem): string {
   return expected ? ` (${expected})` : '';
 }
 
+/** Where a problem is: `file:line`, or the file alone when the problem concerns the whole file. */
+export function problemPlace(problem: Problem): string {
+  return problem.line > 0 && problem.line < Number.MAX_SAFE_INTEGER ? `${problem.file}:${problem.line}` : problem.file;
+}
+
 /** One line a problem: `file:line column: message (found "x", expected y)`. */
 export function formatProblem(problem: Problem): string {
-  const where = problem.line > 0 && problem.line < Number.MAX_SAFE_INTEGER ? `${problem.file}:${problem.line}` : problem.file;
+  const where = problemPlace(problem);
   const column = problem.column ? ` [${problem.column}]` : '';
   const found = describeFound(problem);
   return `${problem.severity} ${where}${column}: ${problem.message}${found}`;

@@ -4,7 +4,7 @@
  * the language's format. A warning without a sentence in the catalogue keeps the check's own
  * English line and says so (lang 'en').
  */
-import { formatProblem, type Problem } from '../ingest/index.ts';
+import { formatProblem, problemPlace, type Problem } from '../ingest/index.ts';
 import { fillMessage, loadMessages } from '../text/index.ts';
 
 export interface ShownWarning extends Problem {
@@ -19,7 +19,6 @@ export function warningText(problem: Problem, locale: string): ShownWarning {
   if (sentence === undefined || problem.params === undefined || problem.severity !== 'warning') return { ...problem, text: formatProblem(problem), lang: 'en' };
   const numbers = new Intl.NumberFormat(locale, { maximumFractionDigits: 6 });
   const params = Object.fromEntries(Object.entries(problem.params).map(([name, value]) => [name, typeof value === 'number' ? numbers.format(value) : value]));
-  const where = problem.line > 0 && problem.line < Number.MAX_SAFE_INTEGER ? `${problem.file}:${problem.line}` : problem.file;
   const message = fillMessage(sentence, { ...params, value: problem.value }, `warning.${problem.code}`);
-  return { ...problem, text: fillMessage(messages['warning.where'] as string, { where, column: problem.column ? ` [${problem.column}]` : '', message }, 'warning.where'), lang: locale };
+  return { ...problem, text: fillMessage(messages['warning.where'] as string, { where: problemPlace(problem), column: problem.column ? ` [${problem.column}]` : '', message }, 'warning.where'), lang: locale };
 }
