@@ -120,8 +120,7 @@ export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onS
 type Figures = Pick<BulletinModel, 'bodies' | 'bodyStatus' | 'monitored' | 'grid' | 'trends' | 'rainfall' | 'boundaries' | 'validation'>;
 
 function sharedFigures(base: BulletinModel): Figures {
-  const { bodies, bodyStatus, monitored, grid: cells, trends, rainfall: rain, boundaries, validation: checks } = base;
-  return { bodies, bodyStatus, monitored, grid: cells, trends, rainfall: rain, boundaries, validation: checks };
+  return { bodies: base.bodies, bodyStatus: base.bodyStatus, monitored: base.monitored, grid: base.grid, trends: base.trends, rainfall: base.rainfall, boundaries: base.boundaries, validation: base.validation };
 }
 
 function figuresOf(inputs: BulletinInputs, series: BodySeries, trendsOfBodies: TrendSummary, trendsOfRegion: TrendSummary, surface: SurfaceWater, pageBodies: Set<number>): Figures {

@@ -191,7 +191,7 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
       }
       const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
-      out.push({ season: season.key, seasonName: season.names?.[locale as keyof typeof season.names] ?? season.key, sizeClass: label, fromHa, toHa, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
+      out.push({ season: season.key, seasonName: seasonName(config, season.key, locale), sizeClass: label, fromHa, toHa, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
     }
   }
   return out;
@@ -216,19 +216,21 @@ export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, o
   );
 }
 
+/** A configured season's name in a language (quality.seasons[].names), or its key where none is given. */
+function seasonName(config: BulletinConfig, key: string, locale: string): string {
+  const names = config.quality.seasons.find((season) => season.key === key)?.names;
+  return names?.[locale as keyof typeof names] ?? key;
+}
+
 /** The same figures with the words of another language: size-class labels and season names. */
 export function relabelQuality(base: Quality | null, config: BulletinConfig, locale: string): Quality | null {
   if (!base) return null;
-  const seasonName = (key: string) => {
-    const names = config.quality.seasons.find((season) => season.key === key)?.names;
-    return names?.[locale as keyof typeof names] ?? key;
-  };
   return {
     ...base,
     parameters: base.parameters.map((parameter) => ({
       ...parameter,
       bySizeClass: parameter.bySizeClass.map((entry) => ({ ...entry, label: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
-      seasonal: parameter.seasonal.map((entry) => ({ ...entry, seasonName: seasonName(entry.season), sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
+      seasonal: parameter.seasonal.map((entry) => ({ ...entry, seasonName: seasonName(config, entry.season, locale), sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
     })),
   };
 }
