@@ -3,7 +3,6 @@ import type { BulletinModel } from '../model/index.ts';
 import { cardSvg } from './card.ts';
 import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
 import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';
-import { withChartLocale } from './locales.ts';
 import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from './render.ts';
 import { anomalyBarsChart, rainfallChart, regionalSeriesChart, sameMonthChart, sizeClassChart, sparklineChart, subRegionChart } from './surfaceWaterCharts.ts';
 
@@ -32,9 +31,7 @@ export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
     ...quality.flatMap((parameter) => [distributionChart(model, parameter), medianTrendChart(model, parameter), sizeClassQuantileChart(model, parameter)]),
     trophicChart(model),
     ...model.validation.map((_, k) => validationChart(model, k)),
-  ]
-    .filter((chart): chart is ChartDefinition => chart !== null)
-    .map((chart) => ({ ...chart, spec: withChartLocale(chart.spec, model.meta.locale) }));
+  ].filter((chart): chart is ChartDefinition => chart !== null);
 }
 
 /** Charts of an issue: its chart definitions and a sparkline per monitored body. */
@@ -46,13 +43,12 @@ export function chartCount(model: BulletinModel): number {
 export async function buildCharts(model: BulletinModel, onChart?: (id: string) => void): Promise<ChartSet> {
   const charts: Record<string, RenderedChart> = {};
   for (const definition of chartDefinitions(model)) {
-    charts[definition.id] = await renderChart(definition, { png: true });
+    charts[definition.id] = await renderChart(definition, { png: true, locale: model.meta.locale });
     onChart?.(definition.id);
   }
   const sparklines: Record<string, string> = {};
   for (const body of model.monitored) {
-    const sparkline = sparklineChart(model, body.body, body.filling, body.firstMonth);
-    sparklines[body.id] = (await renderChart({ ...sparkline, spec: withChartLocale(sparkline.spec, model.meta.locale) }, { png: false })).svg;
+    sparklines[body.id] = (await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false, locale: model.meta.locale })).svg;
     onChart?.(`sparkline of ${body.id}`);
   }
   const svg = cardSvg(model);

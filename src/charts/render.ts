@@ -7,6 +7,7 @@ import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
 
 import { escapeXml } from '../text/escape.ts';
+import { withChartLocale } from './locales.ts';
 import { CHART_FONT } from './palettes.ts';
 
 export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
@@ -57,10 +58,12 @@ export function toCsv(table: DataTable): string {
   return [table.columns, ...table.rows].map((row) => row.map(field).join(',')).join('\r\n') + '\r\n';
 }
 
-export async function renderChart(chart: ChartDefinition, { png = false } = {}): Promise<RenderedChart> {
+/** `locale` sets the axes' number and date formats (see locales.ts); English is Vega's own. */
+export async function renderChart(chart: ChartDefinition, { png = false, locale = 'en' } = {}): Promise<RenderedChart> {
+  const localized = withChartLocale(chart.spec, locale);
   const spec: TopLevelSpec = {
-    ...chart.spec,
-    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 }, ...(chart.spec.config ?? {}) },
+    ...localized,
+    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 }, ...(localized.config ?? {}) },
   } as TopLevelSpec;
   const compiled = compile(spec).spec;
   // Vega numbers clip paths and gradients with process-wide counters: reset them so each chart's

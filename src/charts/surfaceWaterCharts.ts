@@ -1,7 +1,7 @@
 /** Chart definitions for surface water, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
-import { formatMessage, loadMessages, translator } from '../text/index.ts';
+import { translator } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
 import { monthLabel } from '../ingest/index.ts';
@@ -12,7 +12,6 @@ const round = (value: number | null | undefined, digits = 1) => roundOrNull(valu
 const cell = (value: number | null) => (value === null ? '–' : value);
 
 export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
-  const messages = loadMessages(model.meta.locale);
   const t = translator(model.meta.locale);
   const series = model.surfaceWater.region.series;
   const envelope = model.surfaceWater.regionEnvelope;
@@ -45,8 +44,8 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   };
   return {
     id: 'regional-series',
-    title: formatMessage(messages, 'chart.regional.title', { first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '', last: model.meta.monthName }),
-    description: `${formatMessage(messages, 'chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
+    title: t('chart.regional.title', { first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '', last: model.meta.monthName }),
+    description: `${t('chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
     spec,
     table: {
       caption: t('chart.regional.caption'),
@@ -57,7 +56,6 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
 }
 
 export function sameMonthChart(model: BulletinModel): ChartDefinition {
-  const messages = loadMessages(model.meta.locale);
   const t = translator(model.meta.locale);
   const entries = model.surfaceWater.sameMonthEachYear;
   const status = model.surfaceWater.region.status;
@@ -86,8 +84,8 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
   } as TopLevelSpec;
   return {
     id: 'same-month',
-    title: formatMessage(messages, 'chart.calendar.title', { calendarMonth: model.meta.calendarMonthName }),
-    description: formatMessage(messages, 'chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first: entries[0]?.year ?? 0, last: entries[entries.length - 1]?.year ?? 0, headline: model.headline }),
+    title: t('chart.calendar.title', { calendarMonth: model.meta.calendarMonthName }),
+    description: t('chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first: entries[0]?.year ?? 0, last: entries[entries.length - 1]?.year ?? 0, headline: model.headline }),
     spec,
     table: {
       caption: t('chart.calendar.caption', { calendarMonth: model.meta.calendarMonthName }),
