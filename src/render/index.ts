@@ -13,7 +13,7 @@ import type { ChartSet } from '../charts/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { fillMessage, formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
-import { prefixOf, siteFiles, siteUrl } from './siteFiles.ts';
+import { prefixOf, siteFiles, siteLocales, siteUrl } from './siteFiles.ts';
 
 export { prefixOf } from './siteFiles.ts';
 import { bodyView, subRegionView, views } from './views.ts';
@@ -42,6 +42,11 @@ export interface IssueBundle {
 /** Each language's own name, for the language switch (in that language, as readers look for it). */
 const LANGUAGE_NAMES: Record<string, string> = { en: 'English', fr: 'Français' };
 
+/** A language as the switch, hreflang and Open Graph links need it. */
+function languageOf(locale: string, siteLocale: string) {
+  return { locale, prefix: prefixOf(locale, siteLocale), name: LANGUAGE_NAMES[locale] ?? locale, ogLocale: loadMessages(locale)['site.ogLocale'] };
+}
+
 
 
 /** Everything one issue's pages read, computed here so templates only place it. */
@@ -60,7 +65,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
   // The same issue and revision in the other languages: every page of it exists there at the same path below the prefix.
   const languages = all
     .filter((other) => other.model.meta.month === model.meta.month && other.model.meta.revision === model.meta.revision)
-    .map((other) => ({ locale: other.model.meta.locale, prefix: prefixOf(other.model.meta.locale, siteLocale), name: LANGUAGE_NAMES[other.model.meta.locale] ?? other.model.meta.locale, ogLocale: loadMessages(other.model.meta.locale)['site.ogLocale'], current: other === bundle }));
+    .map((other) => ({ ...languageOf(other.model.meta.locale, siteLocale), current: other === bundle }));
   const inputsPath = bundle.inputsPath ?? issue;
   const revisions = sameLanguage
     .filter((other) => other.model.meta.month === model.meta.month)
@@ -127,7 +132,7 @@ function jsonLd(model: BulletinModel): string {
 type IssueData = ReturnType<typeof issueData>;
 
 /** The site-level pages of one language: its latest issue and its archive by year. */
-function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<{ locale: string; prefix: string; name: string; ogLocale: string | undefined }>) {
+function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<ReturnType<typeof languageOf>>) {
   const current = issues.filter((issue) => !issue.isRevisionCopy && issue.bulletin.meta.locale === locale);
   const latest = current[current.length - 1] as IssueData;
   const years = [...new Set(current.map((issue) => issue.bulletin.meta.month.slice(0, 4)))].sort().reverse();
@@ -144,8 +149,8 @@ function languageSite(issues: IssueData[], locale: string, siteLocale: string, l
 /** The site-level data: per language, the latest issue and the archive by year; the first language's at the root. */
 export function siteData(issues: IssueData[], siteLocale?: string) {
   const first = siteLocale ?? (issues[issues.length - 1] as IssueData).bulletin.meta.locale;
-  const locales = [first, ...[...new Set(issues.map((issue) => issue.bulletin.meta.locale))].filter((locale) => locale !== first).sort()];
-  const languages = locales.map((locale) => ({ locale, prefix: prefixOf(locale, first), name: LANGUAGE_NAMES[locale] ?? locale, ogLocale: loadMessages(locale)['site.ogLocale'] }));
+  const locales = siteLocales(issues.map((issue) => issue.bulletin.meta.locale), first);
+  const languages = locales.map((locale) => languageOf(locale, first));
   const sites = locales.map((locale) => languageSite(issues, locale, first, languages));
   const root = sites[0] as ReturnType<typeof languageSite>;
   return { ...root, sites };

@@ -17,6 +17,11 @@ export function prefixOf(locale: string, siteLocale: string): string {
   return locale === siteLocale ? '' : `/${locale}`;
 }
 
+/** The languages found, each once: the site's first language first, the others in code order. */
+export function siteLocales(found: Iterable<string>, siteLocale: string): string[] {
+  return [...new Set(found)].sort((a, b) => Number(b === siteLocale) - Number(a === siteLocale) || a.localeCompare(b));
+}
+
 /** Absolute address of a site path on the published site. */
 export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
 const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.baseUrl, path);
@@ -76,7 +81,7 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
   const current = models.filter((model) => !model.meta.issuePath.includes('/revisions/')).sort((a, b) => b.meta.month.localeCompare(a.meta.month));
   const latest = (current.find((model) => model.meta.locale === siteLocale) ?? current[0]) as BulletinModel;
   // One pair of feeds per language, the first language's at the root.
-  const locales = [...new Set(current.map((model) => model.meta.locale))].sort((a, b) => Number(b === siteLocale) - Number(a === siteLocale) || a.localeCompare(b));
+  const locales = siteLocales(current.map((model) => model.meta.locale), siteLocale);
   const files: SiteFile[] = locales.flatMap((locale) => {
     const prefix = prefixOf(locale, siteLocale);
     const own = current.filter((model) => model.meta.locale === locale);
