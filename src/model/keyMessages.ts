@@ -44,7 +44,9 @@ export interface KeyMessageInputs {
 export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; caveats: string[] } {
   const messages: KeyMessage[] = [];
   const caveats: string[] = [];
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(input.locale), key, params);
+  const catalogue = loadMessages(input.locale);
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(catalogue, key, params);
+  const tCount = (key: string, count: number, params: Record<string, string | number>) => formatCount(catalogue, input.locale, key, count, params);
   const pct = (value: number) => formatPercent(input.locale, value);
   const month = formatMonth(input.locale, input.bulletinMonth);
   const calendarMonth = formatCalendarMonth(input.locale, (input.bulletinMonth % 12) + 1);
@@ -72,7 +74,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
 
   const trends = input.bodyTrends;
   if (trends.tested > 0) {
-    const text = trends.declining > 0 ? formatCount(loadMessages(input.locale), input.locale, 'key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
+    const text = trends.declining > 0 ? tCount('key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
     messages.push({ id: 'trend-count', text, figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' }, link: 'trends/#bodies' });
   }
 
@@ -88,7 +90,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   const who = input.quality?.who;
   const above10 = who?.levels.find((level) => level.level === 10);
   if (who && above10 && above10.bodiesAbove > 0) {
-    messages.push({ id: 'chlorophyll', text: formatCount(loadMessages(input.locale), input.locale, 'key.chlorophyll', above10.bodiesAbove, { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
+    messages.push({ id: 'chlorophyll', text: tCount('key.chlorophyll', above10.bodiesAbove, { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
   }
 
   if (region.kind === 'stated' && region.changeFromLastYear !== null && messages.length < 6) {

@@ -21,8 +21,13 @@ export interface TableView {
 /** The page formatters of one locale: a missing or undefined figure always prints as "–". */
 function formatters(locale: string) {
   const missing = (value: number | null | undefined): value is null | undefined => value === null || value === undefined || !Number.isFinite(value);
+  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
   return {
-    t: (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params),
+    t,
+    /** A group's status in words: its band, or why none is stated. */
+    statusWords: (status: Status | undefined) => (status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline')),
+    /** One water body's own status in words; `lowCoverage` names the words for a body not seen well enough. */
+    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage = 'view.body.lowCoverage') => (own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline')),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
     signed: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`),
@@ -32,9 +37,8 @@ function formatters(locale: string) {
 
 export function views(model: BulletinModel) {
   const locale = model.meta.locale;
-  const { t, pct, num, signed, p } = formatters(locale);
+  const { t, pct, num, signed, p, statusWords, bodyStatusWords } = formatters(locale);
 
-  const statusWords = (status: Status) => (status.kind === 'stated' ? t(`band.${status.bandKey}`) : status.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline'));
   const statusRow = (name: string, group: GroupSurface) => {
     const s = group.status;
     const stated = s.kind === 'stated' ? s : null;
@@ -147,7 +151,7 @@ export function views(model: BulletinModel) {
       id: entry.id,
       name: entry.name,
       last: pct(last),
-      status: status?.bandKey ? t(`band.${status.bandKey}`) : status?.state === 'low-coverage' ? t('view.body.lowCoverage') : t('view.cell.short-baseline'),
+      status: bodyStatusWords(status),
       trend: entry.slopePerYear === null ? t('view.notTested') : t('view.monitored.trend', { slope: signed(entry.slopePerYear, 2), direction: t(`view.direction.${entry.direction}`) }),
     };
   });
@@ -198,7 +202,7 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
 /** One sub-region's page: its status, trend, water bodies and rainfall, formatted. */
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
-  const { t, pct } = formatters(locale);
+  const { t, pct, statusWords, bodyStatusWords } = formatters(locale);
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -208,7 +212,7 @@ export function subRegionView(model: BulletinModel, id: string) {
     .filter(({ body }) => body.subRegionId === id)
     .map(({ body, k }) => {
       const own = model.bodyStatus[k];
-      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t('view.body.lowCoverage') : t('view.cell.short-baseline'), percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
+      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: bodyStatusWords(own), percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
     });
   const slug = slugOf(id);
   // Up to site.bodiesPerListPage bodies are listed on the sub-region's page and the index; more get numbered pages.
@@ -226,7 +230,7 @@ export function subRegionView(model: BulletinModel, id: string) {
       [t('view.referenceArea'), `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],
       [t('view.water'), pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
       [t('ui.percentOfUsual'), pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
-      [t('ui.status'), status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline')],
+      [t('ui.status'), statusWords(status)],
       [t('view.seen'), pct(status?.coveragePercent)],
       [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
       [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],
@@ -238,7 +242,7 @@ export function subRegionView(model: BulletinModel, id: string) {
 /** One monitored water body's page, formatted. */
 export function bodyView(model: BulletinModel, index: number) {
   const locale = model.meta.locale;
-  const { t, pct } = formatters(locale);
+  const { t, pct, bodyStatusWords } = formatters(locale);
   const body = model.bodies[index] as BulletinModel['bodies'][number];
   const own = model.bodyStatus[index];
   const monitored = model.monitored.find((entry) => entry.body === index);
@@ -254,7 +258,7 @@ export function bodyView(model: BulletinModel, index: number) {
       [t('view.referenceArea'), `${formatNumber(locale, body.referenceHa, 1)} ha`],
       [t('view.location'), `${formatNumber(locale, Math.abs(body.lat), 3)}° ${t(body.lat < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${t(body.lon < 0 ? 'view.west' : 'view.east')}`],
       [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
-      [t('ui.status'), own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t('view.body.lowCoverageMonth') : t('view.cell.short-baseline')],
+      [t('ui.status'), bodyStatusWords(own, 'view.body.lowCoverageMonth')],
       [t('view.trendSinceFirst'), monitored?.slopePerYear === null || monitored?.slopePerYear === undefined ? t('view.notTested') : formatNumber(locale, monitored.slopePerYear, 2)],
       [t('view.trendAdjusted'), t(`view.direction.${monitored?.direction ?? 'untested'}`)],
       [t('view.chlorophyllNow'), trophic ? t('view.chlorophyllValue', { value: formatNumber(locale, trophic.chlorophyll, 1), index: formatNumber(locale, trophic.index, 0), trophicClass: t(`trophic.${trophic.trophicClass}`) }) : t('view.noEstimate')],
