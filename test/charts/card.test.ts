@@ -24,7 +24,7 @@ beforeAll(async () => {
   svg = cardSvg(buildModel(inputs, problems.warnings, 'test'));
   frenchSvg = cardSvg(buildModel(inputs, problems.warnings, 'test', { locale: 'fr' }));
   png = await svgToPng(svg);
-}, 60_000);
+});
 
 /** Renders SVG to PNG in a child process whose fontconfig knows no font directory. */
 function renderWithoutFonts(source: string): Buffer {

@@ -27,7 +27,7 @@ beforeAll(async () => {
   if (!inputs) throw new Error('the example does not load');
   model = buildModel(inputs, problems.warnings, '0.0.0-test');
   definitions = chartDefinitions(model);
-}, 60_000);
+});
 
 const EXPECTED = [
   'regional-series', 'same-month', 'anomaly-bars', 'sub-regions', 'size-classes', 'rainfall', 'grid-map', 'sub-region-map', 'bodies-map',

@@ -20,7 +20,7 @@ describe('limnopress init and new-issue', () => {
     expect(overview).toContain('<meta name="robots" content="noindex">');
     expect(overview).toContain('Draft: this issue is not yet published');
     expect(overview).toContain('Write the foreword of this issue here');
-  }, 240_000);
+  });
 
   it('init --locales en,fr writes a bilingual folder with a French foreword stub, and new-issue renews it', async () => {
     const folder = join(mkdtempSync(join(tmpdir(), 'limnopress-init-')), 'bulletin');
@@ -40,7 +40,7 @@ describe('limnopress init and new-issue', () => {
     const unknown = run('init', join(folder, '..', 'other'), '--month', '2026-03', '--locales', 'en,xx');
     expect(unknown.status).toBe(2);
     expect(unknown.stderr).toContain('--locales takes a comma-separated list of en, fr');
-  }, 240_000);
+  });
 
   it('init refuses a folder that is not empty, and needs --month', () => {
     const folder = mkdtempSync(join(tmpdir(), 'limnopress-init-'));
@@ -64,5 +64,5 @@ describe('limnopress init and new-issue', () => {
     expect(run('check', folder).stdout).toContain('the surface-area table has no row for the bulletin month');
     expect(run('check', archived).stdout).toBe('No problems found.\n');
     expect(run('new-issue', join(folder, 'missing')).status).toBe(1);
-  }, 60_000);
+  });
 });

@@ -6,14 +6,13 @@ import { describe, expect, it } from 'vitest';
 
 const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
 
-/** Resolves with the first stdout line matching `pattern`, or rejects after `ms`. */
-function waitFor(output: { text: string }, pattern: RegExp, ms: number): Promise<RegExpExecArray> {
+/** Resolves with the first stdout line matching `pattern`; rejects once the process has ended without one (never on time alone). */
+function waitFor(output: { text: string; ended: boolean }, pattern: RegExp): Promise<RegExpExecArray> {
   return new Promise((resolve, reject) => {
-    const started = Date.now();
     const poll = () => {
       const match = pattern.exec(output.text);
       if (match) resolve(match);
-      else if (Date.now() - started > ms) reject(new Error(`no ${pattern} in: ${output.text}`));
+      else if (output.ended) reject(new Error(`no ${pattern} in: ${output.text}`));
       else setTimeout(poll, 100);
     };
     poll();
@@ -25,15 +24,16 @@ describe('limnopress preview', () => {
     const folder = join(mkdtempSync(join(tmpdir(), 'limnopress-preview-test-')), 'bulletin');
     spawnSync(process.execPath, [cli, 'init', folder, '--month', '2026-03']);
     const child = spawn(process.execPath, [cli, 'preview', folder, '--port', '0'], { stdio: ['ignore', 'pipe', 'pipe'] });
-    const output = { text: '' };
+    const output = { text: '', ended: false };
     child.stdout.on('data', (chunk: Buffer) => (output.text += chunk.toString()));
+    child.on('exit', () => (output.ended = true));
     try {
-      const [, origin] = await waitFor(output, /at (http:\/\/127\.0\.0\.1:\d+)\//, 60_000);
+      const [, origin] = await waitFor(output, /at (http:\/\/127\.0\.0\.1:\d+)\//);
       const first = await (await fetch(`${origin}/issues/2026-03/`)).text();
       expect(first).toContain('Write the foreword of this issue here');
       expect((await fetch(`${origin}/no-such-page/`)).status).toBe(404);
       writeFileSync(join(folder, 'content', 'foreword.md'), 'A preview of the **March** issue.\n');
-      await waitFor(output, /Rebuilt:/, 60_000);
+      await waitFor(output, /Rebuilt:/);
       const second = await (await fetch(`${origin}/issues/2026-03/`)).text();
       expect(second).toContain('A preview of the <strong>March</strong> issue.');
     } finally {
@@ -41,5 +41,5 @@ describe('limnopress preview', () => {
     }
     const code = await new Promise<number | null>((resolve) => child.on('exit', resolve));
     expect(code).toBe(0);
-  }, 150_000);
+  });
 });

@@ -10,7 +10,7 @@ describe('methods', () => {
     const model = buildModel(inputs, problems.warnings, 'test');
     const named = [...model.surfaceWater.methods, model.grid.method, ...(model.quality?.methods ?? []), ...model.trends.methods, ...model.keyMessages.map((message) => message.figure.method), 'validation'];
     for (const id of named) expect(Object.keys(model.methods), id).toContain(id);
-  }, 60_000);
+  });
 });
 
 describe('methodTexts', () => {

@@ -87,5 +87,5 @@ describe('buildModel in a second language', () => {
     // The words differ.
     expect(shared.surfaceWater.sizeClasses.map((entry) => entry.name)).toContain('plus de 10\u202f000 ha');
     expect(english.surfaceWater.sizeClasses.map((entry) => entry.name)).toContain('over 10,000 ha');
-  }, 60_000);
+  });
 });

@@ -18,5 +18,5 @@ describe('parallelTrends', () => {
     const parallel = await parallelTrends(input, { seasonal: true }, { workers: 2, batchSize: 7 });
     expect(parallel).toEqual(sequential);
     expect(parallel.map((row) => row.series)).toEqual(input.map((entry) => entry.key));
-  }, 30_000);
+  });
 });

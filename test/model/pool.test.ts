@@ -29,5 +29,5 @@ describe('the model on the worker pool', () => {
     const prepared = await prepareModel(inputs, pool, (done) => (series += done));
     expect(series).toBe(3 * 4500); // bodies, and bodies × two quality parameters
     expect(JSON.stringify(buildModel(inputs, [], 'test', { prepared }))).toBe(alone);
-  }, 240_000);
+  });
 });

@@ -16,7 +16,7 @@ beforeAll(async () => {
   const { inputs, problems } = await loadBulletin(EXAMPLE);
   if (!inputs) throw new Error(problems.sorted().map((p) => p.message).join('\n'));
   model = buildModel(inputs, problems.warnings, 'test');
-}, 60_000);
+});
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] as number;
 

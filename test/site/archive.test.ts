@@ -115,7 +115,7 @@ describe('the overview on narrow and wide screens', () => {
   let browser: Browser;
   beforeAll(async () => {
     browser = await launchChromium();
-  }, 60_000);
+  });
   afterAll(async () => {
     await browser?.close();
   });
@@ -144,7 +144,7 @@ describe('the overview on narrow and wide screens', () => {
     } finally {
       await server.close();
     }
-  }, 60_000);
+  });
 
   it('has no horizontal overflow at 320 px and 1280 px in either language, and leaves a screenshot of each', async () => {
     const server = await serveFolder(site);
@@ -166,7 +166,7 @@ describe('the overview on narrow and wide screens', () => {
     } finally {
       await server.close();
     }
-  }, 60_000);
+  });
 
   it('reflows every kind of page at 320 px in both languages (tables scroll inside their own box)', async () => {
     const server = await serveFolder(site);
@@ -189,5 +189,5 @@ describe('the overview on narrow and wide screens', () => {
     } finally {
       await server.close();
     }
-  }, 120_000);
+  });
 });

@@ -183,5 +183,5 @@ describe('a language added later', () => {
     expect(page('fr/archive/index.html')).not.toContain('/fr/issues/2026-09/');
     const { broken } = await checkLinks(out, 'https://bulletin.example.org/');
     expect(broken).toEqual([]);
-  }, 240_000);
+  });
 });
