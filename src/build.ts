@@ -3,14 +3,14 @@
  * 1 ingest (every issue of the folder) → 2 model (stats inside) → 3 charts → 4 render → 5 publish.
  */
 import { readFileSync, statSync } from 'node:fs';
-import { join, relative } from 'node:path';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
-import { InputError, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
-import { issueFolders } from './ingest/issues.ts';
+import { InputError, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
+import { issueFolders, loadIssues } from './ingest/issues.ts';
 import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
-import { publishAtomically } from './site/publish.ts';
+import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
 import { lineProgress, seconds, silentProgress, type Progress } from './progress.ts';
 import { listFiles } from './site/files.ts';
@@ -22,6 +22,24 @@ export interface BuildOptions {
   progress?: Progress;
   /** Or plain progress lines to this function. */
   log?: (line: string) => void;
+  /** Publish over a non-empty folder that is not a limnopress site (kept under a new name, never deleted). */
+  force?: boolean;
+  /** Clean up (staging, lock) and exit on SIGINT and SIGTERM: for the command line. */
+  handleSignals?: boolean;
+  /** Test hook: called at each pause point of the build and the swap. */
+  pause?: (point: PausePoint) => Promise<void>;
+}
+
+/** A failure outside the inputs, with the stage it happened in (one line for a person; the cause keeps the stack). */
+export class StageError extends Error {
+  constructor(
+    readonly stage: string,
+    readonly reason: string,
+    options?: { cause?: unknown },
+  ) {
+    super(`${stage}: ${reason}`, options);
+    this.name = 'StageError';
+  }
 }
 
 /** What the build did, in figures: seconds per stage, table rows read, trend series, charts, and the site written. */
@@ -60,14 +78,41 @@ export function issuePaths(issues: Array<{ month: number; revision: number }>): 
 }
 
 export async function build(options: BuildOptions): Promise<BuildResult> {
+  // The target is checked and locked before any work, and released whatever happens.
+  const target = openTarget(options.outDir, { bulletinFolder: options.bulletinFolder, ...(options.force ? { force: true } : {}) });
+  const onSignal = (signal: NodeJS.Signals) => {
+    target.release();
+    process.stderr.write(`limnopress: stopped by ${signal}; the published site is as it was\n`);
+    process.exit(signal === 'SIGINT' ? 130 : 143);
+  };
+  if (options.handleSignals) {
+    process.on('SIGINT', onSignal);
+    process.on('SIGTERM', onSignal);
+  }
   try {
-    return await buildStages(options);
+    await pauseAt('locked', options.pause);
+    return await buildStages(options, target);
   } finally {
+    target.release();
+    if (options.handleSignals) {
+      process.off('SIGINT', onSignal);
+      process.off('SIGTERM', onSignal);
+    }
     await closeSharedPool();
   }
 }
 
-async function buildStages(options: BuildOptions): Promise<BuildResult> {
+/** Runs one stage; a failure that is not an input problem becomes a StageError naming the stage. */
+async function stage<T>(name: string, work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof InputError || error instanceof StageError || error instanceof PublishError) throw error;
+    throw new StageError(name, systemReason(error), { cause: error });
+  }
+}
+
+async function buildStages(options: BuildOptions, target: Target): Promise<BuildResult> {
   const progress = options.progress ?? (options.log ? lineProgress(options.log) : silentProgress);
   // Wall time per stage, for the closing summary (progress only: nothing of it reaches the site).
   const times: Array<[string, number]> = [];
@@ -80,29 +125,17 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     return ms / 1000;
   };
 
-  const folders = issueFolders(options.bulletinFolder);
+  const { folders } = issueFolders(options.bulletinFolder);
   // Counted by issue only when there are several: with one, a count would sit at 0 % until the end.
   progress.begin('1/5', `reading and checking the inputs of ${folders.length} issue(s)`, folders.length > 1 ? folders.length : undefined);
-  const loaded: Array<{ inputs: BulletinInputs; warnings: Problem[] }> = [];
-  const problems: Problem[] = [];
-  for (const [k, folder] of folders.entries()) {
-    const prefix = relative(options.bulletinFolder, folder);
-    const result = await loadBulletin(folder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => progress.advance(k, detail));
-    problems.push(...result.problems.sorted());
-    if (result.inputs) loaded.push({ inputs: result.inputs, warnings: result.problems.warnings });
-    progress.advance(k + 1);
-  }
-  const seen = new Map<string, string>();
-  loaded.forEach(({ inputs }, k) => {
-    const key = `${inputs.bulletinMonth} ${inputs.config.issue.revision}`;
-    const other = seen.get(key);
-    if (other !== undefined) problems.push({ severity: 'error', code: 'issue-twice', file: relative(options.bulletinFolder, folders[k] as string) || '.', line: 0, column: 'issue', value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`, expected: 'each month and revision once', message: `the same issue and revision is also in ${other}` });
-    seen.set(key, relative(options.bulletinFolder, folders[k] as string) || '.');
-  });
-  if (problems.some((problem) => problem.severity === 'error') || loaded.length < folders.length) throw new InputError(problems);
+  const read = await stage('reading the inputs', () => loadIssues(options.bulletinFolder, (k, _count, detail) => progress.advance(k, detail)));
+  const problems = read.problems;
+  if (read.errors > 0) throw new InputError(problems);
+  const loaded = read.issues.map(({ inputs, warnings }) => ({ inputs: inputs as BulletinInputs, warnings }));
   const warnings = problems.filter((problem) => problem.severity === 'warning');
   const rows = loaded.reduce((sum, { inputs }) => sum + inputs.area.length + (inputs.quality?.length ?? 0), 0);
   const inputSeconds = lap('inputs');
+  await pauseAt('inputs', options.pause);
   progress.end(`${count(rows)} table rows, ${count(rows / inputSeconds)} rows/s`);
 
   const paths = issuePaths(loaded.map(({ inputs }) => ({ month: inputs.bulletinMonth, revision: inputs.config.issue.revision })));
@@ -114,6 +147,7 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
   const siteLocale = loaded[loaded.length - 1]?.inputs.config.locales[0] ?? 'en';
   const models: BulletinModel[] = [];
   const localized: Array<{ model: BulletinModel; issue: number; inputsPath: string; firstLocale: string }> = [];
+  await stage('computing the models', async () => {
   for (const [k, { inputs, warnings: own }] of loaded.entries()) {
     const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
     progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
@@ -128,26 +162,34 @@ async function buildStages(options: BuildOptions): Promise<BuildResult> {
     // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
     loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
   }
+  });
   // The worker threads have done their part (reading, trend tests): their memory goes back now.
   await closeSharedPool();
   const modelSeconds = lap('model');
+  await pauseAt('model', options.pause);
   progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
 
   const chartTotal = localized.reduce((sum, { model }) => sum + chartCount(model), 0);
   progress.begin('3/5', 'rendering charts', chartTotal);
   let chartsDone = 0;
   const chartSets: ChartSet[] = [];
-  for (const { model } of localized) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
+  await stage('rendering charts', async () => {
+    for (const { model } of localized) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
+  });
   lap('charts');
+  await pauseAt('charts', options.pause);
   progress.end(`${chartTotal} charts`);
 
   progress.begin('4/5', 'rendering pages');
-  const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => ({ model, charts: chartSets[k] as ChartSet, folder: folders[issue] as string, inputsPath, siteLocale, firstLocale }));
+  const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => ({ model, charts: chartSets[k] as ChartSet, content: (loaded[issue] as { inputs: BulletinInputs }).inputs.content, sources: (loaded[issue] as { inputs: BulletinInputs }).inputs.sources, inputsPath, siteLocale, firstLocale }));
   let site = { files: 0, pages: 0, bytes: 0 };
-  await publishAtomically(options.outDir, async (staging) => {
-    await renderSite(bundles, staging);
-    site = siteSize(staging);
-  });
+  await stage('writing the site', () =>
+    target.publish(async (staging) => {
+      await renderSite(bundles, staging);
+      site = siteSize(staging);
+      await pauseAt('pages', options.pause);
+    }, options.pause),
+  );
   lap('pages');
   progress.end(`${count(site.pages)} pages, ${count(site.files)} files`);
   progress.note(`5/5 published to ${options.outDir}: ${count(site.pages)} pages, ${count(site.files)} files, ${megabytes(site.bytes)}`);

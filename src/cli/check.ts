@@ -1,6 +1,7 @@
 /** `limnopress check`: every problem in a bulletin folder's inputs, grouped by file. */
 import { parseArgs } from 'node:util';
-import { describeFound, loadBulletin, type Problem } from '../ingest/index.ts';
+import { describeFound, type Problem } from '../ingest/index.ts';
+import { loadIssues } from '../ingest/issues.ts';
 import { HELP, UsageError } from './usage.ts';
 
 /** Problems grouped under their file, in line order, then a summary line. */
@@ -29,8 +30,8 @@ export async function runCheck(args: string[]): Promise<number> {
     return 0;
   }
   if (positionals.length !== 1) throw new UsageError('check needs exactly one bulletin folder');
-  const { problems } = await loadBulletin(positionals[0] as string);
-  const totals = problems.total;
-  process.stdout.write(formatReport(problems.sorted(), totals));
-  return totals.errors > 0 ? 1 : 0;
+  // Every issue of the folder, archived ones included, exactly as build reads them.
+  const { problems, errors, warnings } = await loadIssues(positionals[0] as string);
+  process.stdout.write(formatReport(problems, { errors, warnings }));
+  return errors > 0 ? 1 : 0;
 }

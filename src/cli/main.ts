@@ -2,7 +2,8 @@
  * The `limnopress` command line. Exit codes: 0 success, 1 input errors or a failed run,
  * 2 a usage error.
  */
-import { toolVersion } from '../build.ts';
+import { StageError, toolVersion } from '../build.ts';
+import { PublishError } from '../site/publish.ts';
 import { formatProblem, InputError } from '../ingest/index.ts';
 import { runBuild } from './build.ts';
 import { runCheck } from './check.ts';
@@ -16,8 +17,23 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = { build: r
 
 const isParseArgsError = (error: unknown) => error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS');
 
+/** One line for a person: what failed and why; the stack only with --debug. */
+function describeFailure(error: unknown, debug: boolean): string {
+  const stack = debug && error instanceof Error ? `\n${(error.cause instanceof Error ? error.cause : error).stack ?? ''}` : '';
+  if (error instanceof PublishError) return `limnopress: ${error.message}${stack}`;
+  if (error instanceof StageError) return `limnopress: failed while ${error.stage}: ${oneLine(error.reason)}${stack}`;
+  return `limnopress: failed: ${oneLine(error instanceof Error ? error.message : String(error))}${stack}`;
+}
+
+/** A message on one line, at most 300 characters (a value echoed from an input can be megabytes). */
+const oneLine = (text: string) => {
+  const flat = text.replace(/\s+/g, ' ').trim();
+  return flat.length > 300 ? `${flat.slice(0, 300)}…` : flat;
+};
+
 export async function main(argv: string[]): Promise<number> {
-  const [command, ...rest] = argv;
+  const debug = argv.includes('--debug');
+  const [command, ...rest] = argv.filter((arg) => arg !== '--debug');
   try {
     if (command === undefined || command === '-h' || command === '--help') {
       process.stdout.write(HELP.main);
@@ -45,7 +61,7 @@ export async function main(argv: string[]): Promise<number> {
       process.stderr.write(`limnopress: ${error.message}; nothing was written\n`);
       return 1;
     }
-    process.stderr.write(`limnopress: failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+    process.stderr.write(`${describeFailure(error, debug)}\n`);
     return 1;
   }
 }

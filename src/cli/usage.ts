@@ -19,11 +19,17 @@ Commands:
 Options:
   -h, --help       show help
   -v, --version    show the version
+  --debug          on a failure, show the program's stack as well as the one-line reason
 `,
-  build: `Usage: limnopress build <bulletin-folder> --out <dir> [--quiet]
+  build: `Usage: limnopress build <bulletin-folder> --out <dir> [--force] [--quiet]
 
 Checks every input of the bulletin folder, then builds the site into <dir>. The new site replaces
-<dir> only when the whole build succeeded; on any error <dir> is left as it was.
+<dir> only when the whole build succeeded; on any error, interruption or crash <dir> is left as it
+was. <dir> becomes a link to the published version, kept in .<dir>.limnopress/ beside it with the
+build's lock; a second build to the same <dir> stops with a message while one is running.
+
+<dir> must be new, empty, or a site published by limnopress. It may not be a file, a mount point,
+the current folder, the home folder or /, nor overlap the bulletin folder.
 
 Progress goes to standard error: a bar per stage on a terminal, plain lines otherwise, then a
 summary of each stage's time, the rows and series per second, the pages written and the site size.
@@ -31,6 +37,8 @@ Large tables are read, and large inventories' trends tested, on one worker threa
 
 Options:
   -o, --out <dir>   where the site goes (default: _site)
+  --force           publish over a non-empty folder that is not a limnopress site; that folder
+                    is kept, renamed <dir>.replaced-<id>, never deleted
   -q, --quiet       print nothing but errors
   -h, --help        show this help
 `,

@@ -7,7 +7,7 @@
  */
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { listFiles } from '../site/files.ts';
+import { listRegularFiles } from './confine.ts';
 import Papa from 'papaparse';
 import { asyncBufferFromFile, parquetReadObjects } from 'hyparquet';
 import { EncodingError, lineAtOffset, StrictUtf8 } from './encoding.ts';
@@ -30,7 +30,12 @@ export type RowHandler = (values: string[], line: number, columns: ColumnIndex) 
  */
 export async function readTable(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler, onFile?: (label: string) => void): Promise<number> {
   if (existsSync(path) && statSync(path).isDirectory()) {
-    const parts = parquetParts(path);
+    const { files, links } = listRegularFiles(path);
+    for (const link of links) {
+      problems.error({ code: 'partition-link', file: `${label.replace(/\/$/, '')}/${link}`, line: 0, column: '', value: '', expected: 'partitions as regular files inside the folder', message: 'a symbolic link in a folder of partitions is not followed' });
+    }
+    if (links.length > 0) return 0;
+    const parts = files.filter((file) => file.toLowerCase().endsWith('.parquet'));
     if (parts.length === 0) {
       problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'a file, or a folder with .parquet partitions', message: 'the folder holds no .parquet file' });
       return 0;
@@ -53,7 +58,7 @@ export async function readTable(path: string, label: string, columns: ColumnSpec
 
 /** The .parquet files below a folder, as sorted relative paths with forward slashes. */
 export function parquetParts(folder: string): string[] {
-  return listFiles(folder).filter((path) => path.toLowerCase().endsWith('.parquet'));
+  return listRegularFiles(folder).files.filter((path) => path.toLowerCase().endsWith('.parquet'));
 }
 
 export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {

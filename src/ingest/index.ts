@@ -3,7 +3,8 @@
  * and one list of problems. Nothing here computes a statistic.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, statSync } from 'node:fs';
+import { existsSync, lstatSync, readFileSync, statSync } from 'node:fs';
+import { ConfinementError, realRoot, resolveInside } from './confine.ts';
 import { sha256File } from '../site/files.ts';
 import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
@@ -25,6 +26,9 @@ export { monthLabel, parseMonth, calendarMonthOf, yearOf } from './months.ts';
 
 export const CONFIG_FILE = 'bulletin.json';
 
+/** Editorial text files of an issue, content/<name>.md (and content/<name>.<locale>.md). */
+export const CONTENT_FILES = ['foreword', 'notes'] as const;
+
 export interface InputFile {
   /** Path relative to the bulletin folder, with forward slashes. */
   path: string;
@@ -32,6 +36,8 @@ export interface InputFile {
   bytes: number;
   /** For a folder of Parquet partitions: each partition, relative to the folder. */
   parts?: Array<{ path: string; sha256: string; bytes: number }>;
+  /** Where the site publishes it, below the issue's data/inputs/ (a fixed name per input). */
+  published?: string;
 }
 
 export interface BulletinInputs {
@@ -45,6 +51,10 @@ export interface BulletinInputs {
   field: FieldRecord[];
   subRegions: SubRegion[];
   files: InputFile[];
+  /** Editorial text by name (`foreword`, `foreword.fr`, `notes`), read and checked here. */
+  content: Record<string, string>;
+  /** Real path of each input file, by its path in `files`, resolved inside the folder. */
+  sources: Record<string, string>;
 }
 
 export interface IngestResult {
@@ -57,8 +67,7 @@ export interface IngestResult {
  * `sha256sum` prints (one line per partition, "<hash>  <path>", sorted by path), so the listing can
  * be checked with standard tools; bytes are the partitions' total.
  */
-function hashFile(folder: string, path: string): InputFile {
-  const full = join(folder, path);
+function hashFile(_root: string, path: string, full: string): InputFile {
   if (!statSync(full).isDirectory()) return { path, ...sha256File(full) };
   const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part)) }));
   const listing = parts.map(({ part, sha256 }) => `${sha256}  ${part}\n`).join('');
@@ -71,12 +80,37 @@ function hashFile(folder: string, path: string): InputFile {
  */
 export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (detail: string) => void): Promise<IngestResult> {
   const problems = new ProblemList();
-  const config = readConfig(join(folder, CONFIG_FILE), `${labelPrefix}${CONFIG_FILE}`, problems);
+  const configLabel = `${labelPrefix}${CONFIG_FILE}`;
+  let root: string;
+  let configPath: string;
+  try {
+    root = realRoot(folder);
+    configPath = resolveInside(root, CONFIG_FILE, 'config');
+  } catch (error) {
+    const expected = error instanceof ConfinementError ? error.expected : 'a bulletin folder holding bulletin.json';
+    const code = error instanceof ConfinementError && error.code !== 'file-missing' ? error.code : 'config-missing';
+    problems.error({ code, file: configLabel, line: 0, column: '', value: '', expected, message: error instanceof ConfinementError && code !== 'config-missing' ? error.message : 'the configuration file cannot be read' });
+    return { inputs: null, problems };
+  }
+  const config = readConfig(configPath, configLabel, problems);
   if (!config) return { inputs: null, problems };
 
   const paths = config.inputs;
-  const at = (path: string) => join(folder, path);
   const label = (path: string) => `${labelPrefix}${path}`;
+  // Every input named by the configuration, resolved inside the folder before anything is read.
+  const real = new Map<string, string>();
+  for (const [key, path] of Object.entries(paths)) {
+    if (path === undefined) continue;
+    try {
+      real.set(path, resolveInside(root, path, key === 'boundaries' ? 'boundaries' : 'table', key !== 'boundaries'));
+    } catch (error) {
+      if (!(error instanceof ConfinementError)) throw error;
+      problems.error({ code: error.code, file: configLabel, line: 0, column: `inputs.${key}`, value: path, expected: error.expected, message: error.message });
+    }
+  }
+  const content = readContent(root, config, problems, label);
+  if (problems.errors.length > 0) return { inputs: null, problems };
+  const at = (path: string) => real.get(path) as string;
   const bulletinMonth = parseMonth(config.issue.month) as number;
   const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal, ...(onStep ? { onStep } : {}) };
   const subRegions = readBoundaries(at(paths.boundaries), label(paths.boundaries), problems);
@@ -91,26 +125,86 @@ export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (d
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
 
   crossCheck(config, bulletinMonth, bodies, area, subRegions, problems, label);
-  checkTranslations(folder, config, problems, label);
+  checkTranslations(content, config, problems, label);
   if (problems.errors.length > 0) return { inputs: null, problems };
 
-  const used = [paths.inventory, paths.surfaceArea, paths.quality, paths.distribution, paths.rainfall, paths.field, paths.boundaries].filter((path): path is string => Boolean(path));
+  const used = (Object.keys(PUBLISHED_NAMES) as Array<keyof typeof PUBLISHED_NAMES>).filter((key) => Boolean(paths[key]));
   onStep?.('input hashes');
-  const files = [CONFIG_FILE, ...used].sort().map((path) => hashFile(folder, path));
-  return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files }, problems };
+  const files: InputFile[] = [
+    { ...hashFile(root, CONFIG_FILE, configPath), published: CONFIG_FILE },
+    ...used.map((key) => {
+      const path = paths[key] as string;
+      const source = at(path);
+      const isFolder = statSync(source).isDirectory();
+      return { ...hashFile(root, path, source), published: publishedName(key, path, isFolder) };
+    }),
+  ].sort((a, b) => a.path.localeCompare(b.path));
+  const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));
+  return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files, content, sources }, problems };
+}
+
+/**
+ * The name an input is published under, below the issue's data/inputs/: fixed per input, with a
+ * data extension (never the user's own name or extension, so no input can be served as a page).
+ */
+const PUBLISHED_NAMES = {
+  inventory: 'water-bodies',
+  surfaceArea: 'surface-area',
+  quality: 'water-quality',
+  distribution: 'distribution',
+  rainfall: 'rainfall',
+  field: 'field-measurements',
+  boundaries: 'subregions',
+} as const;
+
+function publishedName(key: keyof typeof PUBLISHED_NAMES, path: string, isFolder: boolean): string {
+  if (key === 'boundaries') return `${PUBLISHED_NAMES[key]}.geojson`;
+  if (isFolder) return PUBLISHED_NAMES[key];
+  return `${PUBLISHED_NAMES[key]}${path.toLowerCase().endsWith('.parquet') ? '.parquet' : '.csv'}`;
+}
+
+/**
+ * The issue's editorial text (content/<name>.md and its translations), each file confined to the
+ * folder, a regular file of at most SIZE_LIMITS.content bytes, and strict UTF-8.
+ */
+function readContent(root: string, config: BulletinConfig, problems: ProblemList, label: (path: string) => string): Record<string, string> {
+  const content: Record<string, string> = {};
+  for (const name of CONTENT_FILES) {
+    for (const suffix of ['', ...config.locales.map((locale) => `.${locale}`)]) {
+      const path = `content/${name}${suffix}.md`;
+      if (!existsSync(join(root, path)) && !isLink(join(root, path))) continue;
+      try {
+        const bytes = readFileSync(resolveInside(root, path, 'content'));
+        content[`${name}${suffix}`] = new TextDecoder('utf-8', { fatal: true }).decode(bytes).replace(/^\uFEFF/, '');
+      } catch (error) {
+        if (error instanceof ConfinementError) problems.error({ code: error.code, file: label(path), line: 0, column: '', value: '', expected: error.expected, message: error.message });
+        else if (error instanceof TypeError) problems.error({ code: 'not-utf8', file: label(path), line: 0, column: '', value: '', expected: 'UTF-8 text', message: 'the file is not UTF-8; convert it to UTF-8' });
+        else throw error;
+      }
+    }
+  }
+  return content;
+}
+
+function isLink(path: string): boolean {
+  try {
+    return lstatSync(path).isSymbolicLink();
+  } catch {
+    return false;
+  }
 }
 
 /**
  * Editorial text written for the first language but not translated for another: that language's
  * pages will show the original (marked with its language). A warning, so editors notice.
  */
-function checkTranslations(folder: string, config: BulletinConfig, problems: ProblemList, label: (path: string) => string): void {
-  for (const name of ['foreword', 'notes']) {
+function checkTranslations(content: Record<string, string>, config: BulletinConfig, problems: ProblemList, label: (path: string) => string): void {
+  for (const name of CONTENT_FILES) {
     const original = `content/${name}.md`;
-    if (!existsSync(join(folder, original))) continue;
+    if (content[name] === undefined) continue;
     for (const locale of config.locales.slice(1)) {
       const translation = `content/${name}.${locale}.md`;
-      if (existsSync(join(folder, translation))) continue;
+      if (content[`${name}.${locale}`] !== undefined) continue;
       problems.warning({ code: 'content-untranslated', file: label(original), line: 0, column: '', value: locale, expected: label(translation), message: `no ${locale} translation: the ${locale} pages show this text in the first language`, params: { locale, translation: label(translation) } });
     }
   }

@@ -1,21 +1,70 @@
 /**
  * The issues of a bulletin folder: the folder itself is the current issue, and each folder under
  * `archive/` that holds a bulletin.json is an earlier issue, or an earlier revision of one, kept
- * with its own inputs so it can be rebuilt exactly as published.
+ * with its own inputs so it can be rebuilt exactly as published. Each issue's inputs stay inside
+ * its own folder; an entry of `archive/` that is a symbolic link is refused, never followed.
  */
-import { existsSync, readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
-import { CONFIG_FILE } from './index.ts';
+import { existsSync, lstatSync, readdirSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { CONFIG_FILE, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './index.ts';
 
 export const ARCHIVE_FOLDER = 'archive';
 
-export function issueFolders(folder: string): string[] {
+export function issueFolders(folder: string): { folders: string[]; links: string[] } {
   const archive = join(folder, ARCHIVE_FOLDER);
-  const archived = existsSync(archive)
-    ? readdirSync(archive)
-        .sort()
-        .map((name) => join(archive, name))
-        .filter((path) => statSync(path).isDirectory() && existsSync(join(path, CONFIG_FILE)))
-    : [];
-  return [...archived, folder];
+  const links: string[] = [];
+  const archived: string[] = [];
+  if (existsSync(archive) && lstatSync(archive).isSymbolicLink()) links.push(ARCHIVE_FOLDER);
+  else if (existsSync(archive)) {
+    for (const name of readdirSync(archive).sort()) {
+      const path = join(archive, name);
+      const stat = lstatSync(path);
+      if (stat.isSymbolicLink()) links.push(`${ARCHIVE_FOLDER}/${name}`);
+      else if (stat.isDirectory() && existsSync(join(path, CONFIG_FILE))) archived.push(path);
+    }
+  }
+  return { folders: [...archived, folder], links };
+}
+
+export interface LoadedIssue {
+  folder: string;
+  inputs: BulletinInputs | null;
+  warnings: Problem[];
+}
+
+/**
+ * Reads and checks every issue of a bulletin folder, the archived ones first; `check` and `build`
+ * both call this, so they report the same problems. Problems come sorted per issue, the current
+ * issue last, followed by those that span issues (an issue archived twice, a linked archive entry).
+ */
+export async function loadIssues(folder: string, onIssue?: (k: number, count: number, detail?: string) => void): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
+  const { folders, links } = issueFolders(folder);
+  const issues: LoadedIssue[] = [];
+  const problems: Problem[] = [];
+  let errors = 0;
+  let warnings = 0;
+  for (const [k, issueFolder] of folders.entries()) {
+    const prefix = relative(folder, issueFolder);
+    const result = await loadBulletin(issueFolder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => onIssue?.(k, folders.length, detail));
+    problems.push(...result.problems.sorted());
+    errors += result.problems.total.errors;
+    warnings += result.problems.total.warnings;
+    issues.push({ folder: issueFolder, inputs: result.inputs, warnings: result.problems.warnings });
+    onIssue?.(k + 1, folders.length);
+  }
+  const add = (problem: Problem) => {
+    problems.push(problem);
+    errors++;
+  };
+  for (const link of links) add({ severity: 'error', code: 'archive-link', file: link, line: 0, column: '', value: '', expected: 'an archived issue as a folder inside the bulletin folder', message: 'an archive entry is a symbolic link; it is not followed' });
+  const seen = new Map<string, string>();
+  for (const { folder: issueFolder, inputs } of issues) {
+    if (!inputs) continue;
+    const name = relative(folder, issueFolder) || '.';
+    const key = `${inputs.bulletinMonth} ${inputs.config.issue.revision}`;
+    const other = seen.get(key);
+    if (other !== undefined) add({ severity: 'error', code: 'issue-twice', file: name, line: 0, column: 'issue', value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`, expected: 'each month and revision once', message: `the same issue and revision is also in ${other}` });
+    seen.set(key, name);
+  }
+  return { issues, problems, errors, warnings };
 }

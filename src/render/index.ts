@@ -29,8 +29,10 @@ export interface SiteFile {
 export interface IssueBundle {
   model: BulletinModel;
   charts: ChartSet;
-  /** The issue's bulletin folder, for its content and its input files. */
-  folder: string;
+  /** The issue's editorial text, as ingest read and checked it. */
+  content: Record<string, string>;
+  /** Real path of each input file (by its path in the model's inputs), resolved inside the bulletin folder by ingest. */
+  sources: Record<string, string>;
   /** Site path of the issue in the site's first language, where its input files are published once for every language. */
   inputsPath?: string;
   /** The site's first language, published at the root; others live under /<locale>/. */
@@ -76,14 +78,14 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     charts: charts.charts,
     sparklines: charts.sparklines,
     view: views(model),
-    content: renderMarkdown(bundle.folder, locale, bundle.firstLocale ?? locale),
+    content: renderMarkdown(bundle.content, locale, bundle.firstLocale ?? locale),
     cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
     pageUrl: siteUrl(model.meta.baseUrl, issue),
     isRevisionCopy: issue.includes('/revisions/'),
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
     revisions,
-    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.path}/${part.path}` })) })),
+    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.published ?? file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.published ?? file.path}/${part.path}` })) })),
     t: messages,
     prefix,
     languages,
@@ -199,8 +201,9 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     if (published.has(inputsPath)) continue;
     published.add(inputsPath);
     for (const input of bundle.model.inputs) {
-      const source = join(bundle.folder, input.path);
-      const target = join(outDir, inputsPath, 'data', 'inputs', input.path);
+      const source = bundle.sources[input.path] as string;
+      // Under its fixed published name (a data extension), never the user's own path.
+      const target = join(outDir, inputsPath, 'data', 'inputs', input.published ?? input.path);
       // A folder of Parquet partitions is published as its partitions, the files its hash covers.
       const folder = statSync(source).isDirectory();
       for (const part of folder ? (input.parts ?? []) : [input]) {

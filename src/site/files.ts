@@ -1,14 +1,15 @@
 /** Walking a built site: its files as sorted relative paths with forward slashes, and their hashes. */
 import { createHash } from 'node:crypto';
-import { closeSync, copyFileSync, openSync, readdirSync, readSync, statSync, writeSync } from 'node:fs';
+import { closeSync, copyFileSync, lstatSync, openSync, readdirSync, readSync, statSync, writeSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 
+/** Files below `dir`; a symbolic link is listed as an entry and never followed (no loops, nothing outside). */
 export function listFiles(dir: string): string[] {
   const found: string[] = [];
   const walk = (folder: string) => {
     for (const entry of readdirSync(folder).sort()) {
       const path = join(folder, entry);
-      if (statSync(path).isDirectory()) walk(path);
+      if (lstatSync(path).isDirectory()) walk(path);
       else found.push(relative(dir, path).split(sep).join('/'));
     }
   };

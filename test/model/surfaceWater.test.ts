@@ -22,7 +22,7 @@ const may = (year: number) => year * 12 + 4;
 /** Two bodies of 100 and 300 ha. */
 function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
   const bodies = [body('A', 100), body('B', 300)];
-  return { config, bulletinMonth: may(2023), bodies, area: areaTable(bodies, area), quality: null, distribution: [], rainfall: [], field: [], subRegions: [], files: [] };
+  return { config, bulletinMonth: may(2023), bodies, area: areaTable(bodies, area), quality: null, distribution: [], rainfall: [], field: [], subRegions: [], files: [], content: {}, sources: {} };
 }
 
 const MAY_ROWS: Array<[string, number, number, number]> = [

@@ -3,7 +3,7 @@
  * switch to the same page in the other language, hreflang alternates, French feeds, French words,
  * numbers and dates, and the input files published once and linked from both languages.
  */
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
@@ -150,11 +150,8 @@ describe('page weight', () => {
 });
 
 describe('renderMarkdown', () => {
-  it('renderMarkdown(folder, locale, firstLocale) falls back to the first language, marked with its lang', () => {
-    const folder = mkdtempSync(join(tmpdir(), 'limnopress-markdown-'));
-    mkdirSync(join(folder, 'content'));
-    writeFileSync(join(folder, 'content', 'foreword.md'), 'Only in *English*.\n');
-    writeFileSync(join(folder, 'content', 'notes.fr.md'), 'Seulement en français.\n');
+  it('renderMarkdown(content, locale, firstLocale) falls back to the first language, marked with its lang', () => {
+    const folder = { foreword: 'Only in *English*.\n', 'notes.fr': 'Seulement en français.\n' };
     const french = renderMarkdown(folder, 'fr', 'en');
     expect(french.foreword).toBe('<div lang="en">\n<p>Only in <em>English</em>.</p>\n</div>\n');
     expect(french.notes).toBe('<p>Seulement en français.</p>\n');
