@@ -2,6 +2,7 @@
  * Server-side chart rendering: Vega-Lite spec → Vega → headless SVG string, made accessible and
  * safe to inline many times on one page.
  */
+import { csvField } from '../text/csv.ts';
 import sharp from 'sharp';
 import * as vega from 'vega';
 import { compile, type TopLevelSpec } from 'vega-lite';
@@ -49,13 +50,9 @@ export async function svgToPng(svg: string, density = 72): Promise<Buffer> {
 }
 
 
-/** RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled. */
+/** RFC 4180 CSV through csvField (formula-like texts neutralized), CRLF line ends. */
 export function toCsv(table: DataTable): string {
-  const field = (value: string | number) => {
-    const text = String(value);
-    return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-  };
-  return [table.columns, ...table.rows].map((row) => row.map(field).join(',')).join('\r\n') + '\r\n';
+  return [table.columns, ...table.rows].map((row) => row.map((value) => csvField(value)).join(',')).join('\r\n') + '\r\n';
 }
 
 /** `locale` sets the axes' number and date formats (see locales.ts); English is Vega's own. */

@@ -4,11 +4,11 @@
  * stubs, each to be replaced by the real ones. `limnopress new-issue <folder>` archives the current
  * issue and starts the next month's.
  */
-import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { cpSync, existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { parseArgs } from 'node:util';
-import { CONFIG_FILE, monthLabel, parseMonth } from '../ingest/index.ts';
-import { LOCALES } from '../ingest/config.ts';
+import { CONFIG_FILE, formatProblem, loadBulletin, monthLabel, parseMonth } from '../ingest/index.ts';
+import { isCalendarDate, LOCALES } from '../ingest/config.ts';
 import { ARCHIVE_FOLDER } from '../ingest/issues.ts';
 import { HELP, UsageError } from './usage.ts';
 
@@ -117,36 +117,55 @@ export async function runNewIssue(args: string[]): Promise<number> {
   }
   if (positionals.length !== 1) throw new UsageError('new-issue needs exactly one bulletin folder');
   const folder = positionals[0] as string;
-  const configPath = join(folder, CONFIG_FILE);
-  if (!existsSync(configPath)) {
-    process.stderr.write(`limnopress: ${configPath} does not exist\n`);
+  const published = values.published;
+  if (published !== undefined && (!/^\d{4}-\d{2}-\d{2}$/.test(published) || !isCalendarDate(published))) throw new UsageError('--published needs a date as YYYY-MM-DD');
+  // The issue must check clean before it is archived: an issue with errors (a month with no rows, as
+  // after a first new-issue, or a missing input) would be archived hollow.
+  const { inputs, problems } = await loadBulletin(folder);
+  if (!inputs) {
+    for (const problem of problems.sorted()) if (problem.severity === 'error') process.stderr.write(`${formatProblem(problem)}\n`);
+    process.stderr.write(`limnopress: the current issue of ${folder} has errors; nothing was archived. Fix them (limnopress check ${folder}) and run new-issue again\n`);
     return 1;
   }
+  const configPath = inputs.sources[CONFIG_FILE] as string;
   const config = JSON.parse(readFileSync(configPath, 'utf8')) as { issue: { month: string; revision?: number; published: string; draft?: boolean; corrections?: unknown[] }; inputs: Record<string, string> };
-  const current = parseMonth(config.issue.month);
-  if (current === null) {
-    process.stderr.write(`limnopress: ${configPath}: issue.month is not a month as YYYY-MM\n`);
-    return 1;
-  }
-  const archived = join(folder, ARCHIVE_FOLDER, config.issue.month);
-  if (existsSync(archived)) {
+  const current = inputs.bulletinMonth;
+  const archiveRoot = join(folder, ARCHIVE_FOLDER);
+  const archived = join(archiveRoot, config.issue.month);
+  if (existsSync(archived) || isLink(archived)) {
     process.stderr.write(`limnopress: ${archived} exists already; the current issue seems archived\n`);
     return 1;
   }
   const next = monthLabel(current + 1);
-  const published = values.published ?? `${monthLabel(current + 2)}-03`;
-  if (!/^\d{4}-\d{2}-\d{2}$/.test(published)) throw new UsageError('--published needs a date as YYYY-MM-DD');
-  // 1. Archive the current issue: its configuration, every input it names, and its content.
-  mkdirSync(archived, { recursive: true });
-  cpSync(configPath, join(archived, CONFIG_FILE));
-  for (const path of Object.values(config.inputs)) {
-    mkdirSync(join(archived, path, '..'), { recursive: true });
-    cpSync(join(folder, path), join(archived, path));
+  const nextPublished = published ?? `${monthLabel(current + 2)}-03`;
+  // 1. Archive the current issue into a staging folder (its configuration, every input it names, its
+  // content), then rename it into place: a failure part way leaves no half-made archive to block a retry.
+  mkdirSync(archiveRoot, { recursive: true });
+  const staging = join(archiveRoot, `.${config.issue.month}.partial-${process.pid}`);
+  rmSync(staging, { recursive: true, force: true });
+  try {
+    mkdirSync(staging);
+    for (const file of inputs.files) {
+      // Paths were confined by the check above: every copy lands inside the staging folder.
+      const to = join(staging, file.path);
+      mkdirSync(dirname(to), { recursive: true });
+      cpSync(inputs.sources[file.path] as string, to, { recursive: true, dereference: true });
+    }
+    for (const [name, text] of Object.entries(inputs.content)) {
+      mkdirSync(join(staging, 'content'), { recursive: true });
+      writeFileSync(join(staging, 'content', `${name}.md`), text);
+    }
+    renameSync(staging, archived);
+  } catch (error) {
+    rmSync(staging, { recursive: true, force: true });
+    throw error;
   }
-  if (existsSync(join(folder, 'content'))) cpSync(join(folder, 'content'), join(archived, 'content'), { recursive: true });
   // 2. Start the next issue: new month and date, first revision, no corrections, a draft, fresh foreword.
-  config.issue = { ...config.issue, month: next, published, revision: 1, draft: true, corrections: [] };
-  writeFileSync(configPath, `${JSON.stringify(config, null, 2)}\n`);
+  config.issue = { ...config.issue, month: next, published: nextPublished, revision: 1, draft: true, corrections: [] };
+  // Written beside and renamed over, so the configuration is never half-written.
+  const nextConfig = join(folder, `.${CONFIG_FILE}.next-${process.pid}`);
+  writeFileSync(nextConfig, `${JSON.stringify(config, null, 2)}\n`);
+  renameSync(nextConfig, join(folder, CONFIG_FILE));
   mkdirSync(join(folder, 'content'), { recursive: true });
   writeFileSync(join(folder, 'content', 'foreword.md'), FOREWORD);
   // Last month's translated forewords are archived with it; the new issue gets fresh stubs.
@@ -156,4 +175,12 @@ export async function runNewIssue(args: string[]): Promise<number> {
   }
   process.stdout.write(`Archived ${monthLabel(current)} in ${archived}. The folder now holds the ${next} issue (a draft): add the ${next} rows to the tables, then run limnopress check ${folder}.\n`);
   return 0;
+}
+
+function isLink(path: string): boolean {
+  try {
+    return lstatSync(path).isSymbolicLink();
+  } catch {
+    return false;
+  }
 }

@@ -4,6 +4,7 @@ import { InputError, ProblemList } from '../ingest/index.ts';
 import { readSeriesTable } from '../ingest/seriesTable.ts';
 import { parallelTrends } from '../model/parallelTrends.ts';
 import type { TrendRow } from '../model/seriesTrends.ts';
+import { csvField } from '../text/csv.ts';
 import { HELP, UsageError } from './usage.ts';
 
 const COLUMNS: Array<[string, keyof TrendRow]> = [
@@ -17,10 +18,6 @@ const COLUMNS: Array<[string, keyof TrendRow]> = [
   ['p_adjusted', 'pAdjusted'], ['rejected', 'rejected'], ['reason', 'reason'],
 ];
 
-const csvField = (value: unknown) => {
-  const text = typeof value === 'number' ? (Number.isFinite(value) ? String(value) : '') : String(value);
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-};
 
 function probability(text: string | undefined, name: string, fallback: number): number {
   if (text === undefined) return fallback;
@@ -70,7 +67,7 @@ export async function runTrend(args: string[]): Promise<number> {
     process.stdout.write(`${JSON.stringify(clean, null, 2)}\n`);
   } else {
     const header = [...COLUMNS.map(([name]) => name), 'pettitt_change_time'];
-    const lines = [header.join(','), ...labelled.map((row) => [...COLUMNS.map(([, key]) => csvField(row[key])), csvField(row.changePointTime)].join(','))];
+    const lines = [header.join(','), ...labelled.map((row) => [...COLUMNS.map(([, key]) => csvField(row[key] as string | number | boolean)), csvField(row.changePointTime)].join(','))];
     process.stdout.write(`${lines.join('\n')}\n`);
   }
   return 0;

@@ -4,7 +4,7 @@ import { parseArgs } from 'node:util';
 import { verifySite } from '../site/verify.ts';
 import { HELP, UsageError } from './usage.ts';
 
-const WORDS = { changed: 'changed since it was built', missing: 'listed but missing', unlisted: 'not listed in any manifest', 'manifest-unreadable': 'manifest cannot be read' } as const;
+const WORDS = { changed: 'changed since it was built', missing: 'listed but missing', unlisted: 'not listed in any manifest', 'manifest-unreadable': 'manifest cannot be read, or is not a limnopress manifest', outside: 'leads outside the site or is not a regular file; not read' } as const;
 
 export async function runVerify(args: string[]): Promise<number> {
   const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { help: { type: 'boolean', short: 'h' } } });

@@ -6,26 +6,64 @@
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { ProblemList } from './problems.ts';
+import { loadMessages } from '../text/index.ts';
+import { isolateBidi } from '../text/bidi.ts';
 
 /** The languages with a catalogue in content/locales/. */
 export const LOCALES = ['en', 'fr'] as const;
 
-const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'a month as YYYY-MM');
-const date = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'a date as YYYY-MM-DD');
+/** The years a bulletin month may fall in: the satellite era, and no further ahead than a plan reaches. */
+export const MONTH_YEARS = { first: 1972, last: 2100 } as const;
+const month = z
+  .string()
+  .regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'a month as YYYY-MM')
+  .refine((text) => Number(text.slice(0, 4)) >= MONTH_YEARS.first && Number(text.slice(0, 4)) <= MONTH_YEARS.last, `a month from ${MONTH_YEARS.first} to ${MONTH_YEARS.last}`);
+/** A real calendar day (2026-02-30 is refused, not read as 2 March). */
+export const isCalendarDate = (text: string) => {
+  const [year, monthOfYear, day] = text.split('-').map(Number) as [number, number, number];
+  const date = new Date(Date.UTC(year, monthOfYear - 1, day));
+  return date.getUTCFullYear() === year && date.getUTCMonth() === monthOfYear - 1 && date.getUTCDate() === day;
+};
+const date = z
+  .string()
+  .regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'a date as YYYY-MM-DD')
+  .refine(isCalendarDate, 'a day that exists in the calendar');
+/**
+ * The published site's address: http or https, no user name, password, query or fragment. A missing
+ * trailing slash is added, so that the address's own path is kept in every canonical URL.
+ */
+const baseUrl = z
+  .string()
+  .max(2000)
+  .refine((text) => {
+    try {
+      const url = new URL(text);
+      return (url.protocol === 'https:' || url.protocol === 'http:') && url.username === '' && url.password === '' && url.search === '' && url.hash === '';
+    } catch {
+      return false;
+    }
+  }, 'an http or https address without user name, query or fragment, such as https://bulletin.example.org/')
+  .transform((text) => {
+    const url = new URL(text);
+    if (!url.pathname.endsWith('/')) url.pathname = `${url.pathname}/`;
+    return url.href;
+  });
+/** Free text of the configuration: one line, of a length a page can show. */
+const label = (max: number) => z.string().min(1).max(max).refine((text) => !/[\u0000-\u001f\u007f]/.test(text), 'text without control characters').transform(isolateBidi);
 /** Rising class boundaries in hectares: [100, 10000] makes three classes. */
 const boundaries = z.array(z.number().positive()).min(1).refine((list) => list.every((value, k) => k === 0 || value > (list[k - 1] as number)), 'boundaries must rise');
 
 const statusBand = z.strictObject({
   /** Short key used in data files, CSS classes and the wording catalogue (band.<key>). */
-  key: z.string().regex(/^[a-z][a-z-]*$/),
+  key: z.string().regex(/^[a-z][a-z-]*$/).max(40),
   /** Lower bound, percent of the baseline median, inclusive; the lowest band has none. */
   fromPercent: z.number().nullable(),
 });
 
 export const configSchema = z.strictObject({
-  title: z.string().min(1),
-  publisher: z.string().min(1),
-  region: z.strictObject({ name: z.string().min(1) }),
+  title: label(200),
+  publisher: label(200),
+  region: z.strictObject({ name: label(200) }),
   issue: z.strictObject({
     month,
     revision: z.number().int().min(1).default(1),
@@ -91,7 +129,7 @@ export const configSchema = z.strictObject({
   statusBands: z.array(statusBand).min(2),
   csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
   site: z.strictObject({
-    baseUrl: z.url(),
+    baseUrl,
     /** Most water bodies that get a page of their own; the largest flagged bodies come first. */
     maxBodyPages: z.number().int().min(0).default(500),
     bodiesPerListPage: z.number().int().min(1).default(500),
@@ -99,13 +137,13 @@ export const configSchema = z.strictObject({
   /** Interface languages: the first is published at the site root, each other under /<locale>/. */
   locales: z.array(z.enum(LOCALES)).min(1).refine((list) => new Set(list).size === list.length, 'each locale once').default(['en']),
   inputs: z.strictObject({
-    inventory: z.string(),
-    surfaceArea: z.string(),
-    quality: z.string().optional(),
-    distribution: z.string().optional(),
-    rainfall: z.string().optional(),
-    field: z.string().optional(),
-    boundaries: z.string(),
+    inventory: z.string().min(1),
+    surfaceArea: z.string().min(1),
+    quality: z.string().min(1).optional(),
+    distribution: z.string().min(1).optional(),
+    rainfall: z.string().min(1).optional(),
+    field: z.string().min(1).optional(),
+    boundaries: z.string().min(1),
   }),
 });
 
@@ -206,6 +244,15 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
   const bands = config.statusBands;
   if (bands[0]?.fromPercent !== null || bands.slice(1).some((band, k) => band.fromPercent === null || band.fromPercent <= (bands[k]?.fromPercent ?? -Infinity))) {
     problems.error({ code: 'config-status-bands', file: label, line: lineOfPath(text, ['statusBands']), column: 'statusBands', value: '', expected: 'the first band with fromPercent null, then strictly rising bounds', message: 'status bands must cover all values in rising order' });
+  }
+  // Every band needs its words in every language of the bulletin (band.<key> in the catalogue).
+  for (const locale of config.locales) {
+    const messages = loadMessages(locale);
+    for (const band of bands) {
+      if (messages[`band.${band.key}`] === undefined) {
+        problems.error({ code: 'config-band-words', file: label, line: lineOfPath(text, ['statusBands']), column: 'statusBands', value: band.key, expected: `a band key with wording in content/locales/${locale}.json (band.${band.key})`, message: `the status band has no wording in ${locale}` });
+      }
+    }
   }
   return config;
 }

@@ -4,6 +4,8 @@
  */
 import { readFileSync } from 'node:fs';
 import type { ProblemList } from './problems.ts';
+import { slugOf } from '../text/slug.ts';
+import { isolateBidi } from '../text/bidi.ts';
 
 export type Ring = Array<[number, number]>;
 
@@ -34,9 +36,18 @@ export function rewindForRendering(polygon: Ring[]): Ring[] {
   });
 }
 
+/** A position in longitude and latitude degrees, within their ranges (RFC 7946 §3.1.1 and WGS 84). */
 function isPosition(value: unknown): value is [number, number] {
-  return Array.isArray(value) && value.length >= 2 && value.slice(0, 2).every((n) => typeof n === 'number' && Number.isFinite(n));
+  if (!Array.isArray(value) || value.length < 2) return false;
+  const [lon, lat] = value as unknown[];
+  return typeof lon === 'number' && typeof lat === 'number' && Number.isFinite(lon) && Number.isFinite(lat) && Math.abs(lon) <= 180 && Math.abs(lat) <= 90;
 }
+
+/** Most positions read from one boundaries file (a coarse map needs far fewer). */
+export const MAX_POSITIONS = 2_000_000;
+/** Longest sub-region id and name, in characters. */
+export const MAX_ID_LENGTH = 64;
+export const MAX_NAME_LENGTH = 200;
 
 export function readBoundaries(path: string, label: string, problems: ProblemList): SubRegion[] {
   let doc: unknown;
@@ -53,26 +64,59 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
     return [];
   }
   const regions: SubRegion[] = [];
-  features.forEach((feature: { properties?: Record<string, unknown>; geometry?: { type?: string; coordinates?: unknown } }, index: number) => {
+  const slugs = new Map<string, string>();
+  let positions = 0;
+  features.forEach((raw: unknown, index: number) => {
     const at = `features[${index}]`;
+    if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
+      problems.error({ code: 'geojson-feature', file: label, line: 0, column: at, value: '', expected: 'a GeoJSON Feature object', message: 'a feature is not an object' });
+      return;
+    }
+    const feature = raw as { properties?: Record<string, unknown> | null; geometry?: { type?: string; coordinates?: unknown } | null };
     const id = feature.properties?.subregion_id;
     const name = feature.properties?.name;
-    if (typeof id !== 'string' || typeof name !== 'string') {
+    if (typeof id !== 'string' || typeof name !== 'string' || id.trim() === '' || name.trim() === '') {
       problems.error({ code: 'geojson-properties', file: label, line: 0, column: `${at}.properties`, value: '', expected: 'subregion_id and name as text', message: 'a feature lacks its sub-region id or name' });
       return;
     }
+    if (id.length > MAX_ID_LENGTH || name.length > MAX_NAME_LENGTH) {
+      problems.error({ code: 'value-too-long', file: label, line: 0, column: `${at}.properties`, value: id, expected: `an id of at most ${MAX_ID_LENGTH} and a name of at most ${MAX_NAME_LENGTH} characters`, message: 'the sub-region id or name is too long' });
+      return;
+    }
+    // Each sub-region gets a page whose path comes from its id: two ids may not make the same path.
+    const slug = slugOf(id);
+    const other = slugs.get(slug);
+    if (other !== undefined && other !== id) {
+      problems.error({ code: 'id-path-collision', file: label, line: 0, column: `${at}.properties.subregion_id`, value: id, expected: `an id that differs from "${other}" in more than case or punctuation`, message: 'two sub-region ids would share one page address' });
+      return;
+    }
+    slugs.set(slug, id);
     const geometry = feature.geometry;
-    const raw = geometry?.type === 'Polygon' ? [geometry.coordinates] : geometry?.type === 'MultiPolygon' ? geometry.coordinates : null;
-    if (!Array.isArray(raw)) {
+    const shapes = geometry?.type === 'Polygon' ? [geometry.coordinates] : geometry?.type === 'MultiPolygon' ? geometry.coordinates : null;
+    if (!Array.isArray(shapes) || shapes.length === 0) {
       problems.error({ code: 'geojson-geometry', file: label, line: 0, column: `${at}.geometry`, value: String(geometry?.type ?? ''), expected: 'Polygon or MultiPolygon', message: 'the feature has no polygon geometry' });
       return;
     }
     const polygons: Ring[][] = [];
-    for (const polygon of raw as unknown[]) {
-      if (!Array.isArray(polygon)) continue;
+    for (const polygon of shapes as unknown[]) {
+      if (!Array.isArray(polygon) || polygon.length === 0) {
+        problems.error({ code: 'geojson-ring', file: label, line: 0, column: `${at}.geometry`, value: '', expected: 'a polygon of at least one ring', message: 'a polygon has no rings' });
+        return;
+      }
       const rings: Ring[] = [];
       for (const ring of polygon as unknown[]) {
-        const points = Array.isArray(ring) ? ring.filter(isPosition).map(([x, y]) => [x, y] as [number, number]) : [];
+        const list = Array.isArray(ring) ? (ring as unknown[]) : [];
+        positions += list.length;
+        if (positions > MAX_POSITIONS) {
+          problems.error({ code: 'geojson-too-large', file: label, line: 0, column: `${at}.geometry`, value: '', expected: `at most ${MAX_POSITIONS} positions in all`, message: 'the boundaries hold too many positions; simplify them' });
+          return;
+        }
+        const bad = list.findIndex((position) => !isPosition(position));
+        if (bad >= 0) {
+          problems.error({ code: 'geojson-position', file: label, line: 0, column: `${at}.geometry`, value: JSON.stringify(list[bad]) ?? '', expected: 'a position [longitude, latitude] in degrees, longitude −180 to 180, latitude −90 to 90', message: 'a position is not a valid longitude and latitude' });
+          return;
+        }
+        const points = list.map((position) => [(position as number[])[0], (position as number[])[1]] as [number, number]);
         const first = points[0];
         const last = points[points.length - 1];
         if (points.length < 4 || !first || !last || first[0] !== last[0] || first[1] !== last[1]) {
@@ -83,7 +127,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
       }
       polygons.push(rewindForRendering(rings));
     }
-    regions.push({ id, name, polygons });
+    regions.push({ id, name: isolateBidi(name), polygons });
   });
   return regions;
 }

@@ -26,11 +26,16 @@ export interface Problem {
 /** Problems of one kind in one file kept in full; the rest are counted in one closing line. */
 export const PROBLEMS_KEPT_PER_KIND = 50;
 
+/** Characters of a found value repeated in a problem; the rest is cut. */
+export const MAX_ECHOED = 200;
+
 export class ProblemList {
   readonly items: Problem[] = [];
   private readonly perKind = new Map<string, number>();
 
-  add(problem: Problem): void {
+  add(found: Problem): void {
+    // A value echoed from an input can be megabytes: keep its first characters only.
+    const problem = found.value.length > MAX_ECHOED ? { ...found, value: `${found.value.slice(0, MAX_ECHOED)}…` } : found;
     const kind = `${problem.severity} ${problem.file} ${problem.code}`;
     const count = (this.perKind.get(kind) ?? 0) + 1;
     this.perKind.set(kind, count);
@@ -77,9 +82,19 @@ export class ProblemList {
       more.push({ ...sample, line: Number.MAX_SAFE_INTEGER, column: '', value: '', expected: '', message: `${count - PROBLEMS_KEPT_PER_KIND} more problem(s) of this kind (${sample.code}) not listed` });
     }
     return [...this.items, ...more].sort(
-      (a, b) => a.file.localeCompare(b.file) || a.line - b.line || (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || a.column.localeCompare(b.column) || a.code.localeCompare(b.code),
+      (a, b) => rankOf(a.file) - rankOf(b.file) || a.file.localeCompare(b.file) || a.line - b.line || (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || a.column.localeCompare(b.column) || a.code.localeCompare(b.code),
     );
   }
+}
+
+/**
+ * Files others depend on come first, so a root cause stands above the problems it causes (an
+ * unreadable inventory row above the "not in the inventory" lines of every table): the
+ * configuration, then the boundaries, then the inventory, then the rest.
+ */
+const ROOT_FILES: Array<[RegExp, number]> = [[/bulletin\.json$/, 0], [/\.geojson$/i, 1], [/water-bodies|inventory/i, 2]];
+function rankOf(file: string): number {
+  return ROOT_FILES.find(([pattern]) => pattern.test(file))?.[1] ?? 3;
 }
 
 /** The bracket after a message: what was found and what was expected (or a suggestion). */

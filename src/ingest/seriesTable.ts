@@ -56,6 +56,15 @@ export interface SeriesColumns {
   by?: string;
 }
 
+/**
+ * Limits of the trend arithmetic: values and times of at most this magnitude (their differences
+ * stay finite in doubles: the slopes of Sen's method are differences divided by differences), and
+ * at most this many values per series (the pairwise methods need n(n−1)/2 slopes: 12.5 million at
+ * the limit, about 100 MB of work space).
+ */
+export const MAX_MAGNITUDE = 1e100;
+export const MAX_VALUES_PER_SERIES = 5_000;
+
 export async function readSeriesTable(path: string, label: string, columns: SeriesColumns, problems: ProblemList): Promise<SeriesInput[]> {
   const rows = new Map<string, Array<{ time: ParsedTime; label: string; value: number; line: number }>>();
   const specs = [columns.time, columns.value, ...(columns.by ? [columns.by] : [])].map((name) => ({ name, required: true }));
@@ -63,6 +72,10 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
     const timeText = (values[at[columns.time]!] ?? '').trim();
     const valueText = (values[at[columns.value]!] ?? '').trim();
     const time = parseTime(timeText);
+    if (time && !(Math.abs(time.years) <= MAX_MAGNITUDE)) {
+      problems.error({ code: 'value-out-of-range', file: label, line, column: columns.time, value: timeText, expected: `a time of at most ${MAX_MAGNITUDE} in size`, message: 'the time is too large for the trend arithmetic' });
+      return;
+    }
     if (!time) {
       problems.error({ code: 'time-invalid', file: label, line, column: columns.time, value: timeText, expected: 'YYYY-MM, YYYY-MM-DD or a number of years', message: 'the time cannot be read' });
       return;
@@ -74,6 +87,10 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
         problems.error({ code: 'value-not-number', file: label, line, column: columns.value, value: valueText, expected: 'a finite number, or nothing for a missing value', message: 'the value is not a number' });
         return;
       }
+      if (!(Math.abs(value) <= MAX_MAGNITUDE)) {
+        problems.error({ code: 'value-out-of-range', file: label, line, column: columns.value, value: valueText, expected: `a number of at most ${MAX_MAGNITUDE} in size (rescale the unit)`, message: 'the value is too large for the trend arithmetic' });
+        return;
+      }
     }
     const key = columns.by ? (values[at[columns.by]!] ?? '').trim() : 'all';
     const list = rows.get(key) ?? [];
@@ -82,6 +99,10 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
   });
   const series: SeriesInput[] = [];
   for (const [key, list] of [...rows.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
+    if (list.length > MAX_VALUES_PER_SERIES) {
+      problems.error({ code: 'series-too-long', file: label, line: list[MAX_VALUES_PER_SERIES]!.line, column: columns.time, value: key, expected: `at most ${MAX_VALUES_PER_SERIES} values per series`, message: `series "${key}" has ${list.length} values, more than the pairwise trend methods are run on` });
+      continue;
+    }
     list.sort((a, b) => a.time.years - b.time.years);
     for (let k = 1; k < list.length; k++) {
       const here = list[k]!;

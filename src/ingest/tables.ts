@@ -3,6 +3,9 @@
  * water quality) are kept as typed columns, the small ones as records. A bad cell drops its row
  * and is reported with file, line and column; nothing is guessed.
  */
+import { slugOf } from '../text/slug.ts';
+import { isolateBidi } from '../text/bidi.ts';
+import { MAX_ID_LENGTH, MAX_NAME_LENGTH } from './geojson.ts';
 import { CellReader, type DecimalMark } from './cells.ts';
 import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
 import { readTable } from './csv.ts';
@@ -126,13 +129,14 @@ function monthInRange(cells: CellReader, month: number, raw: string, line: numbe
 export async function readInventory(path: string, label: string, context: ReadContext): Promise<WaterBody[]> {
   const bodies: WaterBody[] = [];
   const seen = new Map<string, number>();
+  const slugs = new Map<string, { id: string; line: number }>();
   const cells = new CellReader(label, context.problems, context.decimal);
   const columns = spec(['body_id', 'name', 'subregion_id', 'lon', 'lat', 'reference_area_ha', 'kind', 'own_page']);
   await readTable(path, label, columns, context.problems, (values, line, at) => {
     cells.startRow();
     const body: WaterBody = {
       id: cells.text(values, at.body_id!, 'body_id', line),
-      name: cells.text(values, at.name!, 'name', line),
+      name: isolateBidi(cells.text(values, at.name!, 'name', line)),
       subRegionId: cells.text(values, at.subregion_id!, 'subregion_id', line),
       lon: cells.number(values, at.lon!, 'lon', line, -180, 180),
       lat: cells.number(values, at.lat!, 'lat', line, -90, 90),
@@ -148,6 +152,13 @@ export async function readInventory(path: string, label: string, context: ReadCo
       return;
     }
     seen.set(body.id, line);
+    if (body.id.length > MAX_ID_LENGTH) cells.fail(line, 'body_id', body.id, 'value-too-long', `an id of at most ${MAX_ID_LENGTH} characters`, 'the id is too long');
+    if (body.name.length > MAX_NAME_LENGTH) cells.fail(line, 'name', body.name, 'value-too-long', `a name of at most ${MAX_NAME_LENGTH} characters`, 'the name is too long');
+    // A body's page path comes from its id: two ids may not make the same path (S1 and s1).
+    const slug = slugOf(body.id);
+    const sameSlug = slugs.get(slug);
+    if (sameSlug !== undefined) cells.fail(line, 'body_id', body.id, 'id-path-collision', `an id that differs from "${sameSlug.id}" (line ${sameSlug.line}) in more than case or punctuation`, 'two ids would share one page address');
+    else slugs.set(slug, { id: body.id, line });
     if (cells.rowOk) bodies.push(body);
   });
   return bodies;

@@ -2,6 +2,7 @@
  * Page views: the model's figures formatted for people (Intl numbers, plain words for states), as
  * tables and short lists that the templates only place. No figure is computed here.
  */
+import { slugOf } from '../text/slug.ts';
 import { parseMonth } from '../ingest/index.ts';
 import type { BulletinModel, GroupSurface, Status } from '../model/index.ts';
 import { evidenceFor } from '../model/evidence.ts';
@@ -266,4 +267,4 @@ export function bodyView(model: BulletinModel, index: number) {
   };
 }
 
-export const slugOf = (id: string) => id.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'item';
+export { slugOf } from '../text/slug.ts';

@@ -1,29 +1,63 @@
 /**
  * A small static server for a built site, on loopback only: folders serve their index.html, a
- * missing path gets the site's 404 page, and nothing outside the folder is reachable.
+ * missing path gets the site's 404 page, and nothing outside the folder is reachable (links are
+ * resolved and must stay inside). Every answer carries the site's Content-Security-Policy and
+ * `X-Content-Type-Options: nosniff` as HTTP headers, so no published file (a data download
+ * included) can run as a page; README lists the same headers for a production server.
  */
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync, realpathSync, statSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
-import { extname, join, normalize, resolve } from 'node:path';
+import { extname, join, normalize, relative, isAbsolute } from 'node:path';
 
 const MIME: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.css': 'text/css; charset=utf-8', '.json': 'application/json', '.csv': 'text/csv; charset=utf-8',
-  '.svg': 'image/svg+xml', '.png': 'image/png', '.xml': 'application/xml', '.geojson': 'application/geo+json', '.md': 'text/markdown; charset=utf-8',
+  '.svg': 'image/svg+xml', '.png': 'image/png', '.xml': 'application/xml', '.geojson': 'application/geo+json', '.md': 'text/markdown; charset=utf-8', '.parquet': 'application/vnd.apache.parquet',
 };
 
+/** The headers every answer of the site should carry (the same policy as the pages' meta tag). */
+export const SECURITY_HEADERS: Record<string, string> = {
+  'content-security-policy': "default-src 'self'; script-src 'none'; style-src 'self'; img-src 'self' data:; font-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'",
+  'x-content-type-options': 'nosniff',
+  'referrer-policy': 'no-referrer',
+};
+
+/** The regular file a request names inside `base` (a real path), or null. */
+function fileFor(base: string, pathname: string): string | null {
+  let decoded: string;
+  try {
+    decoded = decodeURIComponent(pathname);
+  } catch {
+    return null;
+  }
+  if (decoded.includes('\0')) return null;
+  try {
+    let file = realpathSync(join(base, normalize(decoded)));
+    const rel = relative(base, file);
+    if (rel.startsWith('..') || isAbsolute(rel)) return null;
+    if (statSync(file).isDirectory()) file = realpathSync(join(file, 'index.html'));
+    return statSync(file).isFile() && !relative(base, file).startsWith('..') ? file : null;
+  } catch {
+    return null;
+  }
+}
+
 export async function serveFolder(folder: string | (() => string), port = 0): Promise<{ origin: string; port: number; close: () => Promise<void> }> {
-  const root = () => resolve(typeof folder === 'string' ? folder : folder());
+  const root = () => realpathSync(typeof folder === 'string' ? folder : folder());
   const server: Server = createServer((request, response) => {
-    const base = root();
-    const path = normalize(decodeURIComponent(new URL(request.url ?? '/', 'http://localhost').pathname));
-    let file = join(base, path);
-    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
-    if (!file.startsWith(base) || !existsSync(file)) {
-      const notFound = join(base, '404.html');
-      response.writeHead(404, { 'content-type': MIME['.html'] as string }).end(existsSync(notFound) ? readFileSync(notFound) : 'not found');
-      return;
+    try {
+      const base = root();
+      const file = fileFor(base, new URL(request.url ?? '/', 'http://localhost').pathname);
+      if (file === null) {
+        const notFound = fileFor(base, '/404.html');
+        response.writeHead(404, { ...SECURITY_HEADERS, 'content-type': MIME['.html'] as string }).end(notFound ? readFileSync(notFound) : 'not found');
+        return;
+      }
+      response.writeHead(200, { ...SECURITY_HEADERS, 'content-type': MIME[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
+    } catch {
+      // A malformed request or a site swapped mid-read: answer, never stop serving.
+      if (!response.headersSent) response.writeHead(400, { ...SECURITY_HEADERS, 'content-type': 'text/plain; charset=utf-8' });
+      response.end('bad request');
     }
-    response.writeHead(200, { 'content-type': MIME[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
   });
   await new Promise<void>((done, fail) => {
     server.once('error', fail);
