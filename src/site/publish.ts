@@ -194,7 +194,9 @@ export function openTarget(outDir: string, options: { bulletinFolder?: string; f
     throw new PublishError(`--out ${outDir} is a file, not a folder; give a folder for the site`);
   }
   try {
-    mkdirSync(store, { recursive: true });
+    // Not one recursive mkdir: on some file systems (/proc) it never returns.
+    if (!existsSync(parent)) mkdirSync(parent, { recursive: true });
+    if (!existsSync(store)) mkdirSync(store);
   } catch (error) {
     throw new PublishError(`cannot write beside ${outDir}: ${systemReason(error)}`);
   }
