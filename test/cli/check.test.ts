@@ -8,9 +8,10 @@ const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, 'check', ...args], { encoding: 'utf8' });
 
 describe('limnopress check', () => {
-  it('limnopress check example-bulletin is clean and exits 0', () => {
+  it('limnopress check example-bulletin reads its archived issues too, as build does, and exits 0 (warnings only)', () => {
     const result = run(EXAMPLE);
-    expect(result.stdout).toBe('No problems found.\n');
+    expect(result.stdout).toMatch(/^archive\/2026-10-r1\/data\/surface-area.csv$/m);
+    expect(result.stdout).toMatch(/^0 errors, \d+ warnings? in \d+ files?\.$/m);
     expect(result.status).toBe(0);
   });
 

@@ -1,7 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
@@ -24,7 +24,7 @@ describe('limnopress command line', () => {
 
   it('limnopress build on a folder without a configuration exits 1 and names the file', () => {
     const empty = mkdtempSync(join(tmpdir(), 'limnopress-cli-'));
-    const result = run('build', empty, '--out', join(empty, 'out'));
+    const result = run('build', empty, '--out', join(empty, '..', `${basename(empty)}-out`));
     expect(result.status).toBe(1);
     expect(result.stderr).toContain('bulletin.json');
     expect(result.stderr).toContain('nothing was written');

@@ -1,5 +1,5 @@
 import { spawn } from 'node:child_process';
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -10,11 +10,13 @@ import { treeHashes } from '../support/gates.ts';
 
 const scratch = () => mkdtempSync(join(tmpdir(), 'limnopress-publish-'));
 
+/** A site in the earlier layout (a plain folder) that this tool published: its manifest says so. */
 function publishedSite(root: string): string {
   const site = join(root, 'site');
   mkdirSync(join(site, 'a'), { recursive: true });
   writeFileSync(join(site, 'index.html'), 'old');
   writeFileSync(join(site, 'a', 'page.html'), 'old page');
+  writeFileSync(join(site, 'manifest.json'), '{"tool":{"name":"limnopress"}}\n');
   return site;
 }
 
@@ -24,7 +26,9 @@ describe('publishAtomically', () => {
     const site = publishedSite(root);
     await publishAtomically(site, async (staging) => writeFileSync(join(staging, 'index.html'), 'new'));
     expect(readdirSync(site)).toEqual(['index.html']);
-    expect(readdirSync(root)).toEqual(['site']);
+    // The old folder is gone (it was ours); the site is a link into the store beside it.
+    expect(readdirSync(root).sort()).toEqual(['.site.limnopress', 'site']);
+    expect(readlinkSync(site)).toMatch(/^\.site\.limnopress\/site-/);
   });
 
   it('publishAtomically(dir, write) leaves the old site intact and no staging folder when write throws', async () => {
@@ -36,7 +40,8 @@ describe('publishAtomically', () => {
       throw new Error('disk full');
     })).rejects.toThrow('disk full');
     expect(treeHashes(site)).toEqual(before);
-    expect(readdirSync(root)).toEqual(['site']);
+    expect(readdirSync(root).sort()).toEqual(['.site.limnopress', 'site']);
+    expect(readdirSync(join(root, '.site.limnopress'))).toEqual([]);
   });
 });
 
@@ -50,7 +55,8 @@ describe('build on bad input', () => {
     writeFileSync(join(bad, 'data', 'surface-area.csv'), 'body_id,month,water_area_ha,observed_share\nWB001,2026-11,abc,0.9\n');
     await expect(build({ bulletinFolder: bad, outDir: site })).rejects.toMatchObject({ name: 'InputError' });
     expect(treeHashes(site)).toEqual(before);
-    expect(readdirSync(root).sort()).toEqual(['bulletin', 'site']);
+    expect(readdirSync(root).sort()).toEqual(['.site.limnopress', 'bulletin', 'site']);
+    expect(readdirSync(join(root, '.site.limnopress'))).toEqual([]);
   });
 
   it('a build killed part way leaves the old site intact, and the next build cleans up after it', async () => {
@@ -72,6 +78,7 @@ describe('build on bad input', () => {
     expect(treeHashes(site)).toEqual(before);
     await build({ bulletinFolder: EXAMPLE, outDir: site });
     expect(existsSync(join(site, 'issues', '2026-11', 'index.html'))).toBe(true);
-    expect(readdirSync(root)).toEqual(['site']);
+    expect(readdirSync(root).sort()).toEqual(['.site.limnopress', 'site']);
+    expect(readdirSync(join(root, '.site.limnopress'))).toEqual([readlinkSync(site).split('/').pop()]);
   });
 });
