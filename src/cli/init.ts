@@ -4,12 +4,13 @@
  * stubs, each to be replaced by the real ones. `limnopress new-issue <folder>` archives the current
  * issue and starts the next month's.
  */
-import { cpSync, existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { CONFIG_FILE, formatProblem, loadBulletin, monthLabel, parseMonth } from '../ingest/index.ts';
 import { isCalendarDate, LOCALES } from '../ingest/config.ts';
 import { ARCHIVE_FOLDER } from '../ingest/issues.ts';
+import { isLink } from '../ingest/confine.ts';
 import { HELP, UsageError } from './usage.ts';
 
 const FOREWORD = `Write the foreword of this issue here, in Markdown. It appears at the top of the overview.
@@ -177,10 +178,3 @@ export async function runNewIssue(args: string[]): Promise<number> {
   return 0;
 }
 
-function isLink(path: string): boolean {
-  try {
-    return lstatSync(path).isSymbolicLink();
-  } catch {
-    return false;
-  }
-}

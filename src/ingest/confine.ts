@@ -96,3 +96,12 @@ export function listRegularFiles(dir: string): { files: string[]; links: string[
   walk(dir);
   return { files, links };
 }
+
+/** True when `path` is a symbolic link (not followed). */
+export function isLink(path: string): boolean {
+  try {
+    return lstatSync(path).isSymbolicLink();
+  } catch {
+    return false;
+  }
+}

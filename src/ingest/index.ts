@@ -3,8 +3,8 @@
  * and one list of problems. Nothing here computes a statistic.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, lstatSync, readFileSync, statSync } from 'node:fs';
-import { ConfinementError, realRoot, resolveInside } from './confine.ts';
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { ConfinementError, isLink, realRoot, resolveInside } from './confine.ts';
 import { sha256File } from '../site/files.ts';
 import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
@@ -186,13 +186,6 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
   return content;
 }
 
-function isLink(path: string): boolean {
-  try {
-    return lstatSync(path).isSymbolicLink();
-  } catch {
-    return false;
-  }
-}
 
 /**
  * Editorial text written for the first language but not translated for another: that language's

@@ -25,6 +25,7 @@ import {
   existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, rmdirSync, statSync, symlinkSync, unlinkSync, writeFileSync, linkSync,
 } from 'node:fs';
 import { basename, dirname, join, resolve, sep } from 'node:path';
+import { isLink } from '../ingest/confine.ts';
 
 const OLD_STAGING_MARK = '.limnopress-staging-';
 const OLD_RETIRED_MARK = '.limnopress-retired-';
@@ -269,13 +270,6 @@ function recover(parent: string, name: string, store: string): void {
   }
 }
 
-function isLink(path: string): boolean {
-  try {
-    return lstatSync(path).isSymbolicLink();
-  } catch {
-    return false;
-  }
-}
 
 /** A system error in words: "permission denied (EACCES)". */
 export function systemReason(error: unknown): string {

@@ -86,14 +86,14 @@ describe('verify', () => {
   it('verifySite(copy) reports one changed byte in any kind of file, a missing file and an extra one', () => {
     for (const path of ['issues/2026-09/trends/index.html', 'issues/2026-11/card.png', 'feed.xml', 'issues/2026-10/revisions/1/data/bulletin-model.json']) {
       const copy = `${site}-verify-${path.replace(/\W/g, '-')}`;
-      cpSync(site, copy, { recursive: true });
+      cpSync(site, copy, { recursive: true, dereference: true });
       const bytes = readFileSync(join(copy, path));
       bytes[bytes.length >> 1] = (bytes[bytes.length >> 1] as number) ^ 1;
       writeFileSync(join(copy, path), bytes);
       expect(verifySite(copy).findings, path).toEqual([{ path, kind: 'changed' }]);
     }
     const copy = `${site}-verify-extra`;
-    cpSync(site, copy, { recursive: true });
+    cpSync(site, copy, { recursive: true, dereference: true });
     mkdirSync(join(copy, 'extra'));
     writeFileSync(join(copy, 'extra', 'note.txt'), 'x');
     expect(verifySite(copy).findings).toEqual([{ path: 'extra/note.txt', kind: 'unlisted' }]);
@@ -103,7 +103,7 @@ describe('verify', () => {
     const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
     expect(spawnSync(process.execPath, [cli, 'verify', site], { encoding: 'utf8' }).status).toBe(0);
     const copy = `${site}-verify-cli`;
-    cpSync(site, copy, { recursive: true });
+    cpSync(site, copy, { recursive: true, dereference: true });
     writeFileSync(join(copy, 'index.html'), `${readFileSync(join(copy, 'index.html'), 'utf8')} `);
     const changed = spawnSync(process.execPath, [cli, 'verify', copy], { encoding: 'utf8' });
     expect(changed.status).toBe(1);

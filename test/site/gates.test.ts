@@ -25,7 +25,7 @@ afterAll(async () => {
 /** A copy of the built site whose overview page has `edit` applied. */
 function brokenCopy(name: string, edit: (html: string) => string): string {
   const copy = `${site}-${name}`;
-  cpSync(site, copy, { recursive: true });
+  cpSync(site, copy, { recursive: true, dereference: true });
   const page = join(copy, 'issues', '2026-11', 'index.html');
   writeFileSync(page, edit(readFileSync(page, 'utf8')));
   return copy;

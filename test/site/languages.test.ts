@@ -122,8 +122,8 @@ describe('the French edition', () => {
 
   it('links the input files published once, beside the first language, from both languages', () => {
     const methods = read('fr/issues/2026-11/data-and-methods/index.html');
-    expect(methods).toContain('href="/issues/2026-11/data/inputs/data/water-bodies.csv"');
-    expect(existsSync(join(site, 'issues/2026-11/data/inputs/data/water-bodies.csv'))).toBe(true);
+    expect(methods).toContain('href="/issues/2026-11/data/inputs/water-bodies.csv"');
+    expect(existsSync(join(site, 'issues/2026-11/data/inputs/water-bodies.csv'))).toBe(true);
     expect(existsSync(join(site, 'fr/issues/2026-11/data/inputs'))).toBe(false);
     // Each language has its own model (its words) and manifest.
     expect(JSON.parse(read('fr/issues/2026-11/data/bulletin-model.json')).meta.locale).toBe('fr');
