@@ -335,3 +335,15 @@ describe('lesser items', () => {
     expect(long.stderr).toContain('more than the pairwise trend methods are run on');
   });
 });
+
+describe('root cause first', () => {
+  it('problems of the configuration, boundaries and inventory come before those they cause', async () => {
+    const { ProblemList } = await import('../../src/ingest/problems.ts');
+    const list = new ProblemList();
+    const base = { line: 2, column: '', value: '', expected: '' };
+    list.error({ ...base, code: 'unknown-body', file: 'area.csv', message: 'the water body is not in the inventory' });
+    list.error({ ...base, code: 'value-not-number', file: 'water-bodies.csv', message: 'the value is not a number' });
+    list.error({ ...base, code: 'config-invalid', file: 'bulletin.json', message: 'bad' });
+    expect(list.sorted().map((problem) => problem.file)).toEqual(['bulletin.json', 'water-bodies.csv', 'area.csv']);
+  });
+});
