@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
 import { InputError, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
-import { issueFolders, loadIssues } from './ingest/issues.ts';
+import { loadIssues } from './ingest/issues.ts';
 import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
@@ -125,10 +125,13 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
     return ms / 1000;
   };
 
-  const { folders } = issueFolders(options.bulletinFolder);
-  // Counted by issue only when there are several: with one, a count would sit at 0 % until the end.
-  progress.begin('1/5', `reading and checking the inputs of ${folders.length} issue(s)`, folders.length > 1 ? folders.length : undefined);
-  const read = await stage('reading the inputs', () => loadIssues(options.bulletinFolder, (k, _count, detail) => progress.advance(k, detail)));
+  const read = await stage('reading the inputs', () =>
+    loadIssues(options.bulletinFolder, {
+      // Counted by issue only when there are several: with one, a count would sit at 0 % until the end.
+      begin: (issues) => progress.begin('1/5', `reading and checking the inputs of ${issues} issue(s)`, issues > 1 ? issues : undefined),
+      advance: (k, detail) => progress.advance(k, detail),
+    }),
+  );
   const problems = read.problems;
   if (read.errors > 0) throw new InputError(problems);
   const loaded = read.issues.map(({ inputs, warnings }) => ({ inputs: inputs as BulletinInputs, warnings }));
@@ -148,20 +151,20 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   const models: BulletinModel[] = [];
   const localized: Array<{ model: BulletinModel; issue: number; inputsPath: string; firstLocale: string }> = [];
   await stage('computing the models', async () => {
-  for (const [k, { inputs, warnings: own }] of loaded.entries()) {
-    const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
-    progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
-    // The statistics are shared: the first language's model carries the figures, every other
-    // language reuses them and gets its own words, dates and numbers.
-    let first: BulletinModel | undefined;
-    for (const locale of inputs.config.locales) {
-      const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale, base: first });
-      localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
-      if (first === undefined) models.push((first = model));
+    for (const [k, { inputs, warnings: own }] of loaded.entries()) {
+      const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
+      progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
+      // The statistics are shared: the first language's model carries the figures, every other
+      // language reuses them and gets its own words, dates and numbers.
+      let first: BulletinModel | undefined;
+      for (const locale of inputs.config.locales) {
+        const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale, base: first });
+        localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
+        if (first === undefined) models.push((first = model));
+      }
+      // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
+      loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
     }
-    // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
-    loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
-  }
   });
   // The worker threads have done their part (reading, trend tests): their memory goes back now.
   await closeSharedPool();
@@ -181,7 +184,10 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   progress.end(`${chartTotal} charts`);
 
   progress.begin('4/5', 'rendering pages');
-  const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => ({ model, charts: chartSets[k] as ChartSet, content: (loaded[issue] as { inputs: BulletinInputs }).inputs.content, sources: (loaded[issue] as { inputs: BulletinInputs }).inputs.sources, inputsPath, siteLocale, firstLocale }));
+  const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => {
+    const { content, sources } = (loaded[issue] as { inputs: BulletinInputs }).inputs;
+    return { model, charts: chartSets[k] as ChartSet, content, sources, inputsPath, siteLocale, firstLocale };
+  });
   let site = { files: 0, pages: 0, bytes: 0 };
   await stage('writing the site', () =>
     target.publish(async (staging) => {

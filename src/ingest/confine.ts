@@ -35,10 +35,10 @@ export class ConfinementError extends Error {
   }
 }
 
-/** True when `inner` (a real path) is `root` or lies below it. */
+/** True when `inner` is `root` or lies below it (both absolute; a name such as `..notes` inside counts as inside). */
 export function isInside(root: string, inner: string): boolean {
   const rel = relative(root, inner);
-  return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel));
+  return rel === '' || (rel !== '..' && !rel.startsWith(`..${sep}`) && !isAbsolute(rel));
 }
 
 /** The real path of a bulletin folder (or site folder); throws when it does not exist. */

@@ -37,7 +37,7 @@ export interface InputFile {
   /** For a folder of Parquet partitions: each partition, relative to the folder. */
   parts?: Array<{ path: string; sha256: string; bytes: number }>;
   /** Where the site publishes it, below the issue's data/inputs/ (a fixed name per input). */
-  published?: string;
+  published: string;
 }
 
 export interface BulletinInputs {
@@ -67,7 +67,7 @@ export interface IngestResult {
  * `sha256sum` prints (one line per partition, "<hash>  <path>", sorted by path), so the listing can
  * be checked with standard tools; bytes are the partitions' total.
  */
-function hashFile(_root: string, path: string, full: string): InputFile {
+function hashFile(path: string, full: string): Omit<InputFile, 'published'> {
   if (!statSync(full).isDirectory()) return { path, ...sha256File(full) };
   const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part)) }));
   const listing = parts.map(({ part, sha256 }) => `${sha256}  ${part}\n`).join('');
@@ -131,12 +131,12 @@ export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (d
   const used = (Object.keys(PUBLISHED_NAMES) as Array<keyof typeof PUBLISHED_NAMES>).filter((key) => Boolean(paths[key]));
   onStep?.('input hashes');
   const files: InputFile[] = [
-    { ...hashFile(root, CONFIG_FILE, configPath), published: CONFIG_FILE },
+    { ...hashFile(CONFIG_FILE, configPath), published: CONFIG_FILE },
     ...used.map((key) => {
       const path = paths[key] as string;
       const source = at(path);
       const isFolder = statSync(source).isDirectory();
-      return { ...hashFile(root, path, source), published: publishedName(key, path, isFolder) };
+      return { ...hashFile(path, source), published: publishedName(key, path, isFolder) };
     }),
   ].sort((a, b) => a.path.localeCompare(b.path));
   const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));

@@ -37,20 +37,21 @@ export interface LoadedIssue {
  * both call this, so they report the same problems. Problems come sorted per issue, the current
  * issue last, followed by those that span issues (an issue archived twice, a linked archive entry).
  */
-export async function loadIssues(folder: string, onIssue?: (k: number, count: number, detail?: string) => void): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
+export async function loadIssues(folder: string, progress: { begin?: (count: number) => void; advance?: (k: number, detail?: string) => void } = {}): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
   const { folders, links } = issueFolders(folder);
+  progress.begin?.(folders.length);
   const issues: LoadedIssue[] = [];
   const problems: Problem[] = [];
   let errors = 0;
   let warnings = 0;
   for (const [k, issueFolder] of folders.entries()) {
     const prefix = relative(folder, issueFolder);
-    const result = await loadBulletin(issueFolder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => onIssue?.(k, folders.length, detail));
+    const result = await loadBulletin(issueFolder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => progress.advance?.(k, detail));
     problems.push(...result.problems.sorted());
     errors += result.problems.total.errors;
     warnings += result.problems.total.warnings;
     issues.push({ folder: issueFolder, inputs: result.inputs, warnings: result.problems.warnings });
-    onIssue?.(k + 1, folders.length);
+    progress.advance?.(k + 1);
   }
   const add = (problem: Problem) => {
     problems.push(problem);

@@ -85,7 +85,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
     revisions,
-    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.published ?? file.path}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.published ?? file.path}/${part.path}` })) })),
+    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.published}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.published}/${part.path}` })) })),
     t: messages,
     prefix,
     languages,
@@ -203,7 +203,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
     for (const input of bundle.model.inputs) {
       const source = bundle.sources[input.path] as string;
       // Under its fixed published name (a data extension), never the user's own path.
-      const target = join(outDir, inputsPath, 'data', 'inputs', input.published ?? input.path);
+      const target = join(outDir, inputsPath, 'data', 'inputs', input.published);
       // A folder of Parquet partitions is published as its partitions, the files its hash covers.
       const folder = statSync(source).isDirectory();
       for (const part of folder ? (input.parts ?? []) : [input]) {

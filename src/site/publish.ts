@@ -24,8 +24,8 @@ import { hostname, homedir } from 'node:os';
 import {
   existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, rmdirSync, statSync, symlinkSync, unlinkSync, writeFileSync, linkSync,
 } from 'node:fs';
-import { basename, dirname, join, resolve, sep } from 'node:path';
-import { isLink } from '../ingest/confine.ts';
+import { basename, dirname, join, resolve } from 'node:path';
+import { isInside, isLink } from '../ingest/confine.ts';
 
 const OLD_STAGING_MARK = '.limnopress-staging-';
 const OLD_RETIRED_MARK = '.limnopress-retired-';
@@ -67,7 +67,6 @@ function realish(path: string): string {
   return join(realpathSync(at), ...rest);
 }
 
-const within = (outer: string, inner: string) => inner === outer || inner.startsWith(outer.endsWith(sep) ? outer : `${outer}${sep}`);
 
 /** True when `dir` holds a site this tool published (its manifest says so). */
 function isOurSite(dir: string): boolean {
@@ -168,10 +167,10 @@ export function openTarget(outDir: string, options: { bulletinFolder?: string; f
   const parent = dirname(target);
   const name = basename(target);
   const forbidden: Array<[string, string]> = [['/', 'the root folder'], [realish(process.cwd()), 'the current folder'], [realish(homedir()), 'the home folder']];
-  for (const [path, what] of forbidden) if (within(real, path)) throw new PublishError(`--out ${outDir} is or holds ${what}; give a folder of its own for the site`);
+  for (const [path, what] of forbidden) if (isInside(real, path)) throw new PublishError(`--out ${outDir} is or holds ${what}; give a folder of its own for the site`);
   if (options.bulletinFolder !== undefined && existsSync(options.bulletinFolder)) {
     const bulletin = realpathSync(options.bulletinFolder);
-    if (within(real, bulletin) || within(bulletin, real)) throw new PublishError(`--out ${outDir} overlaps the bulletin folder ${options.bulletinFolder}; publish the site outside it`);
+    if (isInside(real, bulletin) || isInside(bulletin, real)) throw new PublishError(`--out ${outDir} overlaps the bulletin folder ${options.bulletinFolder}; publish the site outside it`);
   }
   const store = join(parent, `.${name}.limnopress`);
   let existing: ReturnType<typeof lstatSync> | null = null;

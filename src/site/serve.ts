@@ -7,7 +7,8 @@
  */
 import { readFileSync, realpathSync, statSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
-import { extname, join, normalize, relative, isAbsolute } from 'node:path';
+import { extname, join, normalize } from 'node:path';
+import { isInside } from '../ingest/confine.ts';
 
 const MIME: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.css': 'text/css; charset=utf-8', '.json': 'application/json', '.csv': 'text/csv; charset=utf-8',
@@ -32,10 +33,8 @@ function fileFor(base: string, pathname: string): string | null {
   if (decoded.includes('\0')) return null;
   try {
     let file = realpathSync(join(base, normalize(decoded)));
-    const rel = relative(base, file);
-    if (rel.startsWith('..') || isAbsolute(rel)) return null;
     if (statSync(file).isDirectory()) file = realpathSync(join(file, 'index.html'));
-    return statSync(file).isFile() && !relative(base, file).startsWith('..') ? file : null;
+    return isInside(base, file) && statSync(file).isFile() ? file : null;
   } catch {
     return null;
   }

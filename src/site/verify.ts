@@ -4,7 +4,8 @@
  * may stand in the site without being listed.
  */
 import { lstatSync, readFileSync, realpathSync } from 'node:fs';
-import { isAbsolute, join, relative } from 'node:path';
+import { join } from 'node:path';
+import { isInside } from '../ingest/confine.ts';
 import { z } from 'zod';
 import { listFiles, sha256File } from './files.ts';
 
@@ -47,8 +48,7 @@ export function verifySite(dir: string): { checked: number; findings: VerifyFind
       return;
     }
     // Only files of the site itself are read: a link (or a path) out of it is a finding, never followed.
-    const rel = relative(root, real);
-    if (rel.startsWith('..') || isAbsolute(rel) || lstatSync(full).isSymbolicLink() || !lstatSync(real).isFile()) findings.push({ path, kind: 'outside' });
+    if (!isInside(root, real) || lstatSync(full).isSymbolicLink() || !lstatSync(real).isFile()) findings.push({ path, kind: 'outside' });
     else if (sha256File(real).sha256 !== expected) findings.push({ path, kind: 'changed' });
   };
   for (const output of site.outputs) check(output.path, output.sha256);

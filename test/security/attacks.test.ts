@@ -347,3 +347,13 @@ describe('root cause first', () => {
     expect(list.sorted().map((problem) => problem.file)).toEqual(['bulletin.json', 'water-bodies.csv', 'area.csv']);
   });
 });
+
+describe('isInside', () => {
+  it('a name that starts with two dots is inside; .. and absolute paths out are not', async () => {
+    const { isInside } = await import('../../src/ingest/confine.ts');
+    expect(isInside('/srv/bulletin', '/srv/bulletin/..notes.csv')).toBe(true);
+    expect(isInside('/srv/bulletin', '/srv/bulletin')).toBe(true);
+    expect(isInside('/srv/bulletin', '/srv/bulletin-2/x.csv')).toBe(false);
+    expect(isInside('/srv/bulletin', '/srv')).toBe(false);
+  });
+});
