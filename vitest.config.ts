@@ -1,11 +1,17 @@
 import { defineConfig } from 'vitest/config';
 
 /**
- * Two projects. `site` holds the tests that read the example site built once by the global setup;
- * `unit` holds everything else and builds nothing up front, so a change can be tested in seconds
- * with `npm run test:unit` (or `npx vitest run --project unit test/...`).
+ * Three projects, each runnable alone:
+ * - `unit` (`npm run test:unit`): functions called in this process; no child process, no
+ *   bulletin built end to end, nothing built up front. The loop for a one-line change.
+ * - `system` (`npm run test:system`): the tool as a user runs it: the CLI in child processes,
+ *   small bulletins built and published, builds killed at every step, the worker pool on a
+ *   national-size inventory.
+ * - `site` (`npm run test:site`): the example built once by the global setup, then the gates.
+ * `npm test` runs all three.
  */
 const SITE_TESTS = ['test/site/archive.test.ts', 'test/site/languages.test.ts', 'test/site/gates.test.ts'];
+const SYSTEM_TESTS = ['test/security/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/site/publish.test.ts', 'test/render/escape.test.ts', 'test/model/pool.test.ts'];
 
 export default defineConfig({
   test: {
@@ -14,7 +20,8 @@ export default defineConfig({
     hookTimeout: 0,
     pool: 'forks',
     projects: [
-      { extends: true, test: { name: 'unit', include: ['test/**/*.test.ts'], exclude: SITE_TESTS } },
+      { extends: true, test: { name: 'unit', include: ['test/**/*.test.ts'], exclude: [...SITE_TESTS, ...SYSTEM_TESTS] } },
+      { extends: true, test: { name: 'system', include: SYSTEM_TESTS } },
       { extends: true, test: { name: 'site', include: SITE_TESTS, globalSetup: ['test/support/globalSetup.ts'] } },
     ],
   },

@@ -6,14 +6,15 @@ import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
-import { InputError, monthLabel, type BulletinInputs, type Problem } from './ingest/index.ts';
+import { InputError, type BulletinInputs, type Problem } from './ingest/index.ts';
+import { monthLabel } from './common/months.ts';
 import { loadIssues } from './ingest/issues.ts';
 import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
 import { lineProgress, seconds, silentProgress, type Progress } from './progress.ts';
-import { listFiles } from './site/files.ts';
+import { HashCache, listFiles } from './common/files.ts';
 
 export interface BuildOptions {
   bulletinFolder: string;
@@ -125,8 +126,11 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
     return ms / 1000;
   };
 
+  // The inputs' hashes, taken while reading them, so the site's copies need not be read again.
+  const hashes = new HashCache();
   const read = await stage('reading the inputs', () =>
     loadIssues(options.bulletinFolder, {
+      hashes,
       // Counted by issue only when there are several: with one, a count would sit at 0 % until the end.
       begin: (issues) => progress.begin('1/5', `reading and checking the inputs of ${issues} issue(s)`, issues > 1 ? issues : undefined),
       advance: (k, detail) => progress.advance(k, detail),
@@ -191,7 +195,7 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   let site = { files: 0, pages: 0, bytes: 0 };
   await stage('writing the site', () =>
     target.publish(async (staging) => {
-      await renderSite(bundles, staging);
+      await renderSite(bundles, staging, hashes);
       site = siteSize(staging);
       await pauseAt('pages', options.pause);
     }, options.pause),

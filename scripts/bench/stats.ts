@@ -95,8 +95,8 @@ for (const c of cases.filter((entry) => entry.n === 120)) {
     await run();
     return Number(process.hrtime.bigint() - start) / 1e9;
   };
-  await timeIt(() => parallelTrends(series.slice(0, 500), { seasonal: true }, { workers: 1 }));
-  const one = await timeIt(() => parallelTrends(series, { seasonal: true }, { workers: 1, batchSize: 250 }));
+  await timeIt(() => parallelTrends(series.slice(0, 500), { seasonal: true }));
+  const one = await timeIt(() => parallelTrends(series, { seasonal: true }, { batchSize: 250 }));
   const workers = Math.max(2, availableParallelism());
   const pool = new WorkerPool(workers);
   const startup = await timeIt(() => parallelTrends(series.slice(0, workers * 10), { seasonal: true }, { pool, batchSize: 10 }));

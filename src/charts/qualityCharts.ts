@@ -5,7 +5,7 @@ import type { QualityParameterSummary } from '../model/quality.ts';
 import { formatNumber } from '../text/format.ts';
 import { translator } from '../text/index.ts';
 import { GREY, OKABE_ITO, OUTLINE, YELLOW_GREEN_BLUE_5 } from './palettes.ts';
-import { monthLabel } from '../ingest/index.ts';
+import { monthLabel } from '../common/months.ts';
 import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const round = (value: number | null | undefined, digits = 2) => roundOrNull(value, digits);

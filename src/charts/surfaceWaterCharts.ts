@@ -4,7 +4,7 @@ import type { BulletinModel } from '../model/index.ts';
 import { translator } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
-import { monthLabel } from '../ingest/index.ts';
+import { monthLabel } from '../common/months.ts';
 import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const ENVELOPE = '#c6dbef';

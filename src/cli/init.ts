@@ -7,10 +7,11 @@
 import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { parseArgs } from 'node:util';
-import { CONFIG_FILE, formatProblem, loadBulletin, monthLabel, parseMonth } from '../ingest/index.ts';
+import { CONFIG_FILE, formatProblem, loadBulletin } from '../ingest/index.ts';
+import { monthLabel, parseMonth } from '../common/months.ts';
 import { isCalendarDate, LOCALES } from '../ingest/config.ts';
 import { ARCHIVE_FOLDER } from '../ingest/issues.ts';
-import { isLink } from '../ingest/confine.ts';
+import { isLink } from '../common/paths.ts';
 import { HELP, UsageError } from './usage.ts';
 
 const FOREWORD = `Write the foreword of this issue here, in Markdown. It appears at the top of the overview.

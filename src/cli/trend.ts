@@ -3,6 +3,7 @@ import { parseArgs } from 'node:util';
 import { InputError, ProblemList } from '../ingest/index.ts';
 import { readSeriesTable } from '../ingest/seriesTable.ts';
 import { parallelTrends } from '../model/parallelTrends.ts';
+import { closeSharedPool, sharedPool } from '../parallel/pool.ts';
 import type { TrendRow } from '../model/seriesTrends.ts';
 import { csvField } from '../text/csv.ts';
 import { HELP, UsageError } from './usage.ts';
@@ -59,7 +60,14 @@ export async function runTrend(args: string[]): Promise<number> {
     }
   }
   if (problems.errors.length > 0) throw new InputError(problems.sorted());
-  const rows = await parallelTrends(series.map((entry) => ({ key: entry.key, times: entry.times, months: entry.months, values: entry.values })), { seasonal: Boolean(values.seasonal), confidence, falseDiscoveryRate }, { ...(workers ? { workers } : {}) });
+  // The process's one pool (none with --workers 1), closed when the rows are in.
+  const pool = workers === 1 ? undefined : sharedPool(workers);
+  let rows;
+  try {
+    rows = await parallelTrends(series.map((entry) => ({ key: entry.key, times: entry.times, months: entry.months, values: entry.values })), { seasonal: Boolean(values.seasonal), confidence, falseDiscoveryRate }, { pool });
+  } finally {
+    await closeSharedPool();
+  }
 
   const labelled = rows.map((row, k) => ({ ...row, changePointTime: row.changePointIndex >= 0 ? (series[k]?.labels[row.changePointIndex] ?? '') : '' }));
   if (values.format === 'json') {

@@ -4,7 +4,7 @@
  * marker (NaN, null) that the table reader uses to drop the row; the row's other cells are still
  * checked, so one pass reports everything.
  */
-import { parseMonth } from './months.ts';
+import { parseMonth } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
 
 export type DecimalMark = '.' | ',';

@@ -6,6 +6,7 @@
  */
 import { lstatSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { isAbsolute, join, relative, sep } from 'node:path';
+import { isInside } from '../common/paths.ts';
 
 /** Longest relative path accepted in a configuration, in characters. */
 export const MAX_PATH_LENGTH = 1024;
@@ -33,17 +34,6 @@ export class ConfinementError extends Error {
     super(message);
     this.name = 'ConfinementError';
   }
-}
-
-/** True when `inner` is `root` or lies below it (both absolute; a name such as `..notes` inside counts as inside). */
-export function isInside(root: string, inner: string): boolean {
-  const rel = relative(root, inner);
-  return rel === '' || (rel !== '..' && !rel.startsWith(`..${sep}`) && !isAbsolute(rel));
-}
-
-/** The real path of a bulletin folder (or site folder); throws when it does not exist. */
-export function realRoot(folder: string): string {
-  return realpathSync(folder);
 }
 
 /**
@@ -95,13 +85,4 @@ export function listRegularFiles(dir: string): { files: string[]; links: string[
   };
   walk(dir);
   return { files, links };
-}
-
-/** True when `path` is a symbolic link (not followed). */
-export function isLink(path: string): boolean {
-  try {
-    return lstatSync(path).isSymbolicLink();
-  } catch {
-    return false;
-  }
 }

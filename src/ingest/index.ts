@@ -3,14 +3,15 @@
  * and one list of problems. Nothing here computes a statistic.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, readFileSync, statSync } from 'node:fs';
-import { ConfinementError, isLink, realRoot, resolveInside } from './confine.ts';
-import { sha256File } from '../site/files.ts';
+import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
+import { ConfinementError, resolveInside } from './confine.ts';
+import { isLink } from '../common/paths.ts';
+import { HashCache, sha256File } from '../common/files.ts';
 import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
-import { monthLabel, parseMonth, yearOf } from './months.ts';
+import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
 import {
   readDistributionBins, readField, readInventory, readQuality, readRainfall, readSurfaceArea,
@@ -22,7 +23,6 @@ export type { SubRegion } from './geojson.ts';
 export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tables.ts';
 export { QUALITY_PARAMETERS } from './tables.ts';
 export { describeFound, InputError, formatProblem, problemPlace, ProblemList, type Problem } from './problems.ts';
-export { monthLabel, parseMonth, calendarMonthOf, yearOf } from './months.ts';
 
 export const CONFIG_FILE = 'bulletin.json';
 
@@ -67,9 +67,9 @@ export interface IngestResult {
  * `sha256sum` prints (one line per partition, "<hash>  <path>", sorted by path), so the listing can
  * be checked with standard tools; bytes are the partitions' total.
  */
-function hashFile(path: string, full: string): Omit<InputFile, 'published'> {
-  if (!statSync(full).isDirectory()) return { path, ...sha256File(full) };
-  const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part)) }));
+function hashFile(path: string, full: string, hashes: HashCache): Omit<InputFile, 'published'> {
+  if (!statSync(full).isDirectory()) return { path, ...sha256File(full, hashes) };
+  const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part), hashes) }));
   const listing = parts.map(({ part, sha256 }) => `${sha256}  ${part}\n`).join('');
   return { path, sha256: createHash('sha256').update(listing).digest('hex'), bytes: parts.reduce((sum, part) => sum + part.bytes, 0), parts: parts.map(({ part, sha256, bytes }) => ({ path: part, sha256, bytes })) };
 }
@@ -78,13 +78,23 @@ function hashFile(path: string, full: string): Omit<InputFile, 'published'> {
  * Reads and checks everything; `inputs` is null when any error was found. `labelPrefix` goes in
  * front of every file name in problems (for archived issues: "archive/2026-10/").
  */
-export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (detail: string) => void): Promise<IngestResult> {
+export interface LoadOptions {
+  /** Put before every file name in problems (an archived issue's folder, e.g. `archive/2026-10/`). */
+  labelPrefix?: string;
+  /** Told each step (the input being read). */
+  onStep?: (detail: string) => void;
+  /** Where the inputs' hashes are remembered, so render copies them without reading them again. */
+  hashes?: HashCache;
+}
+
+export async function loadBulletin(folder: string, options: LoadOptions = {}): Promise<IngestResult> {
+  const { labelPrefix = '', onStep, hashes = new HashCache() } = options;
   const problems = new ProblemList();
   const configLabel = `${labelPrefix}${CONFIG_FILE}`;
   let root: string;
   let configPath: string;
   try {
-    root = realRoot(folder);
+    root = realpathSync(folder);
     configPath = resolveInside(root, CONFIG_FILE, 'config');
   } catch (error) {
     const expected = error instanceof ConfinementError ? error.expected : 'a bulletin folder holding bulletin.json';
@@ -131,12 +141,12 @@ export async function loadBulletin(folder: string, labelPrefix = '', onStep?: (d
   const used = (Object.keys(PUBLISHED_NAMES) as Array<keyof typeof PUBLISHED_NAMES>).filter((key) => Boolean(paths[key]));
   onStep?.('input hashes');
   const files: InputFile[] = [
-    { ...hashFile(CONFIG_FILE, configPath), published: CONFIG_FILE },
+    { ...hashFile(CONFIG_FILE, configPath, hashes), published: CONFIG_FILE },
     ...used.map((key) => {
       const path = paths[key] as string;
       const source = at(path);
       const isFolder = statSync(source).isDirectory();
-      return { ...hashFile(path, source), published: publishedName(key, path, isFolder) };
+      return { ...hashFile(path, source, hashes), published: publishedName(key, path, isFolder) };
     }),
   ].sort((a, b) => a.path.localeCompare(b.path));
   const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));

@@ -6,7 +6,9 @@
  */
 import { existsSync, lstatSync, readdirSync } from 'node:fs';
 import { join, relative } from 'node:path';
-import { CONFIG_FILE, loadBulletin, monthLabel, type BulletinInputs, type Problem } from './index.ts';
+import type { HashCache } from '../common/files.ts';
+import { CONFIG_FILE, loadBulletin, type BulletinInputs, type Problem } from './index.ts';
+import { monthLabel } from '../common/months.ts';
 
 export const ARCHIVE_FOLDER = 'archive';
 
@@ -37,7 +39,7 @@ export interface LoadedIssue {
  * both call this, so they report the same problems. Problems come sorted per issue, the current
  * issue last, followed by those that span issues (an issue archived twice, a linked archive entry).
  */
-export async function loadIssues(folder: string, progress: { begin?: (count: number) => void; advance?: (k: number, detail?: string) => void } = {}): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
+export async function loadIssues(folder: string, progress: { begin?: (count: number) => void; advance?: (k: number, detail?: string) => void; hashes?: HashCache } = {}): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
   const { folders, links } = issueFolders(folder);
   progress.begin?.(folders.length);
   const issues: LoadedIssue[] = [];
@@ -46,7 +48,7 @@ export async function loadIssues(folder: string, progress: { begin?: (count: num
   let warnings = 0;
   for (const [k, issueFolder] of folders.entries()) {
     const prefix = relative(folder, issueFolder);
-    const result = await loadBulletin(issueFolder, prefix ? `${prefix.split('\\').join('/')}/` : '', (detail) => progress.advance?.(k, detail));
+    const result = await loadBulletin(issueFolder, { labelPrefix: prefix ? `${prefix.split('\\').join('/')}/` : '', onStep: (detail) => progress.advance?.(k, detail), hashes: progress.hashes });
     problems.push(...result.problems.sorted());
     errors += result.problems.total.errors;
     warnings += result.problems.total.warnings;

@@ -10,8 +10,9 @@ import { createHash } from 'node:crypto';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { sharedPool } from '../parallel/pool.ts';
 import { SeenBits } from './columns.ts';
-import { plainHeader, scanRange, type ScanColumns, type ScanInventory, type ScanKind, type ScanResult, type ScanTask } from './plainScan.ts';
-import { FIRST_MONTH, QUALITY_PARAMETERS, type AreaTable, type QualityTable, type ReadContext, type WaterBody } from './tables.ts';
+import { plainHeader, SCAN, scanRange, type ScanColumns, type ScanInventory, type ScanKind, type ScanResult, type ScanTask } from './plainScan.ts';
+import { QUALITY_PARAMETERS, type AreaTable, type QualityTable, type ReadContext, type WaterBody } from './tableTypes.ts';
+import { FIRST_MONTH } from '../common/months.ts';
 
 /** Files above this size are scanned in parallel; smaller ones in this thread. */
 const PARALLEL_BYTES = 24 << 20;
@@ -60,7 +61,7 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
     context.onStep?.(`${name}: part ${scanned} of ${tasks.length}`);
     return result;
   };
-  const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run('scan', { task, inventory }).then(report))) : tasks.map((task) => report(scanRange(task, inventory)));
+  const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run(SCAN, { task, inventory }).then(report))) : tasks.map((task) => report(scanRange(task, inventory)));
   if (results.some((result) => !result.ok)) return null;
   const parts = results as Array<Extract<ScanResult, { ok: true }>>;
   const rows = parts.reduce((sum, part) => sum + part.rows, 0);

@@ -18,7 +18,8 @@
  */
 import { closeSync, openSync, readSync } from 'node:fs';
 import { GrowableFloat64, GrowableInt32 } from './columns.ts';
-import { FIRST_MONTH } from './months.ts';
+import { FIRST_MONTH } from '../common/months.ts';
+import { defineTask } from '../parallel/pool.ts';
 
 const COMMA = 44;
 const NEWLINE = 10;
@@ -96,6 +97,13 @@ const PARAMETER = 2;
 const UNIT = 3;
 /** Numbers: ROLE_NUMBER + k is the k-th number column of the table (see numberColumns). */
 const ROLE_NUMBER = 4;
+
+/** One byte range of a large table on a worker thread (see largeTables.ts). */
+export function scanTask(input: { task: ScanTask; inventory: ScanInventory }): ScanResult {
+  return scanRange(input.task, input.inventory);
+}
+
+export const SCAN = defineTask<Parameters<typeof scanTask>[0], ScanResult>(import.meta.url, 'scanTask');
 
 /**
  * Scans one byte range of a large table. Each row is read once, field by field: the parsers

@@ -6,98 +6,17 @@
 import { slugOf } from '../text/slug.ts';
 import { isolateBidi } from '../text/bidi.ts';
 import { MAX_ID_LENGTH, MAX_NAME_LENGTH } from './geojson.ts';
-import { CellReader, type DecimalMark } from './cells.ts';
+import { CellReader } from './cells.ts';
 import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
 import { readTable } from './csv.ts';
 import { readAreaFast, readQualityFast } from './largeTables.ts';
-import { FIRST_MONTH, monthLabel } from './months.ts';
+
+export { QUALITY_PARAMETERS, QUALITY_UNITS, type AreaTable, type DistributionBin, type FieldRecord, type QualityParameter, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody } from './tableTypes.ts';
+import { FIRST_MONTH, monthLabel } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
+import { QUALITY_PARAMETERS, QUALITY_UNITS, type AreaTable, type DistributionBin, type FieldRecord, type QualityParameter, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody } from './tableTypes.ts';
 
-export interface WaterBody {
-  id: string;
-  name: string;
-  subRegionId: string;
-  lon: number;
-  lat: number;
-  referenceHa: number;
-  kind: string;
-  ownPage: boolean;
-  /** Line in the inventory file. */
-  line: number;
-}
 
-/** Surface area by body and month, one entry per row, as columns. */
-export interface AreaTable {
-  length: number;
-  /** Position of the body in the inventory. */
-  body: Int32Array;
-  month: Int32Array;
-  waterHa: Float64Array;
-  observedShare: Float64Array;
-  scenes: Float64Array;
-}
-
-export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
-export type QualityParameter = (typeof QUALITY_PARAMETERS)[number];
-/** Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). */
-export const QUALITY_UNITS: Record<QualityParameter, string[]> = {
-  chlorophyll_a: ['ug/L', 'µg/L', 'μg/L', 'mg/m3', 'mg/m³'],
-  turbidity: ['FNU'],
-};
-
-export interface QualityTable {
-  length: number;
-  body: Int32Array;
-  month: Int32Array;
-  /** Index into QUALITY_PARAMETERS. */
-  parameter: Int32Array;
-  /**
-   * The body's median for the month. The other percentiles and valid_pixels are checked (range,
-   * order) but not kept: nothing downstream reads them, and at national scale they would cost
-   * about 40 bytes a row.
-   */
-  median: Float64Array;
-}
-
-export interface RainfallRecord {
-  subRegionId: string;
-  month: number;
-  rainfallMm: number;
-  line: number;
-}
-
-export interface FieldRecord {
-  bodyId: string;
-  body: number;
-  /** Days since 1970-01-01. */
-  day: number;
-  month: number;
-  parameter: QualityParameter;
-  value: number;
-  line: number;
-}
-
-export interface DistributionBin {
-  subRegionId: string;
-  month: number;
-  parameter: QualityParameter;
-  lower: number;
-  upper: number;
-  count: number;
-  line: number;
-}
-
-export interface ReadContext {
-  problems: ProblemList;
-  bulletinMonth: number;
-  decimal: DecimalMark | 'auto';
-  /** false: always the general reader (tests compare the two paths). Default true. */
-  fastPath?: boolean;
-  /** Told what is being read, for progress on the terminal. */
-  onStep?: (detail: string) => void;
-}
-
-export { FIRST_MONTH } from './months.ts';
 
 const spec = (required: string[], optional: string[] = []) => [...required.map((name) => ({ name, required: true })), ...optional.map((name) => ({ name, required: false }))];
 

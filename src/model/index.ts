@@ -4,7 +4,8 @@
  * written out in that language). The model is written out as JSON beside the site, one per language.
  */
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
-import { calendarMonthOf, monthLabel, QUALITY_PARAMETERS } from '../ingest/index.ts';
+import { QUALITY_PARAMETERS } from '../ingest/index.ts';
+import { calendarMonthOf, monthLabel } from '../common/months.ts';
 import { formatMessage, loadMessages } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
 import { aggregate, statusMonths } from './aggregate.ts';

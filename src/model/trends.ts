@@ -15,7 +15,7 @@ import type { BulletinConfig } from '../ingest/index.ts';
 import { benjaminiHochberg, hamedRao, kruskalWallis, median, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
 import { OBSERVED, type BodySeries } from './bodySeries.ts';
 import type { GroupMonth } from './aggregate.ts';
-import type { WorkerPool } from '../parallel/pool.ts';
+import { defineTask, type WorkerPool } from '../parallel/pool.ts';
 
 export type TrendMethod = 'seasonal-kendall' | 'seasonal-kendall-covariance' | 'mann-kendall-hamed-rao';
 
@@ -145,7 +145,7 @@ export async function manyTrendTests(firstMonth: number, months: number, count: 
       next = Math.min(count, from + BATCH);
       const size = next - from;
       const values = rows(from, next); // moved to the thread: empty here afterwards
-      results[from / BATCH] = await pool.run('trendTests', { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]);
+      results[from / BATCH] = await pool.run(TREND_TESTS, { firstMonth, months, values, trends }, [values.buffer as ArrayBuffer]);
       onBatch?.(size);
     }
   };
@@ -182,6 +182,9 @@ export interface EncodedTests {
   slopePerYear: Float64Array;
   p: Float64Array;
 }
+
+/** encodedTestBatch on a worker thread. */
+const TREND_TESTS = defineTask<Parameters<typeof encodedTestBatch>[0], EncodedTests>(import.meta.url, 'encodedTestBatch');
 
 /** The worker side: a batch of series, tested and encoded. */
 export function encodedTestBatch(input: { firstMonth: number; months: number; values: Float64Array; trends: TrendSettings }): EncodedTests {

@@ -1,12 +1,32 @@
 /**
  * One pool of worker threads for the whole build, shared by the stages that split their work
  * (reading the large tables, the trend tests), so each thread pays its start-up (loading the
- * TypeScript sources, about a second here) once. Tasks go to the first idle thread; results come
- * back as the task's promise. Idle threads do not keep the process alive.
+ * TypeScript sources, about a second here) once. The pool knows no stage: a stage declares a task
+ * with `defineTask(import.meta.url, 'exportName')` beside the function, and a worker imports that
+ * module and calls the export. Tasks go to the first idle thread; results come back as the task's
+ * promise. Idle threads do not keep the process alive.
  */
 import { availableParallelism } from 'node:os';
 import { Worker, type Transferable } from 'node:worker_threads';
-import type { TaskName, TaskInput, TaskOutput } from './tasks.ts';
+
+/**
+ * A function a worker thread can run: the module that exports it and its export name. `I` and `O`
+ * are its input and output types (checked where the task is run; the function itself is checked
+ * against them by `defineTask`'s caller with `satisfies TaskFunction<I, O>`).
+ */
+export interface Task<I, O> {
+  readonly module: string;
+  readonly name: string;
+  /** Never set: carries the types. */
+  readonly types?: (input: I) => O;
+}
+
+export type TaskFunction<I, O> = (input: I) => O;
+
+/** The task that calls export `name` of the module at `moduleUrl` (pass `import.meta.url`). */
+export function defineTask<I, O>(moduleUrl: string, name: string): Task<I, O> {
+  return { module: moduleUrl, name };
+}
 
 interface Pending {
   resolve: (value: unknown) => void;
@@ -18,18 +38,26 @@ interface Slot {
   busy: boolean;
 }
 
+interface Queued {
+  id: number;
+  module: string;
+  name: string;
+  input: unknown;
+  transfer: Transferable[];
+}
+
 export class WorkerPool {
   private readonly slots: Slot[] = [];
-  private readonly queue: Array<{ id: number; name: TaskName; input: unknown; transfer: Transferable[] }> = [];
+  private readonly queue: Queued[] = [];
   private readonly pending = new Map<number, Pending>();
   private nextId = 0;
 
   constructor(readonly size = defaultWorkers()) {}
 
-  run<N extends TaskName>(name: N, input: TaskInput<N>, transfer: Transferable[] = []): Promise<TaskOutput<N>> {
+  run<I, O>(task: Task<I, O>, input: I, transfer: Transferable[] = []): Promise<O> {
     const id = this.nextId++;
-    const promise = new Promise<TaskOutput<N>>((resolve, reject) => this.pending.set(id, { resolve: resolve as (value: unknown) => void, reject }));
-    this.queue.push({ id, name, input, transfer });
+    const promise = new Promise<O>((resolve, reject) => this.pending.set(id, { resolve: resolve as (value: unknown) => void, reject }));
+    this.queue.push({ id, module: task.module, name: task.name, input, transfer });
     this.dispatch();
     return promise;
   }
@@ -44,10 +72,10 @@ export class WorkerPool {
       let slot = this.slots.find((candidate) => !candidate.busy);
       if (!slot && this.slots.length < this.size) slot = this.spawn();
       if (!slot) return;
-      const task = this.queue.shift() as (typeof this.queue)[number];
+      const task = this.queue.shift() as Queued;
       slot.busy = true;
       slot.worker.ref();
-      slot.worker.postMessage({ id: task.id, name: task.name, input: task.input }, task.transfer);
+      slot.worker.postMessage({ id: task.id, module: task.module, name: task.name, input: task.input }, task.transfer);
     }
   }
 
@@ -79,9 +107,9 @@ export function defaultWorkers(): number {
 
 let shared: WorkerPool | null = null;
 
-/** The process's pool, started on first use. */
-export function sharedPool(): WorkerPool {
-  shared ??= new WorkerPool();
+/** The process's pool, started on first use with `size` threads (default: the machine's cores, at most 8). */
+export function sharedPool(size?: number): WorkerPool {
+  shared ??= new WorkerPool(size);
   return shared;
 }
 

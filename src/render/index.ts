@@ -4,7 +4,7 @@
  * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
 import { mkdirSync, statSync, writeFileSync } from 'node:fs';
-import { copyHashed } from '../site/files.ts';
+import { copyHashed, HashCache } from '../common/files.ts';
 import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
@@ -13,18 +13,12 @@ import type { ChartSet } from '../charts/index.ts';
 import type { BulletinModel } from '../model/index.ts';
 import { fillMessage, formatMessage, loadMessages } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
-import { prefixOf, siteFiles, siteLocales, siteUrl } from './siteFiles.ts';
+import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
 
-export { prefixOf } from './siteFiles.ts';
+export { prefixOf, type SiteFile } from './siteFiles.ts';
 import { bodyView, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
-
-export interface SiteFile {
-  /** Path inside the site folder, forward slashes. */
-  path: string;
-  content: string | Buffer;
-}
 
 export interface IssueBundle {
   model: BulletinModel;
@@ -158,7 +152,7 @@ export function siteData(issues: IssueData[], siteLocale?: string) {
   return { ...root, sites };
 }
 
-export async function renderSite(bundles: IssueBundle[], outDir: string): Promise<void> {
+export async function renderSite(bundles: IssueBundle[], outDir: string, hashes: HashCache = new HashCache()): Promise<void> {
   const write = (file: SiteFile) => {
     const target = join(outDir, file.path);
     mkdirSync(dirname(target), { recursive: true });
@@ -192,11 +186,19 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
   // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
   eleventy.disableLogger();
   await eleventy.write();
-  // Hashes of the copied inputs (known from reading them, or taken while copying): the manifests need not read them again.
+  const known = copyInputs(bundles, outDir, hashes);
+  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known, site.locale)) write(file);
+}
+
+/**
+ * Every input table, as published, for download: once per issue, beside its first language's pages.
+ * Returns the hashes of the copies by site path (known from reading them, or taken while copying),
+ * so the manifests need not read them again.
+ */
+function copyInputs(bundles: IssueBundle[], outDir: string, hashes: HashCache): Map<string, string> {
   const known = new Map<string, string>();
   const published = new Set<string>();
   for (const bundle of bundles) {
-    // Every input table, as published, for download: once per issue, beside its first language's pages.
     const inputsPath = bundle.inputsPath ?? bundle.model.meta.issuePath;
     if (published.has(inputsPath)) continue;
     published.add(inputsPath);
@@ -209,14 +211,14 @@ export async function renderSite(bundles: IssueBundle[], outDir: string): Promis
       for (const part of folder ? (input.parts ?? []) : [input]) {
         const to = folder ? join(target, part.path) : target;
         mkdirSync(dirname(to), { recursive: true });
-        const sha256 = copyHashed(folder ? join(source, part.path) : source, to);
+        const sha256 = copyHashed(folder ? join(source, part.path) : source, to, hashes);
         // The bytes published must be the bytes read: an input changed during the build stops it.
         if (sha256 !== part.sha256) throw new Error(`${input.path}${folder ? `/${part.path}` : ''} changed while the bulletin was being built; build again`);
         known.set(relative(outDir, to).split(sep).join('/'), sha256);
       }
     }
   }
-  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known, site.locale)) write(file);
+  return known;
 }
 
 /** Inventories larger than this get their model JSON written without indentation. */

@@ -5,12 +5,17 @@
  * covers every other file. `limnopress verify` checks a site against them.
  */
 import { join } from 'node:path';
-import { listFiles, sha256, sha256File } from '../site/files.ts';
+import { listFiles, sha256, sha256File } from '../common/files.ts';
 import { escapeXml } from '../text/escape.ts';
 import type { BulletinModel } from '../model/index.ts';
-import type { SiteFile } from './index.ts';
 
 export const MANIFEST = 'manifest.json';
+
+export interface SiteFile {
+  /** Path inside the site folder, forward slashes. */
+  path: string;
+  content: string | Buffer;
+}
 
 /** Path prefix of a language: '' for the site's first language, '/<locale>' for the others. */
 export function prefixOf(locale: string, siteLocale: string): string {

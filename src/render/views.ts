@@ -3,7 +3,7 @@
  * tables and short lists that the templates only place. No figure is computed here.
  */
 import { slugOf } from '../text/slug.ts';
-import { parseMonth } from '../ingest/index.ts';
+import { parseMonth } from '../common/months.ts';
 import type { BulletinModel, GroupSurface, Status } from '../model/index.ts';
 import { evidenceFor } from '../model/evidence.ts';
 import type { TrendEntry } from '../model/trends.ts';

@@ -25,7 +25,7 @@ import {
   existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, rmdirSync, statSync, symlinkSync, unlinkSync, writeFileSync, linkSync,
 } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { isInside, isLink } from '../ingest/confine.ts';
+import { isInside, isLink } from '../common/paths.ts';
 
 const OLD_STAGING_MARK = '.limnopress-staging-';
 const OLD_RETIRED_MARK = '.limnopress-retired-';

@@ -5,9 +5,9 @@
  */
 import { lstatSync, readFileSync, realpathSync } from 'node:fs';
 import { join } from 'node:path';
-import { isInside } from '../ingest/confine.ts';
+import { isInside } from '../common/paths.ts';
 import { z } from 'zod';
-import { listFiles, sha256File } from './files.ts';
+import { listFiles, sha256File } from '../common/files.ts';
 
 export interface VerifyFinding {
   path: string;

@@ -1,4 +1,5 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+import { WorkerPool } from '../../src/parallel/pool.ts';
 import { parallelTrends } from '../../src/model/parallelTrends.ts';
 import { trendTable, type TrendSeries } from '../../src/model/seriesTrends.ts';
 
@@ -11,11 +12,16 @@ function series(count: number, years: number): TrendSeries[] {
   });
 }
 
+const pool = new WorkerPool(2);
+afterAll(() => pool.close());
+
 describe('parallelTrends', () => {
-  it('parallelTrends(series, 2 workers) gives exactly the rows of trendTable in input order', async () => {
+  it('parallelTrends(series, a pool of 2) gives exactly the rows of trendTable in input order', async () => {
     const input = series(40, 6);
     const sequential = trendTable(input, { seasonal: true });
-    const parallel = await parallelTrends(input, { seasonal: true }, { workers: 2, batchSize: 7 });
+    let done = 0;
+    const parallel = await parallelTrends(input, { seasonal: true }, { pool, batchSize: 7, onProgress: (count) => (done = count) });
+    expect(done).toBe(40); // the batches really went through the pool's progress path
     expect(parallel).toEqual(sequential);
     expect(parallel.map((row) => row.series)).toEqual(input.map((entry) => entry.key));
   });

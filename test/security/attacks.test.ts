@@ -350,7 +350,7 @@ describe('root cause first', () => {
 
 describe('isInside', () => {
   it('a name that starts with two dots is inside; .. and absolute paths out are not', async () => {
-    const { isInside } = await import('../../src/ingest/confine.ts');
+    const { isInside } = await import('../../src/common/paths.ts');
     expect(isInside('/srv/bulletin', '/srv/bulletin/..notes.csv')).toBe(true);
     expect(isInside('/srv/bulletin', '/srv/bulletin')).toBe(true);
     expect(isInside('/srv/bulletin', '/srv/bulletin-2/x.csv')).toBe(false);

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { build } from '../../src/build.ts';
 import { renderMarkdown } from '../../src/render/markdown.ts';
-import { listFiles } from '../../src/site/files.ts';
+import { listFiles } from '../../src/common/files.ts';
 import { checkLinks } from '../support/gates.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 

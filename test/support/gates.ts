@@ -13,8 +13,8 @@ import { chromium, type Browser } from 'playwright-core';
 
 export const CHROMIUM_PATH = process.env.LIMNOPRESS_CHROMIUM ?? '/usr/bin/chromium';
 
-export { listFiles } from '../../src/site/files.ts';
-import { listFiles, sha256 } from '../../src/site/files.ts';
+export { listFiles } from '../../src/common/files.ts';
+import { listFiles, sha256 } from '../../src/common/files.ts';
 
 export function treeHashes(dir: string): Record<string, string> {
   const hashes: Record<string, string> = {};

@@ -1,4 +1,8 @@
-/** Walking a built site: its files as sorted relative paths with forward slashes, and their hashes. */
+/**
+ * Files and their hashes, for every stage: a folder's files as sorted relative paths with forward
+ * slashes, SHA-256 of a file read in pieces, and copies that hash what they write. Nothing here is
+ * shared between calls except through a HashCache the caller owns and passes.
+ */
 import { createHash } from 'node:crypto';
 import { closeSync, copyFileSync, lstatSync, openSync, readdirSync, readSync, statSync, writeSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
@@ -20,14 +24,32 @@ export function listFiles(dir: string): string[] {
 export const sha256 = (bytes: Buffer | string) => createHash('sha256').update(bytes).digest('hex');
 
 /**
- * Hashes taken in this process, by path, with the size, modification time and inode the file had
- * then: a file unchanged since (all three equal, the test make and rsync rely on) need not be read
- * again to know its hash.
+ * Hashes already taken, by path, with the size, modification time and inode the file had then: a
+ * file unchanged since (all three equal, the test make and rsync rely on) need not be read again to
+ * know its hash. One build owns one cache (ingest fills it, render reads it); nothing is kept
+ * process-wide.
  */
-const hashed = new Map<string, { sha256: string; size: number; mtimeMs: number; ino: number }>();
+export class HashCache {
+  private readonly hashed = new Map<string, { sha256: string; size: number; mtimeMs: number; ino: number }>();
 
-/** SHA-256 and size of a file read in 8 MB pieces, so a file of gigabytes is never held whole. */
-export function sha256File(path: string): { sha256: string; bytes: number } {
+  /** The hash of `path` when it was taken from the same file, unchanged since. */
+  known(path: string): string | null {
+    const entry = this.hashed.get(path);
+    if (!entry) return null;
+    const stat = statSync(path);
+    return entry.size === stat.size && entry.mtimeMs === stat.mtimeMs && entry.ino === stat.ino ? entry.sha256 : null;
+  }
+
+  remember(path: string, sha256: string, stat: { size: number; mtimeMs: number; ino: number }): void {
+    this.hashed.set(path, { sha256, size: stat.size, mtimeMs: stat.mtimeMs, ino: stat.ino });
+  }
+}
+
+/**
+ * SHA-256 and size of a file read in 8 MB pieces, so a file of gigabytes is never held whole. With a
+ * cache, the hash is remembered when the file did not change while it was read.
+ */
+export function sha256File(path: string, cache?: HashCache): { sha256: string; bytes: number } {
   const before = statSync(path);
   const hash = createHash('sha256');
   const handle = openSync(path, 'r');
@@ -43,21 +65,20 @@ export function sha256File(path: string): { sha256: string; bytes: number } {
   }
   const sha256 = hash.digest('hex');
   const after = statSync(path);
-  if (after.size === before.size && after.mtimeMs === before.mtimeMs) hashed.set(path, { sha256, size: after.size, mtimeMs: after.mtimeMs, ino: after.ino });
+  if (cache && after.size === before.size && after.mtimeMs === before.mtimeMs) cache.remember(path, sha256, after);
   return { sha256, bytes };
 }
 
 /**
- * Copies a file and returns the SHA-256 of what was written: a file hashed earlier in this process
- * and unchanged since is copied by the system (its hash is known), any other is copied and hashed
- * in one read (copyWithHash).
+ * Copies a file and returns the SHA-256 of what was written: a file the cache hashed and unchanged
+ * since is copied by the system (its hash is known), any other is copied and hashed in one read
+ * (copyWithHash).
  */
-export function copyHashed(source: string, target: string): string {
-  const known = hashed.get(source);
-  const stat = statSync(source);
-  if (known && known.size === stat.size && known.mtimeMs === stat.mtimeMs && known.ino === stat.ino) {
+export function copyHashed(source: string, target: string, cache: HashCache): string {
+  const known = cache.known(source);
+  if (known !== null) {
     copyFileSync(source, target);
-    return known.sha256;
+    return known;
   }
   return copyWithHash(source, target);
 }
