@@ -11,7 +11,13 @@ import { defineConfig } from 'vitest/config';
  * `npm test` runs all three.
  */
 const SITE_TESTS = ['test/site/archive.test.ts', 'test/site/languages.test.ts', 'test/site/gates.test.ts'];
-const SYSTEM_TESTS = ['test/security/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/site/publish.test.ts', 'test/render/escape.test.ts', 'test/model/pool.test.ts'];
+const SYSTEM_TESTS = [
+  'test/security/**/*.test.ts',
+  'test/cli/**/*.test.ts',
+  'test/site/publish.test.ts',
+  'test/render/escape.test.ts',
+  'test/model/pool.test.ts',
+];
 
 export default defineConfig({
   test: {

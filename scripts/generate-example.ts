@@ -26,7 +26,6 @@ const FIRST_YEAR = 2018;
 const LAST_MONTH = '2026-11';
 const DRY_SPELL_FROM = '2024-12';
 
-
 const random = mulberry32(SEED);
 const uniform = (low: number, high: number) => low + (high - low) * random();
 function normal(): number {
@@ -37,7 +36,13 @@ function normal(): number {
 }
 const pick = <T>(items: readonly T[]): T => items[Math.floor(random() * items.length)] as T;
 
-interface SubRegion { id: string; name: string; west: number; east: number; rainFactor: number }
+interface SubRegion {
+  id: string;
+  name: string;
+  west: number;
+  east: number;
+  rainFactor: number;
+}
 const SOUTH = -31.0;
 const NORTH = -29.0;
 const SUB_REGIONS: SubRegion[] = [
@@ -55,14 +60,41 @@ const SIZE_PLAN: Array<[number, number, number]> = [
   [10_000, 40_000, 5],
 ];
 
-const NAME_STARTS = ['Tav', 'Bris', 'Mel', 'Orn', 'Quel', 'Sav', 'Dun', 'Ferr', 'Hal', 'Ysk', 'Lorv', 'Pell', 'Crand', 'Wex', 'Arn', 'Gell'];
+const NAME_STARTS = [
+  'Tav',
+  'Bris',
+  'Mel',
+  'Orn',
+  'Quel',
+  'Sav',
+  'Dun',
+  'Ferr',
+  'Hal',
+  'Ysk',
+  'Lorv',
+  'Pell',
+  'Crand',
+  'Wex',
+  'Arn',
+  'Gell',
+];
 const NAME_ENDS = ['enne', 'olt', 'ara', 'ith', 'usk', 'omere', 'avel', 'ick', 'orra', 'elby', 'anth', 'ide'];
 const KIND_WORDS: Record<string, string> = { reservoir: 'Reservoir', lake: 'Lake', pond: 'Pond' };
 
 interface Body {
-  id: string; name: string; subRegion: SubRegion; lon: number; lat: number; referenceHa: number;
-  kind: string; ownPage: boolean; baseFill: number; seasonalAmplitude: number; declining: boolean;
-  chlorophyllBase: number; turbidityBase: number;
+  id: string;
+  name: string;
+  subRegion: SubRegion;
+  lon: number;
+  lat: number;
+  referenceHa: number;
+  kind: string;
+  ownPage: boolean;
+  baseFill: number;
+  seasonalAmplitude: number;
+  declining: boolean;
+  chlorophyllBase: number;
+  turbidityBase: number;
 }
 
 function makeBodies(): Body[] {
@@ -75,9 +107,17 @@ function makeBodies(): Body[] {
       const subRegion = SUB_REGIONS[index % 3] as SubRegion;
       // Log-uniform area within the class keeps small classes from bunching at their top.
       const referenceHa = Math.exp(uniform(Math.log(low), Math.log(high)));
-      const kind = referenceHa > 100 ? (random() < 0.7 ? 'reservoir' : 'lake') : referenceHa > 10 ? pick(['reservoir', 'lake']) : pick(['lake', 'pond']);
+      const kind =
+        referenceHa > 100
+          ? random() < 0.7
+            ? 'reservoir'
+            : 'lake'
+          : referenceHa > 10
+            ? pick(['reservoir', 'lake'])
+            : pick(['lake', 'pond']);
       let stem = '';
-      do stem = pick(NAME_STARTS) + pick(NAME_ENDS); while (usedNames.has(`${stem}${kind}`));
+      do stem = pick(NAME_STARTS) + pick(NAME_ENDS);
+      while (usedNames.has(`${stem}${kind}`));
       usedNames.add(`${stem}${kind}`);
       const name = kind === 'lake' ? `Lake ${stem}` : `${stem} ${KIND_WORDS[kind]}`;
       bodies.push({
@@ -170,7 +210,18 @@ function main(): void {
 
   const inventory = ['body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page'];
   for (const body of bodies) {
-    inventory.push([body.id, body.name, body.subRegion.id, fixed(body.lon, 5), fixed(body.lat, 5), fixed(body.referenceHa, 2), body.kind, body.ownPage ? 'yes' : 'no'].join(','));
+    inventory.push(
+      [
+        body.id,
+        body.name,
+        body.subRegion.id,
+        fixed(body.lon, 5),
+        fixed(body.lat, 5),
+        fixed(body.referenceHa, 2),
+        body.kind,
+        body.ownPage ? 'yes' : 'no',
+      ].join(','),
+    );
   }
 
   const area = ['body_id,month,water_area_ha,observed_share,scenes'];
@@ -218,7 +269,8 @@ function main(): void {
       const chlorophyll = satelliteChlorophyll.get(`${body.id} ${label}`);
       const turbidity = satelliteTurbidity.get(`${body.id} ${label}`);
       // Field values scatter around the satellite estimate with a small positive bias.
-      if (chlorophyll !== undefined) field.push(`${body.id},${date},chlorophyll_a,${fixed(chlorophyll * 1.08 * Math.exp(0.2 * normal()), 2)},ug/L`);
+      if (chlorophyll !== undefined)
+        field.push(`${body.id},${date},chlorophyll_a,${fixed(chlorophyll * 1.08 * Math.exp(0.2 * normal()), 2)},ug/L`);
       if (turbidity !== undefined) field.push(`${body.id},${date},turbidity,${fixed(turbidity * 0.95 * Math.exp(0.25 * normal()), 2)},FNU`);
     }
   }
@@ -238,18 +290,38 @@ function main(): void {
   write('field-measurements.csv', field);
   writeFileSync(join(outDir, 'subregions.geojson'), `${geojson}\n`);
   if (outIndex < 0) writeArchive(join('example-bulletin'), { inventory, area, quality, rainfall: rain.rows, field }, geojson);
-  process.stdout.write(`wrote ${bodies.length} water bodies, ${area.length - 1} surface-area rows, ${quality.length - 1} quality rows and ${field.length - 1} field measurements to ${outDir}\n`);
-  process.stdout.write(`declining reservoirs: ${bodies.filter((body) => body.declining).map((body) => body.id).join(' ')}\n`);
+  process.stdout.write(
+    `wrote ${bodies.length} water bodies, ${area.length - 1} surface-area rows, ${quality.length - 1} quality rows and ${field.length - 1} field measurements to ${outDir}\n`,
+  );
+  process.stdout.write(
+    `declining reservoirs: ${bodies
+      .filter((body) => body.declining)
+      .map((body) => body.id)
+      .join(' ')}\n`,
+  );
 }
 
-interface Tables { inventory: string[]; area: string[]; quality: string[]; rainfall: string[]; field: string[] }
+interface Tables {
+  inventory: string[];
+  area: string[];
+  quality: string[];
+  rainfall: string[];
+  field: string[];
+}
 
 /** Rows of a table whose month column (or date) is at most `month` (YYYY-MM); the header stays. */
 function upTo(rows: string[], column: number, month: string): string[] {
   return rows.filter((row, k) => k === 0 || (row.split(',')[column] ?? '').slice(0, 7) <= month);
 }
 
-const ARCHIVE: Array<{ folder: string; month: string; published: string; revision: number; corrections: Array<{ date: string; text: string; translations?: Record<string, string> }>; tenfold?: string }> = [
+const ARCHIVE: Array<{
+  folder: string;
+  month: string;
+  published: string;
+  revision: number;
+  corrections: Array<{ date: string; text: string; translations?: Record<string, string> }>;
+  tenfold?: string;
+}> = [
   { folder: '2026-09', month: '2026-09', published: '2026-10-02', revision: 1, corrections: [] },
   { folder: '2026-10-r1', month: '2026-10', published: '2026-11-03', revision: 1, corrections: [], tenfold: 'WB079,2026-10,' },
   {
@@ -261,14 +333,18 @@ const ARCHIVE: Array<{ folder: string; month: string; published: string; revisio
       {
         date: '2026-11-10',
         text: 'The October 2026 water area of water body WB079 had been entered ten times too large. All figures of this issue are recomputed with the corrected value.',
-        translations: { fr: 'La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande. Tous les chiffres de ce numéro sont recalculés avec la valeur corrigée.' },
+        translations: {
+          fr: 'La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande. Tous les chiffres de ce numéro sont recalculés avec la valeur corrigée.',
+        },
       },
     ],
   },
 ];
 
 function writeArchive(root: string, tables: Tables, geojson: string): void {
-  const config = JSON.parse(readFileSync(join(root, 'bulletin.json'), 'utf8')) as Record<string, unknown> & { issue: Record<string, unknown> };
+  const config = JSON.parse(readFileSync(join(root, 'bulletin.json'), 'utf8')) as Record<string, unknown> & {
+    issue: Record<string, unknown>;
+  };
   rmSync(join(root, 'archive'), { recursive: true, force: true });
   for (const issue of ARCHIVE) {
     const folder = join(root, 'archive', issue.folder);
@@ -289,7 +365,10 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
     write('rainfall.csv', upTo(tables.rainfall, 1, issue.month));
     write('field-measurements.csv', upTo(tables.field, 1, issue.month));
     writeFileSync(join(folder, 'data', 'subregions.geojson'), `${geojson}\n`);
-    const issueConfig = { ...config, issue: { ...config.issue, month: issue.month, published: issue.published, revision: issue.revision, corrections: issue.corrections } };
+    const issueConfig = {
+      ...config,
+      issue: { ...config.issue, month: issue.month, published: issue.published, revision: issue.revision, corrections: issue.corrections },
+    };
     writeFileSync(join(folder, 'bulletin.json'), `${JSON.stringify(issueConfig, null, 2)}\n`);
   }
 }
@@ -300,9 +379,22 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
  */
 function boundaryRing(subRegion: SubRegion): number[][] {
   const wobble = (x: number) => Math.round(0.06 * Math.sin(x * 7.3) * 1e5) / 1e5;
-  const edge = (lon: number) => [0, 1, 2, 3, 4].map((k) => [Math.round((lon + wobble(k + lon)) * 1e5) / 1e5, SOUTH + ((NORTH - SOUTH) * k) / 4]);
-  const westEdge = subRegion.west === -20.0 ? [[-20.0, SOUTH], [-20.0, NORTH]] : edge(subRegion.west);
-  const eastEdge = subRegion.east === -17.5 ? [[-17.5, SOUTH], [-17.5, NORTH]] : edge(subRegion.east);
+  const edge = (lon: number) =>
+    [0, 1, 2, 3, 4].map((k) => [Math.round((lon + wobble(k + lon)) * 1e5) / 1e5, SOUTH + ((NORTH - SOUTH) * k) / 4]);
+  const westEdge =
+    subRegion.west === -20.0
+      ? [
+          [-20.0, SOUTH],
+          [-20.0, NORTH],
+        ]
+      : edge(subRegion.west);
+  const eastEdge =
+    subRegion.east === -17.5
+      ? [
+          [-17.5, SOUTH],
+          [-17.5, NORTH],
+        ]
+      : edge(subRegion.east);
   // South-east → north-east → north-west → south-west and back: counter-clockwise.
   const ring = [...eastEdge, ...[...westEdge].reverse()] as number[][];
   ring.push([...(ring[0] as number[])]);

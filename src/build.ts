@@ -156,13 +156,20 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   const localized: Array<{ model: BulletinModel; issue: number; inputsPath: string; firstLocale: string }> = [];
   await stage('computing the models', async () => {
     for (const [k, { inputs, warnings: own }] of loaded.entries()) {
-      const prepared = await prepareModel(inputs, sharedPool(), (done) => progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`));
+      const prepared = await prepareModel(inputs, sharedPool(), (done) =>
+        progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`),
+      );
       progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
       // The statistics are shared: the first language's model carries the figures, every other
       // language reuses them and gets its own words, dates and numbers.
       let first: BulletinModel | undefined;
       for (const locale of inputs.config.locales) {
-        const model = buildModel(inputs, own, toolVersion(), { issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`, prepared, locale, base: first });
+        const model = buildModel(inputs, own, toolVersion(), {
+          issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`,
+          prepared,
+          locale,
+          base: first,
+        });
         localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
         if (first === undefined) models.push((first = model));
       }
@@ -203,17 +210,36 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   lap('pages');
   progress.end(`${count(site.pages)} pages, ${count(site.files)} files`);
   progress.note(`5/5 published to ${options.outDir}: ${count(site.pages)} pages, ${count(site.files)} files, ${megabytes(site.bytes)}`);
-  progress.note(`time: ${times.map(([stage, ms]) => `${stage} ${seconds(ms)}`).join(', ')}; total ${seconds(times.reduce((sum, [, ms]) => sum + ms, 0))}`);
-  const stats: BuildStats = { times: Object.fromEntries(times.map(([stage, ms]) => [stage, ms / 1000])), rows, series: seriesTotal, charts: chartTotal, ...site };
+  progress.note(
+    `time: ${times.map(([stage, ms]) => `${stage} ${seconds(ms)}`).join(', ')}; total ${seconds(times.reduce((sum, [, ms]) => sum + ms, 0))}`,
+  );
+  const stats: BuildStats = {
+    times: Object.fromEntries(times.map(([stage, ms]) => [stage, ms / 1000])),
+    rows,
+    series: seriesTotal,
+    charts: chartTotal,
+    ...site,
+  };
   return { model: models[models.length - 1] as BulletinModel, issues: models, warnings, outDir: options.outDir, stats };
 }
 
-const EMPTY_AREA: BulletinInputs['area'] = { length: 0, body: new Int32Array(0), month: new Int32Array(0), waterHa: new Float64Array(0), observedShare: new Float64Array(0), scenes: new Float64Array(0) };
+const EMPTY_AREA: BulletinInputs['area'] = {
+  length: 0,
+  body: new Int32Array(0),
+  month: new Int32Array(0),
+  waterHa: new Float64Array(0),
+  observedShare: new Float64Array(0),
+  scenes: new Float64Array(0),
+};
 
 /** Files, HTML pages and bytes of a built site. */
 function siteSize(dir: string): { files: number; pages: number; bytes: number } {
   const files = listFiles(dir);
-  return { files: files.length, pages: files.filter((path) => path.endsWith('.html')).length, bytes: files.reduce((sum, path) => sum + statSync(join(dir, path)).size, 0) };
+  return {
+    files: files.length,
+    pages: files.filter((path) => path.endsWith('.html')).length,
+    bytes: files.reduce((sum, path) => sum + statSync(join(dir, path)).size, 0),
+  };
 }
 
 const count = (value: number) => Math.round(value).toLocaleString('en');

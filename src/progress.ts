@@ -67,7 +67,9 @@ export function barProgress(stream: WriteStream): Progress {
       drawn = now;
       const width = Math.max(10, Math.min(30, (stream.columns ?? 80) - name.length - 30));
       const share = total ? Math.min(1, done / total) : 0;
-      const bar = total ? `[${'#'.repeat(Math.round(share * width)).padEnd(width, '-')}] ${String(Math.floor(share * 100)).padStart(3)} %` : '';
+      const bar = total
+        ? `[${'#'.repeat(Math.round(share * width)).padEnd(width, '-')}] ${String(Math.floor(share * 100)).padStart(3)} %`
+        : '';
       const line = `${name} ${bar} ${detail ?? ''}`;
       clear();
       stream.write(line.slice(0, (stream.columns ?? 80) - 1));

@@ -29,7 +29,7 @@ async function generate(): Promise<void> {
   const out = createWriteStream(path);
   out.write('body_id,month,water_area_ha,observed_share,scenes\n');
   let state = 12345;
-  const random = () => ((state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 4294967296);
+  const random = () => (state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 4294967296;
   let chunk = '';
   let written = 0;
   for (let month = FIRST_MONTH; month < FIRST_MONTH + MONTHS && written < ROWS; month++) {
@@ -49,11 +49,25 @@ async function generate(): Promise<void> {
 }
 
 if (!existsSync(path)) await generate();
-const bodies: WaterBody[] = Array.from({ length: BODIES }, (_, k) => ({ id: id(k), name: id(k), subRegionId: 'R', lon: 0, lat: 0, referenceHa: 100, kind: 'lake', ownPage: false, line: k + 2 }));
+const bodies: WaterBody[] = Array.from({ length: BODIES }, (_, k) => ({
+  id: id(k),
+  name: id(k),
+  subRegionId: 'R',
+  lon: 0,
+  lat: 0,
+  referenceHa: 100,
+  kind: 'lake',
+  ownPage: false,
+  line: k + 2,
+}));
 const problems = new ProblemList();
 const before = process.memoryUsage().rss;
 const start = process.hrtime.bigint();
-const table = await readSurfaceArea(path, 'surface-area.csv', bodies, { problems, bulletinMonth: FIRST_MONTH + MONTHS - 1, decimal: 'auto' });
+const table = await readSurfaceArea(path, 'surface-area.csv', bodies, {
+  problems,
+  bulletinMonth: FIRST_MONTH + MONTHS - 1,
+  decimal: 'auto',
+});
 const seconds = Number(process.hrtime.bigint() - start) / 1e9;
 const peakMb = process.resourceUsage().maxRSS / 1024;
 const { errors, warnings } = problems.total;

@@ -37,7 +37,18 @@ const SOUTH = -42;
 const NORTH = -36;
 const WEST = -140;
 const STRIP = 2; // degrees of longitude per sub-region
-const SUB_REGIONS = ['Tavelmoor', 'Briskenfold', 'Quellith Plain', 'Savorra Downs', 'Dunavel Reach', 'Ferrick Uplands', 'Halanth Marsh', 'Yskelby Vale', 'Lorvide Coast', 'Pellomere Flats'].map((name, k) => ({ id: `SR${String(k + 1).padStart(2, '0')}`, name, west: WEST + k * STRIP }));
+const SUB_REGIONS = [
+  'Tavelmoor',
+  'Briskenfold',
+  'Quellith Plain',
+  'Savorra Downs',
+  'Dunavel Reach',
+  'Ferrick Uplands',
+  'Halanth Marsh',
+  'Yskelby Vale',
+  'Lorvide Coast',
+  'Pellomere Flats',
+].map((name, k) => ({ id: `SR${String(k + 1).padStart(2, '0')}`, name, west: WEST + k * STRIP }));
 const STARTS = ['Tav', 'Bris', 'Mel', 'Orn', 'Quel', 'Sav', 'Dun', 'Ferr', 'Hal', 'Ysk', 'Lorv', 'Pell', 'Crand', 'Wex', 'Arn', 'Gell'];
 const ENDS = ['enne', 'olt', 'ara', 'ith', 'usk', 'omere', 'avel', 'ick', 'orra', 'elby', 'anth', 'ide'];
 
@@ -78,7 +89,18 @@ export function generateNational(folder: string, options: NationalOptions): Nati
   const features = SUB_REGIONS.map((region) => ({
     type: 'Feature',
     properties: { subregion_id: region.id, name: region.name },
-    geometry: { type: 'Polygon', coordinates: [[[region.west, SOUTH], [region.west + STRIP, SOUTH], [region.west + STRIP, NORTH], [region.west, NORTH], [region.west, SOUTH]]] },
+    geometry: {
+      type: 'Polygon',
+      coordinates: [
+        [
+          [region.west, SOUTH],
+          [region.west + STRIP, SOUTH],
+          [region.west + STRIP, NORTH],
+          [region.west, NORTH],
+          [region.west, SOUTH],
+        ],
+      ],
+    },
   }));
   writeFileSync(join(folder, 'data', 'subregions.geojson'), `${JSON.stringify({ type: 'FeatureCollection', features })}\n`);
 
@@ -99,7 +121,9 @@ export function generateNational(folder: string, options: NationalOptions): Nati
     const name = `${STARTS[Math.floor(random() * STARTS.length)]}${ENDS[Math.floor(random() * ENDS.length)]} ${kind[0]?.toUpperCase()}${kind.slice(1)} ${k + 1}`;
     const lon = region.west + 0.05 + random() * (STRIP - 0.1);
     const lat = SOUTH + 0.05 + random() * (NORTH - SOUTH - 0.1);
-    inventory.write(`${id},${name},${region.id},${lon.toFixed(5)},${lat.toFixed(5)},${referenceHa.toFixed(2)},${kind},${random() < 0.02 ? 'yes' : 'no'}\n`);
+    inventory.write(
+      `${id},${name},${region.id},${lon.toFixed(5)},${lat.toFixed(5)},${referenceHa.toFixed(2)},${kind},${random() < 0.02 ? 'yes' : 'no'}\n`,
+    );
 
     const baseFill = 0.6 + 0.35 * random();
     const amplitude = 0.05 + 0.15 * random();
@@ -139,22 +163,47 @@ export function generateNational(folder: string, options: NationalOptions): Nati
     issue: { month: label(BULLETIN_MONTH), revision: 1, published: '2026-12-03', draft: false },
     baseline: { firstYear: Math.floor(firstMonth / 12) + 1, lastYear: Math.floor(firstMonth / 12) + 5, minYears: 3 },
     coverage: { minObservedShare: 0.6, minRegionCoverage: 0.5 },
-    statusBands: [{ key: 'much-lower', fromPercent: null }, { key: 'lower', fromPercent: 75 }, { key: 'near', fromPercent: 90 }, { key: 'higher', fromPercent: 110 }, { key: 'much-higher', fromPercent: 125 }],
+    statusBands: [
+      { key: 'much-lower', fromPercent: null },
+      { key: 'lower', fromPercent: 75 },
+      { key: 'near', fromPercent: 90 },
+      { key: 'higher', fromPercent: 110 },
+      { key: 'much-higher', fromPercent: 125 },
+    ],
     site: { baseUrl: 'https://bench.example.org/' },
     locales: ['en'],
-    quality: { seasons: [{ key: 'dry', months: [6, 7, 8, 9] }, { key: 'wet', months: [11, 12, 1, 2, 3] }] },
-    inputs: { inventory: 'data/water-bodies.csv', surfaceArea: 'data/surface-area.csv', quality: 'data/water-quality.csv', boundaries: 'data/subregions.geojson' },
+    quality: {
+      seasons: [
+        { key: 'dry', months: [6, 7, 8, 9] },
+        { key: 'wet', months: [11, 12, 1, 2, 3] },
+      ],
+    },
+    inputs: {
+      inventory: 'data/water-bodies.csv',
+      surfaceArea: 'data/surface-area.csv',
+      quality: 'data/water-quality.csv',
+      boundaries: 'data/subregions.geojson',
+    },
   };
   writeFileSync(join(folder, 'bulletin.json'), `${JSON.stringify(config, null, 2)}\n`);
   return { bodies: options.bodies, months: options.months, areaRows, qualityRows, bytes: inventory.bytes + area.bytes + quality.bytes };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const { values } = parseArgs({ options: { out: { type: 'string' }, bodies: { type: 'string', default: '100000' }, months: { type: 'string', default: '120' }, help: { type: 'boolean', short: 'h' } } });
+  const { values } = parseArgs({
+    options: {
+      out: { type: 'string' },
+      bodies: { type: 'string', default: '100000' },
+      months: { type: 'string', default: '120' },
+      help: { type: 'boolean', short: 'h' },
+    },
+  });
   if (values.help || !values.out) {
     process.stdout.write('Usage: tsx scripts/bench/national.ts --out <folder> [--bodies 100000] [--months 120]\n');
     process.exit(values.help ? 0 : 2);
   }
   const summary = generateNational(values.out, { bodies: Number(values.bodies), months: Number(values.months) });
-  process.stdout.write(`${summary.bodies} bodies, ${summary.areaRows} surface-area rows, ${summary.qualityRows} quality rows, ${(summary.bytes / 1e6).toFixed(0)} MB in ${values.out}\n`);
+  process.stdout.write(
+    `${summary.bodies} bodies, ${summary.areaRows} surface-area rows, ${summary.qualityRows} quality rows, ${(summary.bytes / 1e6).toFixed(0)} MB in ${values.out}\n`,
+  );
 }

@@ -27,14 +27,17 @@ const LOOP_SERIES = 300;
 const REPEATS = 3;
 const LENGTHS = [48, 120, 240];
 
-
 function makeCase(n: number) {
   const random = mulberry32(1000 + n);
   const months = Float64Array.from({ length: n }, (_, k) => 2010 * 12 + k);
   const times = Float64Array.from(months, (month) => month / 12);
   const values = Array.from({ length: SERIES }, () => {
     const trend = (random() - 0.5) * 0.04;
-    return Float64Array.from(months, (month, k) => (random() < 0.05 ? Number.NaN : Math.round(10 * (trend * k + Math.cos((2 * Math.PI * (month % 12)) / 12) + (random() + random() + random() - 1.5))) / 10));
+    return Float64Array.from(months, (month, k) =>
+      random() < 0.05
+        ? Number.NaN
+        : Math.round(10 * (trend * k + Math.cos((2 * Math.PI * (month % 12)) / 12) + (random() + random() + random() - 1.5))) / 10,
+    );
   });
   return { n, months, times, values };
 }
@@ -59,7 +62,22 @@ process.stdout.write(`bench:stats: ${SERIES} series per length, ${availableParal
 for (const c of cases) {
   // Warm-up so the JIT has compiled the hot loops before timing.
   for (let k = 0; k < 200; k++) fullSet(c.months, c.times, c.values[k % SERIES] as Float64Array);
-  const out = { s: [], varianceS: [], z: [], p: [], pUncorrected: [], tau: [], slope: [], lower: [], upper: [], seasonalS: [], seasonalVarianceS: [], seasonalZ: [], seasonalP: [], seasonalSlope: [] } as Record<string, Array<number | null>>;
+  const out = {
+    s: [],
+    varianceS: [],
+    z: [],
+    p: [],
+    pUncorrected: [],
+    tau: [],
+    slope: [],
+    lower: [],
+    upper: [],
+    seasonalS: [],
+    seasonalVarianceS: [],
+    seasonalZ: [],
+    seasonalP: [],
+    seasonalSlope: [],
+  } as Record<string, Array<number | null>>;
   // Best of REPEATS passes over the same series (the Python side does the same): the machine's
   // other work only ever adds time, so the fastest pass is the fairest figure for both.
   let seconds = Infinity;
@@ -70,16 +88,27 @@ for (const c of cases) {
     seconds = Math.min(seconds, Number(process.hrtime.bigint() - start) / 1e9);
   }
   for (const { mk, sen, seasonal } of computed) {
-    out.s!.push(mk.s); out.varianceS!.push(mk.varianceS); out.z!.push(nullable(mk.z)); out.p!.push(nullable(mk.p));
-    out.pUncorrected!.push(nullable(mk.pUncorrected)); out.tau!.push(nullable(mk.tau));
-    out.slope!.push(nullable(sen.slope)); out.lower!.push(nullable(sen.lower)); out.upper!.push(nullable(sen.upper));
-    out.seasonalS!.push(seasonal.s); out.seasonalVarianceS!.push(seasonal.varianceS); out.seasonalZ!.push(nullable(seasonal.z));
-    out.seasonalP!.push(nullable(seasonal.p)); out.seasonalSlope!.push(nullable(seasonal.slope));
+    out.s!.push(mk.s);
+    out.varianceS!.push(mk.varianceS);
+    out.z!.push(nullable(mk.z));
+    out.p!.push(nullable(mk.p));
+    out.pUncorrected!.push(nullable(mk.pUncorrected));
+    out.tau!.push(nullable(mk.tau));
+    out.slope!.push(nullable(sen.slope));
+    out.lower!.push(nullable(sen.lower));
+    out.upper!.push(nullable(sen.upper));
+    out.seasonalS!.push(seasonal.s);
+    out.seasonalVarianceS!.push(seasonal.varianceS);
+    out.seasonalZ!.push(nullable(seasonal.z));
+    out.seasonalP!.push(nullable(seasonal.p));
+    out.seasonalSlope!.push(nullable(seasonal.slope));
   }
   results[String(c.n)] = out;
   const rate = SERIES / seconds;
   singleRates.set(c.n, rate);
-  lines.push(`n=${String(c.n).padStart(3)}  TypeScript, one core: ${rate.toFixed(0).padStart(8)} series/s  (${((seconds / SERIES) * 1e6).toFixed(1)} µs a series)`);
+  lines.push(
+    `n=${String(c.n).padStart(3)}  TypeScript, one core: ${rate.toFixed(0).padStart(8)} series/s  (${((seconds / SERIES) * 1e6).toFixed(1)} µs a series)`,
+  );
 }
 lines.forEach((line) => process.stdout.write(`${line}\n`));
 
@@ -113,14 +142,33 @@ if (!havePython) {
 } else {
   const dataPath = join(work, 'data.json');
   const resultPath = join(work, 'typescript.json');
-  writeFileSync(dataPath, JSON.stringify({ repeats: REPEATS, cases: cases.map((c) => ({ n: c.n, times: Array.from(c.times), loopSeries: LOOP_SERIES, values: c.values.map((v) => Array.from(v, nullable)) })) }));
+  writeFileSync(
+    dataPath,
+    JSON.stringify({
+      repeats: REPEATS,
+      cases: cases.map((c) => ({
+        n: c.n,
+        times: Array.from(c.times),
+        loopSeries: LOOP_SERIES,
+        values: c.values.map((v) => Array.from(v, nullable)),
+      })),
+    }),
+  );
   writeFileSync(resultPath, JSON.stringify(results));
-  const run = spawnSync('python3', [join(import.meta.dirname, 'stats_python.py'), dataPath, resultPath], { encoding: 'utf8', maxBuffer: 1 << 26 });
+  const run = spawnSync('python3', [join(import.meta.dirname, 'stats_python.py'), dataPath, resultPath], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 26,
+  });
   if (run.status !== 0) {
     process.stderr.write(run.stderr);
     process.exit(1);
   }
-  const report = JSON.parse(run.stdout) as Array<{ n: number; scipyLoopSeriesPerSecond: number; numpySeriesPerSecond: number; worstRelativeDifference: Record<string, number> }>;
+  const report = JSON.parse(run.stdout) as Array<{
+    n: number;
+    scipyLoopSeriesPerSecond: number;
+    numpySeriesPerSecond: number;
+    worstRelativeDifference: Record<string, number>;
+  }>;
   let agree = true;
   for (const entry of report) {
     const rate = singleRates.get(entry.n) as number;
@@ -134,7 +182,9 @@ if (!havePython) {
   const at120 = report.find((entry) => entry.n === 120);
   if (at120) {
     const rate = singleRates.get(120) as number;
-    process.stdout.write(`targets at n=120: scipy loop ratio ${(rate / at120.scipyLoopSeriesPerSecond).toFixed(1)}× (target ≥ 50×), numpy ratio ${(rate / at120.numpySeriesPerSecond).toFixed(2)}× (target ≥ 2×)\n`);
+    process.stdout.write(
+      `targets at n=120: scipy loop ratio ${(rate / at120.scipyLoopSeriesPerSecond).toFixed(1)}× (target ≥ 50×), numpy ratio ${(rate / at120.numpySeriesPerSecond).toFixed(2)}× (target ≥ 2×)\n`,
+    );
   }
   process.stdout.write(agree ? 'results agree to 1e-9 relative\n' : 'RESULTS DISAGREE: see the worst relative differences above\n');
   if (!agree) process.exitCode = 1;

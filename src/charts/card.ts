@@ -11,7 +11,6 @@ import { CHART_FONT, OKABE_ITO } from './palettes.ts';
 export const CARD_WIDTH = 1200;
 export const CARD_HEIGHT = 630;
 
-
 /** Greedy line breaking by an average glyph width (0.55 em for DejaVu Sans, measured by eye: common practice). */
 function wrap(text: string, size: number, width: number): string[] {
   const perLine = Math.max(10, Math.floor(width / (size * 0.55)));
@@ -37,7 +36,8 @@ export function cardSvg(model: BulletinModel): string {
   // The status words on up to two lines (French ones are longer); the figure moves up to make room.
   const wordLines = wrap(words, 40, 1080).slice(0, 2);
   const lift = (wordLines.length - 1) * 48;
-  const text = (x: number, y: number, size: number, content: string, weight = 'normal', fill = '#1a1a1a') => `<text x="${x}" y="${y}" font-family="${CHART_FONT}" font-size="${size}" font-weight="${weight}" fill="${fill}">${escapeXml(content)}</text>`;
+  const text = (x: number, y: number, size: number, content: string, weight = 'normal', fill = '#1a1a1a') =>
+    `<text x="${x}" y="${y}" font-family="${CHART_FONT}" font-size="${size}" font-weight="${weight}" fill="${fill}">${escapeXml(content)}</text>`;
   return [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${CARD_WIDTH}" height="${CARD_HEIGHT}" viewBox="0 0 ${CARD_WIDTH} ${CARD_HEIGHT}">`,
     `<rect width="${CARD_WIDTH}" height="${CARD_HEIGHT}" fill="#ffffff"/>`,

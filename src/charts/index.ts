@@ -4,7 +4,15 @@ import { cardSvg } from './card.ts';
 import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
 import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';
 import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from './render.ts';
-import { anomalyBarsChart, rainfallChart, regionalSeriesChart, sameMonthChart, sizeClassChart, sparklineChart, subRegionChart } from './surfaceWaterCharts.ts';
+import {
+  anomalyBarsChart,
+  rainfallChart,
+  regionalSeriesChart,
+  sameMonthChart,
+  sizeClassChart,
+  sparklineChart,
+  subRegionChart,
+} from './surfaceWaterCharts.ts';
 
 export type { RenderedChart, DataTable } from './render.ts';
 
@@ -28,7 +36,11 @@ export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
     gridMapChart(model),
     subRegionMapChart(model),
     bodiesMapChart(model),
-    ...quality.flatMap((parameter) => [distributionChart(model, parameter), medianTrendChart(model, parameter), sizeClassQuantileChart(model, parameter)]),
+    ...quality.flatMap((parameter) => [
+      distributionChart(model, parameter),
+      medianTrendChart(model, parameter),
+      sizeClassQuantileChart(model, parameter),
+    ]),
     trophicChart(model),
     ...model.validation.map((_, k) => validationChart(model, k)),
   ].filter((chart): chart is ChartDefinition => chart !== null);
@@ -48,7 +60,9 @@ export async function buildCharts(model: BulletinModel, onChart?: (id: string) =
   }
   const sparklines: Record<string, string> = {};
   for (const body of model.monitored) {
-    sparklines[body.id] = (await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false, locale: model.meta.locale })).svg;
+    sparklines[body.id] = (
+      await renderChart(sparklineChart(model, body.body, body.filling, body.firstMonth), { png: false, locale: model.meta.locale })
+    ).svg;
     onChart?.(`sparkline of ${body.id}`);
   }
   const svg = cardSvg(model);

@@ -13,7 +13,12 @@ import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const SIZE = { width: 520, height: 420 };
 
-interface Bounds { west: number; east: number; south: number; north: number }
+interface Bounds {
+  west: number;
+  east: number;
+  south: number;
+  north: number;
+}
 
 function boundsOf(model: BulletinModel): Bounds {
   const points = model.boundaries.flatMap((region) => region.polygons.flatMap((polygon) => polygon.flat()));
@@ -35,13 +40,34 @@ function graticule(bounds: Bounds, locale: string, step = 0.5) {
   const lines: unknown[] = [];
   const labels: Array<{ lon: number; lat: number; text: string; align: string }> = [];
   const t = translator(locale);
-  const degrees = (value: number, positive: string, negative: string) => `${formatNumber(locale, Math.abs(value), 1)}° ${t(value < 0 ? negative : positive)}`;
+  const degrees = (value: number, positive: string, negative: string) =>
+    `${formatNumber(locale, Math.abs(value), 1)}° ${t(value < 0 ? negative : positive)}`;
   for (let lon = Math.ceil(bounds.west / step) * step; lon <= bounds.east + 1e-9; lon += step) {
-    lines.push({ type: 'Feature', properties: {}, geometry: { type: 'LineString', coordinates: [[lon, bounds.south], [lon, bounds.north]] } });
+    lines.push({
+      type: 'Feature',
+      properties: {},
+      geometry: {
+        type: 'LineString',
+        coordinates: [
+          [lon, bounds.south],
+          [lon, bounds.north],
+        ],
+      },
+    });
     labels.push({ lon, lat: bounds.south, text: degrees(lon, 'view.east', 'view.west'), align: 'center' });
   }
   for (let lat = Math.ceil(bounds.south / step) * step; lat <= bounds.north + 1e-9; lat += step) {
-    lines.push({ type: 'Feature', properties: {}, geometry: { type: 'LineString', coordinates: [[bounds.west, lat], [bounds.east, lat]] } });
+    lines.push({
+      type: 'Feature',
+      properties: {},
+      geometry: {
+        type: 'LineString',
+        coordinates: [
+          [bounds.west, lat],
+          [bounds.east, lat],
+        ],
+      },
+    });
     labels.push({ lon: bounds.west, lat, text: degrees(lat, 'view.north', 'view.south'), align: 'right' });
   }
   return { lines, labels };
@@ -52,8 +78,24 @@ function baseLayers(model: BulletinModel) {
   const grid = graticule(bounds, model.meta.locale);
   return [
     { data: { values: grid.lines }, mark: { type: 'geoshape', filled: false, stroke: '#bdbdbd', strokeWidth: 0.6 } },
-    { data: { values: grid.labels.filter((label) => label.align === 'center') }, mark: { type: 'text', dy: 12, fontSize: 10, color: '#333333' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },
-    { data: { values: grid.labels.filter((label) => label.align === 'right') }, mark: { type: 'text', dx: -4, align: 'right', fontSize: 10, color: '#333333' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },
+    {
+      data: { values: grid.labels.filter((label) => label.align === 'center') },
+      mark: { type: 'text', dy: 12, fontSize: 10, color: '#333333' },
+      encoding: {
+        longitude: { field: 'lon', type: 'quantitative' },
+        latitude: { field: 'lat', type: 'quantitative' },
+        text: { field: 'text' },
+      },
+    },
+    {
+      data: { values: grid.labels.filter((label) => label.align === 'right') },
+      mark: { type: 'text', dx: -4, align: 'right', fontSize: 10, color: '#333333' },
+      encoding: {
+        longitude: { field: 'lon', type: 'quantitative' },
+        latitude: { field: 'lat', type: 'quantitative' },
+        text: { field: 'text' },
+      },
+    },
   ];
 }
 
@@ -92,22 +134,60 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     return {
       type: 'Feature',
       properties: { label, bodies: cell.bodies, z: z === null ? null : Math.round(z * 100) / 100 },
-      geometry: { type: 'Polygon', coordinates: [[[cell.west, cell.south], [cell.west, n], [e, n], [e, cell.south], [cell.west, cell.south]]] },
+      geometry: {
+        type: 'Polygon',
+        coordinates: [
+          [
+            [cell.west, cell.south],
+            [cell.west, n],
+            [e, n],
+            [e, cell.south],
+            [cell.west, cell.south],
+          ],
+        ],
+      },
     };
   });
   const domain = [...ANOMALY_CLASSES.map((entry) => classLabel(entry.key)), notEnough];
   const spec = mapSpec(model, [
-      { data: { values: cells }, mark: { type: 'geoshape', stroke: OUTLINE, strokeWidth: 0.8 }, encoding: { color: { field: 'properties.label', type: 'nominal', title: t('view.standardized'), scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } }, strokeDash: { condition: { test: `datum.properties.label === ${expressionString(notEnough)}`, value: [3, 2] }, value: [1, 0] } } },
-      { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
+    {
+      data: { values: cells },
+      mark: { type: 'geoshape', stroke: OUTLINE, strokeWidth: 0.8 },
+      encoding: {
+        color: {
+          field: 'properties.label',
+          type: 'nominal',
+          title: t('view.standardized'),
+          scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] },
+          legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 },
+        },
+        strokeDash: { condition: { test: `datum.properties.label === ${expressionString(notEnough)}`, value: [3, 2] }, value: [1, 0] },
+      },
+    },
+    { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
   ]);
   const stated = model.grid.cells.filter((cell) => cell.standardized !== null);
   const belowCount = stated.filter((cell) => (cell.standardized as number) < -0.5).length;
   return {
     id: 'grid-map',
     title: t('map.grid.title', { month: model.meta.monthName }),
-    description: t('map.grid.desc', { degrees: formatNumber(model.meta.locale, model.grid.cellDegrees, 2), below: belowCount, stated: stated.length, missing: model.grid.cells.length - stated.length }),
+    description: t('map.grid.desc', {
+      degrees: formatNumber(model.meta.locale, model.grid.cellDegrees, 2),
+      below: belowCount,
+      stated: stated.length,
+      missing: model.grid.cells.length - stated.length,
+    }),
     spec,
-    table: { caption: t('map.grid.caption'), columns: [t('view.grid.cell'), t('ui.bodies'), t('view.standardized'), t('view.trophic.class')], rows: model.grid.cells.map((cell, k) => [`${cell.south}°, ${cell.west}°`, cell.bodies, cell.standardized === null ? '–' : Math.round(cell.standardized * 100) / 100, (cells[k] as { properties: { label: string } }).properties.label]) },
+    table: {
+      caption: t('map.grid.caption'),
+      columns: [t('view.grid.cell'), t('ui.bodies'), t('view.standardized'), t('view.trophic.class')],
+      rows: model.grid.cells.map((cell, k) => [
+        `${cell.south}°, ${cell.west}°`,
+        cell.bodies,
+        cell.standardized === null ? '–' : Math.round(cell.standardized * 100) / 100,
+        (cells[k] as { properties: { label: string } }).properties.label,
+      ]),
+    },
   };
 }
 
@@ -115,8 +195,15 @@ function bandStyle(model: BulletinModel) {
   const t = translator(model.meta.locale);
   const keys = model.meta.statusBands;
   const labels = keys.map((key) => t(`band.${key}`));
-  const colours = keys.map((_, k) => BROWN_BLUE_GREEN_5[Math.round((k * (BROWN_BLUE_GREEN_5.length - 1)) / Math.max(1, keys.length - 1))] as string);
-  const shapes = keys.map((_, k) => ['triangle-down', 'triangle-down', 'circle', 'triangle-up', 'triangle-up'][Math.round((k * 4) / Math.max(1, keys.length - 1))] as string);
+  const colours = keys.map(
+    (_, k) => BROWN_BLUE_GREEN_5[Math.round((k * (BROWN_BLUE_GREEN_5.length - 1)) / Math.max(1, keys.length - 1))] as string,
+  );
+  const shapes = keys.map(
+    (_, k) =>
+      ['triangle-down', 'triangle-down', 'circle', 'triangle-up', 'triangle-up'][
+        Math.round((k * 4) / Math.max(1, keys.length - 1))
+      ] as string,
+  );
   const notStated = t('chart.notStated');
   return { keys, labels, colours, shapes, notStated, t, label: (key: string | null) => (key === null ? notStated : t(`band.${key}`)) };
 }
@@ -137,16 +224,48 @@ export function subRegionMapChart(model: BulletinModel): ChartDefinition {
     return { lon, lat, name: region.name, text: `${feature?.properties.percent ?? '–'} % · ${feature?.properties.band}` };
   });
   const spec = mapSpec(model, [
-      { data: { values: features }, mark: { type: 'geoshape', stroke: '#000000', strokeWidth: 1.5 }, encoding: { color: { field: 'properties.band', type: 'nominal', title: style.t('ui.status'), scale: { domain: [...style.labels, style.notStated], range: [...style.colours, NO_DATA_FILL] }, legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 } } } },
-      { data: { values: labels }, mark: { type: 'text', fontSize: 11, fontWeight: 'bold', dy: -7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'name' } } },
-      { data: { values: labels }, mark: { type: 'text', fontSize: 10, dy: 7, color: '#000000' }, encoding: { longitude: { field: 'lon', type: 'quantitative' }, latitude: { field: 'lat', type: 'quantitative' }, text: { field: 'text' } } },
+    {
+      data: { values: features },
+      mark: { type: 'geoshape', stroke: '#000000', strokeWidth: 1.5 },
+      encoding: {
+        color: {
+          field: 'properties.band',
+          type: 'nominal',
+          title: style.t('ui.status'),
+          scale: { domain: [...style.labels, style.notStated], range: [...style.colours, NO_DATA_FILL] },
+          legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 },
+        },
+      },
+    },
+    {
+      data: { values: labels },
+      mark: { type: 'text', fontSize: 11, fontWeight: 'bold', dy: -7, color: '#000000' },
+      encoding: {
+        longitude: { field: 'lon', type: 'quantitative' },
+        latitude: { field: 'lat', type: 'quantitative' },
+        text: { field: 'name' },
+      },
+    },
+    {
+      data: { values: labels },
+      mark: { type: 'text', fontSize: 10, dy: 7, color: '#000000' },
+      encoding: {
+        longitude: { field: 'lon', type: 'quantitative' },
+        latitude: { field: 'lat', type: 'quantitative' },
+        text: { field: 'text' },
+      },
+    },
   ]);
   return {
     id: 'sub-region-map',
     title: style.t('map.subRegions.title', { month: model.meta.monthName }),
     description: style.t('map.subRegions.desc', { list: labels.map((label) => `${label.name} ${label.text}`).join('; ') }),
     spec,
-    table: { caption: style.t('map.subRegions.caption'), columns: [style.t('chart.subRegion'), style.t('ui.percentOfUsual'), style.t('ui.status')], rows: features.map((feature) => [feature.properties.name, feature.properties.percent ?? '–', feature.properties.band]) },
+    table: {
+      caption: style.t('map.subRegions.caption'),
+      columns: [style.t('chart.subRegion'), style.t('ui.percentOfUsual'), style.t('ui.status')],
+      rows: features.map((feature) => [feature.properties.name, feature.properties.percent ?? '–', feature.properties.band]),
+    },
   };
 }
 
@@ -161,7 +280,14 @@ export const MAP_BODY_LIMIT = 1000;
 export function mappedBodies(model: BulletinModel): number[] {
   const all = model.bodies.map((_, k) => k);
   if (all.length <= MAP_BODY_LIMIT) return all;
-  const chosen = all.sort((a, b) => Number(model.bodies[b]?.ownPage) - Number(model.bodies[a]?.ownPage) || (model.bodies[b]?.referenceHa ?? 0) - (model.bodies[a]?.referenceHa ?? 0) || a - b).slice(0, MAP_BODY_LIMIT);
+  const chosen = all
+    .sort(
+      (a, b) =>
+        Number(model.bodies[b]?.ownPage) - Number(model.bodies[a]?.ownPage) ||
+        (model.bodies[b]?.referenceHa ?? 0) - (model.bodies[a]?.referenceHa ?? 0) ||
+        a - b,
+    )
+    .slice(0, MAP_BODY_LIMIT);
   return chosen.sort((a, b) => a - b);
 }
 
@@ -171,24 +297,31 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
   const values = shown.map((k) => {
     const body = model.bodies[k] as BulletinModel['bodies'][number];
     const status = model.bodyStatus[k];
-    return { name: body.name, lon: body.lon, lat: body.lat, area: Math.round(body.referenceHa * 10) / 10, status: style.label(status?.bandKey ?? null) };
+    return {
+      name: body.name,
+      lon: body.lon,
+      lat: body.lat,
+      area: Math.round(body.referenceHa * 10) / 10,
+      status: style.label(status?.bandKey ?? null),
+    };
   });
   const t = style.t;
-  const subset = shown.length < model.bodies.length ? ` ${t('map.bodies.subset', { shown: shown.length, total: model.bodies.length })}` : '';
+  const subset =
+    shown.length < model.bodies.length ? ` ${t('map.bodies.subset', { shown: shown.length, total: model.bodies.length })}` : '';
   const domain = [...style.labels, style.notStated];
   const spec = mapSpec(model, [
-      { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.2 } },
-      {
-        data: { values },
-        mark: { type: 'point', filled: true, stroke: OUTLINE, strokeWidth: 0.8, opacity: 0.95 },
-        encoding: {
-          longitude: { field: 'lon', type: 'quantitative' },
-          latitude: { field: 'lat', type: 'quantitative' },
-          size: { field: 'area', type: 'quantitative', title: t('ui.referenceHa'), scale: { type: 'sqrt', range: [12, 600] } },
-          shape: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.shapes, 'cross'] } },
-          color: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.colours, '#bdbdbd'] } },
-        },
+    { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.2 } },
+    {
+      data: { values },
+      mark: { type: 'point', filled: true, stroke: OUTLINE, strokeWidth: 0.8, opacity: 0.95 },
+      encoding: {
+        longitude: { field: 'lon', type: 'quantitative' },
+        latitude: { field: 'lat', type: 'quantitative' },
+        size: { field: 'area', type: 'quantitative', title: t('ui.referenceHa'), scale: { type: 'sqrt', range: [12, 600] } },
+        shape: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.shapes, 'cross'] } },
+        color: { field: 'status', type: 'nominal', title: t('ui.status'), scale: { domain, range: [...style.colours, '#bdbdbd'] } },
       },
+    },
   ]);
   const counts = domain.map((label) => `${values.filter((row) => row.status === label).length} ${label}`);
   return {
@@ -196,6 +329,10 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
     title: t('map.bodies.title', { month: model.meta.monthName }),
     description: `${t('map.bodies.desc', { counts: counts.join(', ') })}${subset}`,
     spec,
-    table: { caption: t('map.bodies.caption'), columns: [t('ui.body'), t('ui.referenceHa'), t('ui.status')], rows: values.map((row) => [row.name, row.area, row.status]) },
+    table: {
+      caption: t('map.bodies.caption'),
+      columns: [t('ui.body'), t('ui.referenceHa'), t('ui.status')],
+      rows: values.map((row) => [row.name, row.area, row.status]),
+    },
   };
 }

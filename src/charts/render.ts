@@ -14,7 +14,8 @@ import { CHART_FONT } from './palettes.ts';
 export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
 
 /** A figure rounded for a chart's data and table, or null when there is none. */
-export const roundOrNull = (value: number | null | undefined, digits: number) => (value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits);
+export const roundOrNull = (value: number | null | undefined, digits: number) =>
+  value === null || value === undefined || !Number.isFinite(value) ? null : Math.round(value * 10 ** digits) / 10 ** digits;
 
 export interface DataTable {
   caption: string;
@@ -49,7 +50,6 @@ export async function svgToPng(svg: string, density = 72): Promise<Buffer> {
   return sharp(Buffer.from(svg), { density }).png({ compressionLevel: 9, adaptiveFiltering: false }).toBuffer();
 }
 
-
 /** RFC 4180 CSV through csvField (formula-like texts neutralized), CRLF line ends. */
 export function toCsv(table: DataTable): string {
   return [table.columns, ...table.rows].map((row) => row.map((value) => csvField(value)).join(',')).join('\r\n') + '\r\n';
@@ -60,7 +60,13 @@ export async function renderChart(chart: ChartDefinition, { png = false, locale 
   const localized = withChartLocale(chart.spec, locale);
   const spec: TopLevelSpec = {
     ...localized,
-    config: { font: CHART_FONT, view: { stroke: null }, axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' }, legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 }, ...(localized.config ?? {}) },
+    config: {
+      font: CHART_FONT,
+      view: { stroke: null },
+      axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' },
+      legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 },
+      ...(localized.config ?? {}),
+    },
   } as TopLevelSpec;
   const compiled = compile(spec).spec;
   // Vega numbers clip paths and gradients with process-wide counters: reset them so each chart's
@@ -98,7 +104,9 @@ function accessibleSvg(svg: string, chart: ChartDefinition): string {
   const titleId = `${chart.id}-title`;
   const descId = `${chart.id}-desc`;
   const ariaAttributes = /\s(?:role|aria-roledescription|aria-label|aria-hidden)="[^"]*"/g;
-  const quiet = svg.replace(/<([a-z]+)\b([^>]*)>/g, (tag, name: string, attributes: string) => (name === 'svg' ? tag : `<${name}${attributes.replace(ariaAttributes, '')}>`));
+  const quiet = svg.replace(/<([a-z]+)\b([^>]*)>/g, (tag, name: string, attributes: string) =>
+    name === 'svg' ? tag : `<${name}${attributes.replace(ariaAttributes, '')}>`,
+  );
   return quiet.replace(/^<svg\b([^>]*)>/, (_, attributes: string) => {
     // The headless renderer marks the root as a graphics document; one image with a name and a
     // description is what a screen-reader user needs here.

@@ -36,21 +36,47 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'area', color: ENVELOPE, opacity: 0.9 }, encoding: { x, y: { field: 'p10', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'p90' } } },
-      { mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x, y: { field: 'median', type: 'quantitative' } } },
+      {
+        mark: { type: 'area', color: ENVELOPE, opacity: 0.9 },
+        encoding: { x, y: { field: 'p10', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'p90' } },
+      },
+      {
+        mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 },
+        encoding: { x, y: { field: 'median', type: 'quantitative' } },
+      },
       { mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
-      { mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 3, point: { filled: true, size: 30, color: OKABE_ITO.vermillion } }, encoding: { x, y: { field: 'thisYear', type: 'quantitative' } } },
+      {
+        mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 3, point: { filled: true, size: 30, color: OKABE_ITO.vermillion } },
+        encoding: { x, y: { field: 'thisYear', type: 'quantitative' } },
+      },
     ],
   };
   return {
     id: 'regional-series',
-    title: t('chart.regional.title', { first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '', last: model.meta.monthName }),
+    title: t('chart.regional.title', {
+      first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '',
+      last: model.meta.monthName,
+    }),
     description: `${t('chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
     spec,
     table: {
       caption: t('chart.regional.caption'),
-      columns: [t('chart.month'), t('view.water'), t('chart.coverage'), t('chart.baselineMedian'), t('chart.baselineP10'), t('chart.baselineP90')],
-      rows: values.map((row) => [row.month, row.filling ?? t('chart.notStated'), row.coverage ?? 0, cell(row.median), cell(row.p10), cell(row.p90)]),
+      columns: [
+        t('chart.month'),
+        t('view.water'),
+        t('chart.coverage'),
+        t('chart.baselineMedian'),
+        t('chart.baselineP10'),
+        t('chart.baselineP90'),
+      ],
+      rows: values.map((row) => [
+        row.month,
+        row.filling ?? t('chart.notStated'),
+        row.coverage ?? 0,
+        cell(row.median),
+        cell(row.p10),
+        cell(row.p90),
+      ]),
     },
   };
 }
@@ -61,7 +87,11 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
   const status = model.surfaceWater.region.status;
   const baselineYear = t('chart.baselineYear');
   const otherYear = t('chart.otherYear');
-  const values = entries.map((entry) => ({ year: String(entry.year), filling: round(entry.fillingPercent), group: entry.inBaseline ? baselineYear : otherYear }));
+  const values = entries.map((entry) => ({
+    year: String(entry.year),
+    filling: round(entry.fillingPercent),
+    group: entry.inBaseline ? baselineYear : otherYear,
+  }));
   const spec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 480,
@@ -74,23 +104,44 @@ export function sameMonthChart(model: BulletinModel): ChartDefinition {
         encoding: {
           x: { field: 'year', type: 'ordinal', title: null, axis: { labelAngle: 0 } },
           y: { field: 'filling', type: 'quantitative', title: t('view.water') },
-          color: { field: 'group', type: 'nominal', title: null, scale: { domain: [baselineYear, otherYear], range: [GREY, OKABE_ITO.blue] }, legend: { orient: 'bottom' } },
+          color: {
+            field: 'group',
+            type: 'nominal',
+            title: null,
+            scale: { domain: [baselineYear, otherYear], range: [GREY, OKABE_ITO.blue] },
+            legend: { orient: 'bottom' },
+          },
         },
       },
       ...(status.kind === 'stated'
-        ? [{ data: { values: [{ median: round(status.baseline.median) }] }, mark: { type: 'rule', color: OKABE_ITO.vermillion, strokeWidth: 2, strokeDash: [6, 3] }, encoding: { y: { field: 'median', type: 'quantitative' } } }]
+        ? [
+            {
+              data: { values: [{ median: round(status.baseline.median) }] },
+              mark: { type: 'rule', color: OKABE_ITO.vermillion, strokeWidth: 2, strokeDash: [6, 3] },
+              encoding: { y: { field: 'median', type: 'quantitative' } },
+            },
+          ]
         : []),
     ],
   } as TopLevelSpec;
   return {
     id: 'same-month',
     title: t('chart.calendar.title', { calendarMonth: model.meta.calendarMonthName }),
-    description: t('chart.calendar.desc', { calendarMonth: model.meta.calendarMonthName, first: entries[0]?.year ?? 0, last: entries[entries.length - 1]?.year ?? 0, headline: model.headline }),
+    description: t('chart.calendar.desc', {
+      calendarMonth: model.meta.calendarMonthName,
+      first: entries[0]?.year ?? 0,
+      last: entries[entries.length - 1]?.year ?? 0,
+      headline: model.headline,
+    }),
     spec,
     table: {
       caption: t('chart.calendar.caption', { calendarMonth: model.meta.calendarMonthName }),
       columns: [t('chart.year'), t('view.water'), t('chart.inBaseline')],
-      rows: entries.map((entry) => [entry.year, round(entry.fillingPercent) ?? t('chart.notStated'), t(entry.inBaseline ? 'chart.yes' : 'chart.no')]),
+      rows: entries.map((entry) => [
+        entry.year,
+        round(entry.fillingPercent) ?? t('chart.notStated'),
+        t(entry.inBaseline ? 'chart.yes' : 'chart.no'),
+      ]),
     },
   };
 }
@@ -101,7 +152,11 @@ export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
   const rows = model.surfaceWater.regionAnomalies.slice(-36);
   const belowWords = t('chart.anomaly.below');
   const aboveWords = t('chart.anomaly.above');
-  const values = rows.map((row) => ({ month: monthLabel(row.month), points: round(row.points), sign: row.points < 0 ? belowWords : aboveWords }));
+  const values = rows.map((row) => ({
+    month: monthLabel(row.month),
+    points: round(row.points),
+    sign: row.points < 0 ? belowWords : aboveWords,
+  }));
   const below = rows.filter((row) => row.points < 0).length;
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
@@ -111,9 +166,20 @@ export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
     data: { values },
     mark: { type: 'bar', stroke: OUTLINE, strokeWidth: 0.5 },
     encoding: {
-      x: { field: 'month', type: 'ordinal', title: null, axis: { labelAngle: -90, labelExpr: "substring(datum.value, 5) == '01' || substring(datum.value, 5) == '07' ? datum.value : ''" } },
+      x: {
+        field: 'month',
+        type: 'ordinal',
+        title: null,
+        axis: { labelAngle: -90, labelExpr: "substring(datum.value, 5) == '01' || substring(datum.value, 5) == '07' ? datum.value : ''" },
+      },
       y: { field: 'points', type: 'quantitative', title: t('chart.anomaly.axis') },
-      color: { field: 'sign', type: 'nominal', title: null, scale: { domain: [belowWords, aboveWords], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] }, legend: { orient: 'bottom' } },
+      color: {
+        field: 'sign',
+        type: 'nominal',
+        title: null,
+        scale: { domain: [belowWords, aboveWords], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] },
+        legend: { orient: 'bottom' },
+      },
     },
   };
   const first = rows[0] ? formatMonth(locale, rows[0].month) : '';
@@ -122,7 +188,11 @@ export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
     title: t('chart.anomaly.title', { first, last: model.meta.monthName }),
     description: t('chart.anomaly.desc', { below, months: rows.length }),
     spec,
-    table: { caption: t('chart.anomaly.caption'), columns: [t('chart.month'), t('chart.anomaly.column')], rows: values.map((row) => [row.month, row.points ?? '–']) },
+    table: {
+      caption: t('chart.anomaly.caption'),
+      columns: [t('chart.month'), t('chart.anomaly.column')],
+      rows: values.map((row) => [row.month, row.points ?? '–']),
+    },
   };
 }
 
@@ -131,7 +201,11 @@ export function subRegionChart(model: BulletinModel): ChartDefinition {
   const t = translator(locale);
   const values = model.surfaceWater.subRegions.map((group) => {
     const stated = group.status.kind === 'stated' ? group.status : null;
-    return { name: group.name, percent: round(stated?.percentOfBaseline ?? null, 0), label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : t('chart.notStated') };
+    return {
+      name: group.name,
+      percent: round(stated?.percentOfBaseline ?? null, 0),
+      label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : t('chart.notStated'),
+    };
   });
   const lowest = [...values].filter((row) => row.percent !== null).sort((a, b) => (a.percent as number) - (b.percent as number))[0];
   const spec: TopLevelSpec = {
@@ -141,17 +215,40 @@ export function subRegionChart(model: BulletinModel): ChartDefinition {
     padding: 12,
     data: { values },
     layer: [
-      { mark: { type: 'bar', color: OKABE_ITO.blue }, encoding: { y: { field: 'name', type: 'nominal', title: null, sort: null }, x: { field: 'percent', type: 'quantitative', title: t('ui.percentOfUsual'), scale: { domain: [0, 150] } } } },
-      { data: { values: [{ usual: 100 }] }, mark: { type: 'rule', color: OUTLINE, strokeDash: [4, 3], strokeWidth: 1.5 }, encoding: { x: { field: 'usual', type: 'quantitative' } } },
-      { mark: { type: 'text', align: 'left', dx: 4, color: OUTLINE }, encoding: { y: { field: 'name', type: 'nominal', sort: null }, x: { field: 'percent', type: 'quantitative' }, text: { field: 'label' } } },
+      {
+        mark: { type: 'bar', color: OKABE_ITO.blue },
+        encoding: {
+          y: { field: 'name', type: 'nominal', title: null, sort: null },
+          x: { field: 'percent', type: 'quantitative', title: t('ui.percentOfUsual'), scale: { domain: [0, 150] } },
+        },
+      },
+      {
+        data: { values: [{ usual: 100 }] },
+        mark: { type: 'rule', color: OUTLINE, strokeDash: [4, 3], strokeWidth: 1.5 },
+        encoding: { x: { field: 'usual', type: 'quantitative' } },
+      },
+      {
+        mark: { type: 'text', align: 'left', dx: 4, color: OUTLINE },
+        encoding: {
+          y: { field: 'name', type: 'nominal', sort: null },
+          x: { field: 'percent', type: 'quantitative' },
+          text: { field: 'label' },
+        },
+      },
     ],
   };
   return {
     id: 'sub-regions',
     title: t('chart.subRegions.title', { month: model.meta.monthName }),
-    description: lowest ? t('chart.subRegions.desc', { name: lowest.name, percent: formatPercent(locale, lowest.percent as number) }) : t('chart.subRegions.none'),
+    description: lowest
+      ? t('chart.subRegions.desc', { name: lowest.name, percent: formatPercent(locale, lowest.percent as number) })
+      : t('chart.subRegions.none'),
     spec,
-    table: { caption: t('chart.subRegions.caption'), columns: [t('chart.subRegion'), t('ui.percentOfUsual'), t('ui.status')], rows: values.map((row) => [row.name, row.percent ?? '–', row.label]) },
+    table: {
+      caption: t('chart.subRegions.caption'),
+      columns: [t('chart.subRegion'), t('ui.percentOfUsual'), t('ui.status')],
+      rows: values.map((row) => [row.name, row.percent ?? '–', row.label]),
+    },
   };
 }
 
@@ -160,9 +257,18 @@ export function sizeClassChart(model: BulletinModel): ChartDefinition {
   const t = translator(locale);
   const values = model.surfaceWater.sizeClasses.flatMap((entry) => [
     { sizeClass: entry.name, when: model.meta.monthName, dry: round(entry.lossPercent) },
-    { sizeClass: entry.name, when: t('chart.sizeClasses.usual', { calendarMonth: model.meta.calendarMonthName }), dry: round(entry.baselineLossPercent) },
+    {
+      sizeClass: entry.name,
+      when: t('chart.sizeClasses.usual', { calendarMonth: model.meta.calendarMonthName }),
+      dry: round(entry.baselineLossPercent),
+    },
   ]);
-  const worst = [...model.surfaceWater.sizeClasses].filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null).sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
+  const worst = [...model.surfaceWater.sizeClasses]
+    .filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null)
+    .sort(
+      (a, b) =>
+        (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)),
+    )[0];
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
     width: 460,
@@ -174,15 +280,41 @@ export function sizeClassChart(model: BulletinModel): ChartDefinition {
       x: { field: 'sizeClass', type: 'nominal', title: null, sort: null, axis: { labelAngle: 0 } },
       xOffset: { field: 'when', sort: null },
       y: { field: 'dry', type: 'quantitative', title: t('chart.sizeClasses.axis') },
-      color: { field: 'when', type: 'nominal', title: null, sort: null, scale: { range: [OKABE_ITO.vermillion, GREY] }, legend: { orient: 'bottom' } },
+      color: {
+        field: 'when',
+        type: 'nominal',
+        title: null,
+        sort: null,
+        scale: { range: [OKABE_ITO.vermillion, GREY] },
+        legend: { orient: 'bottom' },
+      },
     },
   };
   return {
     id: 'size-classes',
     title: t('chart.sizeClasses.title', { month: model.meta.monthName }),
-    description: worst ? t('chart.sizeClasses.desc', { calendarMonth: model.meta.calendarMonthName, name: worst.name, loss: formatPercent(locale, worst.lossPercent as number), usual: formatPercent(locale, worst.baselineLossPercent as number) }) : t('chart.sizeClasses.none'),
+    description: worst
+      ? t('chart.sizeClasses.desc', {
+          calendarMonth: model.meta.calendarMonthName,
+          name: worst.name,
+          loss: formatPercent(locale, worst.lossPercent as number),
+          usual: formatPercent(locale, worst.baselineLossPercent as number),
+        })
+      : t('chart.sizeClasses.none'),
     spec,
-    table: { caption: t('chart.sizeClasses.caption'), columns: [t('view.sizeClass'), model.meta.monthName, t('chart.sizeClasses.usualColumn', { calendarMonth: model.meta.calendarMonthName })], rows: model.surfaceWater.sizeClasses.map((entry) => [entry.name, round(entry.lossPercent) ?? '–', round(entry.baselineLossPercent) ?? '–']) },
+    table: {
+      caption: t('chart.sizeClasses.caption'),
+      columns: [
+        t('view.sizeClass'),
+        model.meta.monthName,
+        t('chart.sizeClasses.usualColumn', { calendarMonth: model.meta.calendarMonthName }),
+      ],
+      rows: model.surfaceWater.sizeClasses.map((entry) => [
+        entry.name,
+        round(entry.lossPercent) ?? '–',
+        round(entry.baselineLossPercent) ?? '–',
+      ]),
+    },
   };
 }
 
@@ -191,7 +323,9 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
   if (!rain) return null;
   const locale = model.meta.locale;
   const t = translator(locale);
-  const values = rain.subRegions.flatMap((entry) => entry.monthly.slice(-36).map((row) => ({ month: monthLabel(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })));
+  const values = rain.subRegions.flatMap((entry) =>
+    entry.monthly.slice(-36).map((row) => ({ month: monthLabel(row.month), subRegion: entry.name, rainfall: round(row.rainfallMm) })),
+  );
   const names = rain.subRegions.map((entry) => entry.name);
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
@@ -203,17 +337,43 @@ export function rainfallChart(model: BulletinModel): ChartDefinition | null {
     encoding: {
       x: { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%b %Y', tickCount: 6 } },
       y: { field: 'rainfall', type: 'quantitative', title: t('chart.rainfall.axis') },
-      color: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange] }, legend: { orient: 'bottom' } },
-      shape: { field: 'subRegion', type: 'nominal', title: null, scale: { domain: names, range: ['circle', 'square', 'triangle-up', 'diamond', 'cross'] } },
+      color: {
+        field: 'subRegion',
+        type: 'nominal',
+        title: null,
+        scale: {
+          domain: names,
+          range: [OKABE_ITO.blue, OKABE_ITO.vermillion, OKABE_ITO.bluishGreen, OKABE_ITO.reddishPurple, OKABE_ITO.orange],
+        },
+        legend: { orient: 'bottom' },
+      },
+      shape: {
+        field: 'subRegion',
+        type: 'nominal',
+        title: null,
+        scale: { domain: names, range: ['circle', 'square', 'triangle-up', 'diamond', 'cross'] },
+      },
     },
   };
-  const parts = rain.subRegions.map((entry) => `${entry.name} ${entry.percentOfBaseline === null ? t('chart.noFigure') : formatPercent(locale, entry.percentOfBaseline)}`);
+  const parts = rain.subRegions.map(
+    (entry) => `${entry.name} ${entry.percentOfBaseline === null ? t('chart.noFigure') : formatPercent(locale, entry.percentOfBaseline)}`,
+  );
   return {
     id: 'rainfall',
     title: t('chart.rainfall.title'),
     description: t('chart.rainfall.desc', { month: model.meta.monthName, parts: parts.join(', ') }),
     spec,
-    table: { caption: t('chart.rainfall.caption'), columns: [t('chart.month'), ...names], rows: rain.subRegions[0]?.monthly.slice(-36).map((row, k) => [monthLabel(row.month), ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–')]) ?? [] },
+    table: {
+      caption: t('chart.rainfall.caption'),
+      columns: [t('chart.month'), ...names],
+      rows:
+        rain.subRegions[0]?.monthly
+          .slice(-36)
+          .map((row, k) => [
+            monthLabel(row.month),
+            ...rain.subRegions.map((entry) => round(entry.monthly.slice(-36)[k]?.rainfallMm) ?? '–'),
+          ]) ?? [],
+    },
   };
 }
 
@@ -231,14 +391,23 @@ export function sparklineChart(model: BulletinModel, bodyIndex: number, values: 
     padding: 2,
     data: { values: rows },
     mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 },
-    encoding: { x: { field: 'month', type: 'ordinal', axis: null }, y: { field: 'filling', type: 'quantitative', axis: null, scale: { zero: false } } },
+    encoding: {
+      x: { field: 'month', type: 'ordinal', axis: null },
+      y: { field: 'filling', type: 'quantitative', axis: null, scale: { zero: false } },
+    },
     config: { view: { stroke: null } },
   };
   return {
     id: `spark-${body.id.toLowerCase().replace(/[^a-z0-9-]/g, '-')}`,
     title: t('chart.spark.title', { name: body.name }),
-    description: last ? t('chart.spark.desc', { name: body.name, value: formatNumber(model.meta.locale, last.filling as number, 0), month: last.month }) : t('chart.spark.none', { name: body.name }),
+    description: last
+      ? t('chart.spark.desc', { name: body.name, value: formatNumber(model.meta.locale, last.filling as number, 0), month: last.month })
+      : t('chart.spark.none', { name: body.name }),
     spec,
-    table: { caption: t('chart.spark.caption', { name: body.name }), columns: [t('chart.month'), t('view.water')], rows: rows.map((row) => [row.month, row.filling ?? '–']) },
+    table: {
+      caption: t('chart.spark.caption', { name: body.name }),
+      columns: [t('chart.month'), t('view.water')],
+      rows: rows.map((row) => [row.month, row.filling ?? '–']),
+    },
   };
 }

@@ -9,7 +9,12 @@ export async function runBuild(args: string[]): Promise<number> {
   const { values, positionals } = parseArgs({
     args,
     allowPositionals: true,
-    options: { out: { type: 'string', short: 'o', default: '_site' }, force: { type: 'boolean' }, quiet: { type: 'boolean', short: 'q' }, help: { type: 'boolean', short: 'h' } },
+    options: {
+      out: { type: 'string', short: 'o', default: '_site' },
+      force: { type: 'boolean' },
+      quiet: { type: 'boolean', short: 'q' },
+      help: { type: 'boolean', short: 'h' },
+    },
   });
   if (values.help) {
     process.stdout.write(HELP.build);
@@ -17,8 +22,18 @@ export async function runBuild(args: string[]): Promise<number> {
   }
   if (positionals.length !== 1) throw new UsageError('build needs exactly one bulletin folder');
   // A bar on a terminal, plain lines in a log or pipe, nothing but errors with --quiet (all on stderr).
-  const progress = values.quiet ? silentProgress : process.stderr.isTTY ? barProgress(process.stderr) : lineProgress((line) => process.stderr.write(`${line}\n`));
-  const result = await build({ bulletinFolder: positionals[0] as string, outDir: values.out as string, progress, handleSignals: true, ...(values.force ? { force: true } : {}) });
+  const progress = values.quiet
+    ? silentProgress
+    : process.stderr.isTTY
+      ? barProgress(process.stderr)
+      : lineProgress((line) => process.stderr.write(`${line}\n`));
+  const result = await build({
+    bulletinFolder: positionals[0] as string,
+    outDir: values.out as string,
+    progress,
+    handleSignals: true,
+    ...(values.force ? { force: true } : {}),
+  });
   for (const warning of result.warnings) if (!values.quiet) process.stderr.write(`${formatProblem(warning)}\n`);
   if (!values.quiet) process.stdout.write(`Bulletin written to ${result.outDir}/index.html\n`);
   return 0;

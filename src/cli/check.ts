@@ -19,7 +19,11 @@ export function formatReport(problems: Problem[], totals: { errors: number; warn
   }
   const files = new Set(problems.map((problem) => problem.file)).size;
   const plural = (count: number, word: string) => `${count} ${word}${count === 1 ? '' : 's'}`;
-  lines.push(problems.length === 0 ? 'No problems found.' : `${plural(totals.errors, 'error')}, ${plural(totals.warnings, 'warning')} in ${plural(files, 'file')}.`);
+  lines.push(
+    problems.length === 0
+      ? 'No problems found.'
+      : `${plural(totals.errors, 'error')}, ${plural(totals.warnings, 'warning')} in ${plural(files, 'file')}.`,
+  );
   return `${lines.join('\n')}\n`;
 }
 

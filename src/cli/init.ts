@@ -42,16 +42,32 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
       const fill = 0.75 + 0.1 * season - 0.002 * (m - first);
       area.push(`${id},${monthLabel(m)},${(ha * fill).toFixed(2)},0.95,3`);
       const chl = 6 + 3 * Math.sin((2 * Math.PI * (m % 12)) / 12);
-      quality.push(`${id},${monthLabel(m)},chlorophyll_a,ug/L,${(chl * 0.6).toFixed(2)},${(chl * 0.8).toFixed(2)},${chl.toFixed(2)},${(chl * 1.25).toFixed(2)},${(chl * 1.6).toFixed(2)},${Math.round(ha * 80)}`);
+      quality.push(
+        `${id},${monthLabel(m)},chlorophyll_a,ug/L,${(chl * 0.6).toFixed(2)},${(chl * 0.8).toFixed(2)},${chl.toFixed(2)},${(chl * 1.25).toFixed(2)},${(chl * 1.6).toFixed(2)},${Math.round(ha * 80)}`,
+      );
     }
     for (const region of ['NORTH', 'SOUTH']) rain.push(`${region},${monthLabel(m)},${(60 + 40 * season).toFixed(1)}`);
   }
-  const ring = (south: number) => [[10, south], [10.5, south], [10.5, south + 0.5], [10, south + 0.5], [10, south]];
+  const ring = (south: number) => [
+    [10, south],
+    [10.5, south],
+    [10.5, south + 0.5],
+    [10, south + 0.5],
+    [10, south],
+  ];
   const geojson = {
     type: 'FeatureCollection',
     features: [
-      { type: 'Feature', properties: { subregion_id: 'NORTH', name: 'Sample North' }, geometry: { type: 'Polygon', coordinates: [ring(50.5)] } },
-      { type: 'Feature', properties: { subregion_id: 'SOUTH', name: 'Sample South' }, geometry: { type: 'Polygon', coordinates: [ring(50)] } },
+      {
+        type: 'Feature',
+        properties: { subregion_id: 'NORTH', name: 'Sample North' },
+        geometry: { type: 'Polygon', coordinates: [ring(50.5)] },
+      },
+      {
+        type: 'Feature',
+        properties: { subregion_id: 'SOUTH', name: 'Sample South' },
+        geometry: { type: 'Polygon', coordinates: [ring(50)] },
+      },
     ],
   };
   const year = Math.floor(last / 12);
@@ -71,7 +87,13 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
     ],
     site: { baseUrl: 'https://bulletin.example.org/' },
     locales,
-    inputs: { inventory: 'data/water-bodies.csv', surfaceArea: 'data/surface-area.csv', quality: 'data/water-quality.csv', rainfall: 'data/rainfall.csv', boundaries: 'data/subregions.geojson' },
+    inputs: {
+      inventory: 'data/water-bodies.csv',
+      surfaceArea: 'data/surface-area.csv',
+      quality: 'data/water-quality.csv',
+      rainfall: 'data/rainfall.csv',
+      boundaries: 'data/subregions.geojson',
+    },
   };
   return {
     [CONFIG_FILE]: `${JSON.stringify(config, null, 2)}\n`,
@@ -87,14 +109,19 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
 }
 
 export async function runInit(args: string[]): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { month: { type: 'string' }, locales: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: { month: { type: 'string' }, locales: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+  });
   if (values.help) {
     process.stdout.write(HELP.init);
     return 0;
   }
   const locales = (values.locales ?? 'en').split(',').map((locale) => locale.trim());
   const unknown = locales.filter((locale) => !(LOCALES as readonly string[]).includes(locale));
-  if (unknown.length > 0 || new Set(locales).size !== locales.length) throw new UsageError(`--locales takes a comma-separated list of ${LOCALES.join(', ')}, each once (found "${values.locales}")`);
+  if (unknown.length > 0 || new Set(locales).size !== locales.length)
+    throw new UsageError(`--locales takes a comma-separated list of ${LOCALES.join(', ')}, each once (found "${values.locales}")`);
   if (positionals.length !== 1) throw new UsageError('init needs exactly one folder');
   const month = values.month ?? '';
   if (parseMonth(month) === null) throw new UsageError('init needs --month YYYY-MM, the month of the first issue');
@@ -112,7 +139,11 @@ export async function runInit(args: string[]): Promise<number> {
 }
 
 export async function runNewIssue(args: string[]): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { published: { type: 'string' }, help: { type: 'boolean', short: 'h' } } });
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: { published: { type: 'string' }, help: { type: 'boolean', short: 'h' } },
+  });
   if (values.help) {
     process.stdout.write(HELP['new-issue']);
     return 0;
@@ -120,17 +151,23 @@ export async function runNewIssue(args: string[]): Promise<number> {
   if (positionals.length !== 1) throw new UsageError('new-issue needs exactly one bulletin folder');
   const folder = positionals[0] as string;
   const published = values.published;
-  if (published !== undefined && (!/^\d{4}-\d{2}-\d{2}$/.test(published) || !isCalendarDate(published))) throw new UsageError('--published needs a date as YYYY-MM-DD');
+  if (published !== undefined && (!/^\d{4}-\d{2}-\d{2}$/.test(published) || !isCalendarDate(published)))
+    throw new UsageError('--published needs a date as YYYY-MM-DD');
   // The issue must check clean before it is archived: an issue with errors (a month with no rows, as
   // after a first new-issue, or a missing input) would be archived hollow.
   const { inputs, problems } = await loadBulletin(folder);
   if (!inputs) {
     for (const problem of problems.sorted()) if (problem.severity === 'error') process.stderr.write(`${formatProblem(problem)}\n`);
-    process.stderr.write(`limnopress: the current issue of ${folder} has errors; nothing was archived. Fix them (limnopress check ${folder}) and run new-issue again\n`);
+    process.stderr.write(
+      `limnopress: the current issue of ${folder} has errors; nothing was archived. Fix them (limnopress check ${folder}) and run new-issue again\n`,
+    );
     return 1;
   }
   const configPath = inputs.sources[CONFIG_FILE] as string;
-  const config = JSON.parse(readFileSync(configPath, 'utf8')) as { issue: { month: string; revision?: number; published: string; draft?: boolean; corrections?: unknown[] }; inputs: Record<string, string> };
+  const config = JSON.parse(readFileSync(configPath, 'utf8')) as {
+    issue: { month: string; revision?: number; published: string; draft?: boolean; corrections?: unknown[] };
+    inputs: Record<string, string>;
+  };
   const current = inputs.bulletinMonth;
   const archiveRoot = join(folder, ARCHIVE_FOLDER);
   const archived = join(archiveRoot, config.issue.month);
@@ -175,7 +212,8 @@ export async function runNewIssue(args: string[]): Promise<number> {
     const locale = /^foreword\.([a-z]{2})\.md$/.exec(name)?.[1];
     if (locale) writeFileSync(join(folder, 'content', name), FOREWORD_IN[locale] ?? FOREWORD);
   }
-  process.stdout.write(`Archived ${monthLabel(current)} in ${archived}. The folder now holds the ${next} issue (a draft): add the ${next} rows to the tables, then run limnopress check ${folder}.\n`);
+  process.stdout.write(
+    `Archived ${monthLabel(current)} in ${archived}. The folder now holds the ${next} issue (a draft): add the ${next} rows to the tables, then run limnopress check ${folder}.\n`,
+  );
   return 0;
 }
-

@@ -13,9 +13,18 @@ import { runTrend } from './trend.ts';
 import { runVerify } from './verify.ts';
 import { HELP, UsageError } from './usage.ts';
 
-const COMMANDS: Record<string, (args: string[]) => Promise<number>> = { build: runBuild, check: runCheck, init: runInit, 'new-issue': runNewIssue, preview: runPreview, trend: runTrend, verify: runVerify };
+const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
+  build: runBuild,
+  check: runCheck,
+  init: runInit,
+  'new-issue': runNewIssue,
+  preview: runPreview,
+  trend: runTrend,
+  verify: runVerify,
+};
 
-const isParseArgsError = (error: unknown) => error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS');
+const isParseArgsError = (error: unknown) =>
+  error instanceof TypeError && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS');
 
 /** One line for a person: what failed and why; the stack only with --debug. */
 function describeFailure(error: unknown, debug: boolean): string {
@@ -66,5 +75,6 @@ export async function main(argv: string[]): Promise<number> {
   }
 }
 
-const invokedDirectly = process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/').split('/').pop() ?? '');
+const invokedDirectly =
+  process.argv[1] !== undefined && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/').split('/').pop() ?? '');
 if (invokedDirectly) process.exitCode = await main(process.argv.slice(2));

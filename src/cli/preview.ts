@@ -13,7 +13,11 @@ import { serveFolder } from '../site/serve.ts';
 import { HELP, UsageError } from './usage.ts';
 
 export async function runPreview(args: string[]): Promise<number> {
-  const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { port: { type: 'string', default: '8080' }, help: { type: 'boolean', short: 'h' } } });
+  const { values, positionals } = parseArgs({
+    args,
+    allowPositionals: true,
+    options: { port: { type: 'string', default: '8080' }, help: { type: 'boolean', short: 'h' } },
+  });
   if (values.help) {
     process.stdout.write(HELP.preview);
     return 0;

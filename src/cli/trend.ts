@@ -9,16 +9,35 @@ import { csvField } from '../text/csv.ts';
 import { HELP, UsageError } from './usage.ts';
 
 const COLUMNS: Array<[string, keyof TrendRow]> = [
-  ['series', 'series'], ['n', 'n'], ['s', 's'], ['var_s', 'varianceS'], ['z', 'z'], ['p', 'p'],
-  ['z_uncorrected', 'zUncorrected'], ['p_uncorrected', 'pUncorrected'], ['tau_b', 'tau'],
-  ['sen_slope_per_year', 'slopePerYear'], ['sen_intercept', 'intercept'], ['sen_lower', 'slopeLower'], ['sen_upper', 'slopeUpper'],
-  ['hamed_rao_factor', 'autocorrelationFactor'], ['hamed_rao_z', 'autocorrelationZ'], ['hamed_rao_p', 'autocorrelationP'],
-  ['pettitt_k', 'changePointK'], ['pettitt_p', 'changePointP'],
-  ['seasonal_s', 'seasonalS'], ['seasonal_var_s', 'seasonalVarianceS'], ['seasonal_z', 'seasonalZ'], ['seasonal_p', 'seasonalP'],
-  ['seasonal_slope_per_year', 'seasonalSlopePerYear'], ['seasonal_covariance_z', 'seasonalCovarianceZ'], ['seasonal_covariance_p', 'seasonalCovarianceP'],
-  ['p_adjusted', 'pAdjusted'], ['rejected', 'rejected'], ['reason', 'reason'],
+  ['series', 'series'],
+  ['n', 'n'],
+  ['s', 's'],
+  ['var_s', 'varianceS'],
+  ['z', 'z'],
+  ['p', 'p'],
+  ['z_uncorrected', 'zUncorrected'],
+  ['p_uncorrected', 'pUncorrected'],
+  ['tau_b', 'tau'],
+  ['sen_slope_per_year', 'slopePerYear'],
+  ['sen_intercept', 'intercept'],
+  ['sen_lower', 'slopeLower'],
+  ['sen_upper', 'slopeUpper'],
+  ['hamed_rao_factor', 'autocorrelationFactor'],
+  ['hamed_rao_z', 'autocorrelationZ'],
+  ['hamed_rao_p', 'autocorrelationP'],
+  ['pettitt_k', 'changePointK'],
+  ['pettitt_p', 'changePointP'],
+  ['seasonal_s', 'seasonalS'],
+  ['seasonal_var_s', 'seasonalVarianceS'],
+  ['seasonal_z', 'seasonalZ'],
+  ['seasonal_p', 'seasonalP'],
+  ['seasonal_slope_per_year', 'seasonalSlopePerYear'],
+  ['seasonal_covariance_z', 'seasonalCovarianceZ'],
+  ['seasonal_covariance_p', 'seasonalCovarianceP'],
+  ['p_adjusted', 'pAdjusted'],
+  ['rejected', 'rejected'],
+  ['reason', 'reason'],
 ];
-
 
 function probability(text: string | undefined, name: string, fallback: number): number {
   if (text === undefined) return fallback;
@@ -32,8 +51,14 @@ export async function runTrend(args: string[]): Promise<number> {
     args,
     allowPositionals: true,
     options: {
-      time: { type: 'string' }, value: { type: 'string' }, by: { type: 'string' }, seasonal: { type: 'boolean' },
-      format: { type: 'string', default: 'csv' }, confidence: { type: 'string' }, fdr: { type: 'string' }, workers: { type: 'string' },
+      time: { type: 'string' },
+      value: { type: 'string' },
+      by: { type: 'string' },
+      seasonal: { type: 'boolean' },
+      format: { type: 'string', default: 'csv' },
+      confidence: { type: 'string' },
+      fdr: { type: 'string' },
+      workers: { type: 'string' },
       help: { type: 'boolean', short: 'h' },
     },
   });
@@ -45,17 +70,31 @@ export async function runTrend(args: string[]): Promise<number> {
   if (!values.time || !values.value) throw new UsageError('trend needs --time and --value');
   if (values.format !== 'csv' && values.format !== 'json') throw new UsageError(`--format must be csv or json, not "${values.format}"`);
   const workers = values.workers === undefined ? undefined : Number(values.workers);
-  if (workers !== undefined && !(Number.isInteger(workers) && workers >= 1)) throw new UsageError('--workers needs a whole number of at least 1');
+  if (workers !== undefined && !(Number.isInteger(workers) && workers >= 1))
+    throw new UsageError('--workers needs a whole number of at least 1');
   const confidence = probability(values.confidence, 'confidence', 0.95);
   const falseDiscoveryRate = probability(values.fdr, 'fdr', 0.05);
 
   const path = positionals[0] as string;
   const problems = new ProblemList();
-  const series = await readSeriesTable(path, path, { time: values.time, value: values.value, ...(values.by ? { by: values.by } : {}) }, problems);
+  const series = await readSeriesTable(
+    path,
+    path,
+    { time: values.time, value: values.value, ...(values.by ? { by: values.by } : {}) },
+    problems,
+  );
   if (values.seasonal) {
     for (const entry of series) {
       if (entry.months.some((month) => Number.isNaN(month))) {
-        problems.error({ code: 'time-not-monthly', file: path, line: 0, column: values.time, value: entry.key, expected: 'YYYY-MM or YYYY-MM-DD times', message: `--seasonal needs monthly times; series "${entry.key}" has plain numbers` });
+        problems.error({
+          code: 'time-not-monthly',
+          file: path,
+          line: 0,
+          column: values.time,
+          value: entry.key,
+          expected: 'YYYY-MM or YYYY-MM-DD times',
+          message: `--seasonal needs monthly times; series "${entry.key}" has plain numbers`,
+        });
       }
     }
   }
@@ -64,18 +103,37 @@ export async function runTrend(args: string[]): Promise<number> {
   const pool = workers === 1 ? undefined : sharedPool(workers);
   let rows;
   try {
-    rows = await parallelTrends(series.map((entry) => ({ key: entry.key, times: entry.times, months: entry.months, values: entry.values })), { seasonal: Boolean(values.seasonal), confidence, falseDiscoveryRate }, { pool });
+    rows = await parallelTrends(
+      series.map((entry) => ({ key: entry.key, times: entry.times, months: entry.months, values: entry.values })),
+      { seasonal: Boolean(values.seasonal), confidence, falseDiscoveryRate },
+      { pool },
+    );
   } finally {
     await closeSharedPool();
   }
 
-  const labelled = rows.map((row, k) => ({ ...row, changePointTime: row.changePointIndex >= 0 ? (series[k]?.labels[row.changePointIndex] ?? '') : '' }));
+  const labelled = rows.map((row, k) => ({
+    ...row,
+    changePointTime: row.changePointIndex >= 0 ? (series[k]?.labels[row.changePointIndex] ?? '') : '',
+  }));
   if (values.format === 'json') {
-    const clean = labelled.map((row) => Object.fromEntries([...COLUMNS.map(([name, key]) => [name, row[key]] as const), ['pettitt_change_time', row.changePointTime]].map(([name, value]) => [name, typeof value === 'number' && !Number.isFinite(value) ? null : value])));
+    const clean = labelled.map((row) =>
+      Object.fromEntries(
+        [...COLUMNS.map(([name, key]) => [name, row[key]] as const), ['pettitt_change_time', row.changePointTime]].map(([name, value]) => [
+          name,
+          typeof value === 'number' && !Number.isFinite(value) ? null : value,
+        ]),
+      ),
+    );
     process.stdout.write(`${JSON.stringify(clean, null, 2)}\n`);
   } else {
     const header = [...COLUMNS.map(([name]) => name), 'pettitt_change_time'];
-    const lines = [header.join(','), ...labelled.map((row) => [...COLUMNS.map(([, key]) => csvField(row[key] as string | number | boolean)), csvField(row.changePointTime)].join(','))];
+    const lines = [
+      header.join(','),
+      ...labelled.map((row) =>
+        [...COLUMNS.map(([, key]) => csvField(row[key] as string | number | boolean)), csvField(row.changePointTime)].join(','),
+      ),
+    ];
     process.stdout.write(`${lines.join('\n')}\n`);
   }
   return 0;

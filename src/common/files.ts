@@ -94,7 +94,7 @@ export function copyWithHash(source: string, target: string): string {
     for (let read = readSync(input, piece, 0, piece.length, position); read > 0; read = readSync(input, piece, 0, piece.length, position)) {
       const bytes = piece.subarray(0, read);
       hash.update(bytes);
-      for (let written = 0; written < read; ) written += writeSync(output, bytes, written, read - written);
+      for (let written = 0; written < read;) written += writeSync(output, bytes, written, read - written);
       position += read;
     }
   } finally {

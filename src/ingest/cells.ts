@@ -62,7 +62,14 @@ export class CellReader {
       return Number.NaN;
     }
     if (value < min || value > max) {
-      this.fail(line, column, cell, 'value-out-of-range', max === Infinity ? `at least ${min}` : `from ${min} to ${max}`, 'the value is out of range');
+      this.fail(
+        line,
+        column,
+        cell,
+        'value-out-of-range',
+        max === Infinity ? `at least ${min}` : `from ${min} to ${max}`,
+        'the value is out of range',
+      );
       return Number.NaN;
     }
     return value;
@@ -71,7 +78,16 @@ export class CellReader {
   private decimalComma(raw: string, line: number, column: string): string {
     if (!/^-?\d+,\d+$/.test(raw)) return raw;
     if (this.decimal === 'auto' && !this.decimalCommaSeen) {
-      this.problems.warning({ code: 'decimal-comma-detected', file: this.file, line, column, value: raw, expected: 'a decimal point, or csv.decimal set to "," in bulletin.json', message: 'a decimal comma was read as a decimal point', params: {} });
+      this.problems.warning({
+        code: 'decimal-comma-detected',
+        file: this.file,
+        line,
+        column,
+        value: raw,
+        expected: 'a decimal point, or csv.decimal set to "," in bulletin.json',
+        message: 'a decimal comma was read as a decimal point',
+        params: {},
+      });
     }
     this.decimalCommaSeen = true;
     return raw.replace(',', '.');

@@ -17,7 +17,10 @@ export const MONTH_YEARS = { first: 1972, last: 2100 } as const;
 const month = z
   .string()
   .regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'a month as YYYY-MM')
-  .refine((text) => Number(text.slice(0, 4)) >= MONTH_YEARS.first && Number(text.slice(0, 4)) <= MONTH_YEARS.last, `a month from ${MONTH_YEARS.first} to ${MONTH_YEARS.last}`);
+  .refine(
+    (text) => Number(text.slice(0, 4)) >= MONTH_YEARS.first && Number(text.slice(0, 4)) <= MONTH_YEARS.last,
+    `a month from ${MONTH_YEARS.first} to ${MONTH_YEARS.last}`,
+  );
 /** A real calendar day (2026-02-30 is refused, not read as 2 March). */
 export const isCalendarDate = (text: string) => {
   const [year, monthOfYear, day] = text.split('-').map(Number) as [number, number, number];
@@ -38,7 +41,13 @@ const baseUrl = z
   .refine((text) => {
     try {
       const url = new URL(text);
-      return (url.protocol === 'https:' || url.protocol === 'http:') && url.username === '' && url.password === '' && url.search === '' && url.hash === '';
+      return (
+        (url.protocol === 'https:' || url.protocol === 'http:') &&
+        url.username === '' &&
+        url.password === '' &&
+        url.search === '' &&
+        url.hash === ''
+      );
     } catch {
       return false;
     }
@@ -49,13 +58,25 @@ const baseUrl = z
     return url.href;
   });
 /** Free text of the configuration: one line, of a length a page can show. */
-const label = (max: number) => z.string().min(1).max(max).refine((text) => !/[\u0000-\u001f\u007f]/.test(text), 'text without control characters').transform(isolateBidi);
+const label = (max: number) =>
+  z
+    .string()
+    .min(1)
+    .max(max)
+    .refine((text) => !/[\u0000-\u001f\u007f]/.test(text), 'text without control characters')
+    .transform(isolateBidi);
 /** Rising class boundaries in hectares: [100, 10000] makes three classes. */
-const boundaries = z.array(z.number().positive()).min(1).refine((list) => list.every((value, k) => k === 0 || value > (list[k - 1] as number)), 'boundaries must rise');
+const boundaries = z
+  .array(z.number().positive())
+  .min(1)
+  .refine((list) => list.every((value, k) => k === 0 || value > (list[k - 1] as number)), 'boundaries must rise');
 
 const statusBand = z.strictObject({
   /** Short key used in data files, CSS classes and the wording catalogue (band.<key>). */
-  key: z.string().regex(/^[a-z][a-z-]*$/).max(40),
+  key: z
+    .string()
+    .regex(/^[a-z][a-z-]*$/)
+    .max(40),
   /** Lower bound, percent of the baseline median, inclusive; the lowest band has none. */
   fromPercent: z.number().nullable(),
 });
@@ -71,7 +92,11 @@ export const configSchema = z.strictObject({
     draft: z.boolean().default(false),
     /** Corrections made in this revision, shown at the top of every page of the issue. */
     // `text` in the issue's first language; `translations` the same note in the others ({"fr": "…"}).
-    corrections: z.array(z.strictObject({ date, text: z.string().min(1), translations: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() })).default([]),
+    corrections: z
+      .array(
+        z.strictObject({ date, text: z.string().min(1), translations: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() }),
+      )
+      .default([]),
   }),
   baseline: z.strictObject({
     firstYear: z.number().int(),
@@ -123,7 +148,15 @@ export const configSchema = z.strictObject({
     .strictObject({
       /** Named seasons (calendar months 1–12) for the seasonal water-quality trends; none by default. */
       // `names` gives the season's name in each language ("dry" / "sèche"); without one, the key is shown.
-      seasons: z.array(z.strictObject({ key: z.string().regex(/^[a-z][a-z-]*$/), months: z.array(z.number().int().min(1).max(12)).min(1), names: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() })).default([]),
+      seasons: z
+        .array(
+          z.strictObject({
+            key: z.string().regex(/^[a-z][a-z-]*$/),
+            months: z.array(z.number().int().min(1).max(12)).min(1),
+            names: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional(),
+          }),
+        )
+        .default([]),
     })
     .default({ seasons: [] }),
   statusBands: z.array(statusBand).min(2),
@@ -135,7 +168,11 @@ export const configSchema = z.strictObject({
     bodiesPerListPage: z.number().int().min(1).default(500),
   }),
   /** Interface languages: the first is published at the site root, each other under /<locale>/. */
-  locales: z.array(z.enum(LOCALES)).min(1).refine((list) => new Set(list).size === list.length, 'each locale once').default(['en']),
+  locales: z
+    .array(z.enum(LOCALES))
+    .min(1)
+    .refine((list) => new Set(list).size === list.length, 'each locale once')
+    .default(['en']),
   inputs: z.strictObject({
     inventory: z.string().min(1),
     surfaceArea: z.string().min(1),
@@ -211,7 +248,15 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
   try {
     text = readFileSync(path, 'utf8').replace(/^\uFEFF/, '');
   } catch {
-    problems.error({ code: 'config-missing', file: label, line: 0, column: '', value: '', expected: 'a bulletin.json in the bulletin folder', message: 'the configuration file cannot be read' });
+    problems.error({
+      code: 'config-missing',
+      file: label,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'a bulletin.json in the bulletin folder',
+      message: 'the configuration file cannot be read',
+    });
     return null;
   }
   try {
@@ -220,7 +265,15 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
     const message = error instanceof Error ? error.message : String(error);
     const position = /position (\d+)/.exec(message);
     const line = position ? text.slice(0, Number(position[1])).split('\n').length : 0;
-    problems.error({ code: 'config-not-json', file: label, line, column: '', value: '', expected: 'valid JSON', message: `the configuration is not valid JSON: ${message}` });
+    problems.error({
+      code: 'config-not-json',
+      file: label,
+      line,
+      column: '',
+      value: '',
+      expected: 'valid JSON',
+      message: `the configuration is not valid JSON: ${message}`,
+    });
     return null;
   }
   const parsed = configSchema.safeParse(raw);
@@ -229,28 +282,71 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       if (issue.code === 'unrecognized_keys') {
         for (const key of issue.keys) {
           const suggestion = didYouMean(key, knownKeys(issue.path));
-          problems.error({ code: 'config-unknown-key', file: label, line: lineOfPath(text, [...issue.path, key]), column: [...issue.path, key].join('.'), value: key, expected: suggestion ? `did you mean "${suggestion}"?` : `one of ${knownKeys(issue.path).join(', ')}`, message: 'the configuration has an unknown key' });
+          problems.error({
+            code: 'config-unknown-key',
+            file: label,
+            line: lineOfPath(text, [...issue.path, key]),
+            column: [...issue.path, key].join('.'),
+            value: key,
+            expected: suggestion ? `did you mean "${suggestion}"?` : `one of ${knownKeys(issue.path).join(', ')}`,
+            message: 'the configuration has an unknown key',
+          });
         }
         continue;
       }
-      problems.error({ code: 'config-invalid', file: label, line: lineOfPath(text, issue.path), column: issue.path.join('.'), value: '', expected: '', message: issue.message });
+      problems.error({
+        code: 'config-invalid',
+        file: label,
+        line: lineOfPath(text, issue.path),
+        column: issue.path.join('.'),
+        value: '',
+        expected: '',
+        message: issue.message,
+      });
     }
     return null;
   }
   const config = parsed.data;
   if (config.baseline.firstYear > config.baseline.lastYear) {
-    problems.error({ code: 'config-baseline-order', file: label, line: lineOfPath(text, ['baseline']), column: 'baseline', value: `${config.baseline.firstYear}-${config.baseline.lastYear}`, expected: 'firstYear no later than lastYear', message: 'the baseline period ends before it starts' });
+    problems.error({
+      code: 'config-baseline-order',
+      file: label,
+      line: lineOfPath(text, ['baseline']),
+      column: 'baseline',
+      value: `${config.baseline.firstYear}-${config.baseline.lastYear}`,
+      expected: 'firstYear no later than lastYear',
+      message: 'the baseline period ends before it starts',
+    });
   }
   const bands = config.statusBands;
-  if (bands[0]?.fromPercent !== null || bands.slice(1).some((band, k) => band.fromPercent === null || band.fromPercent <= (bands[k]?.fromPercent ?? -Infinity))) {
-    problems.error({ code: 'config-status-bands', file: label, line: lineOfPath(text, ['statusBands']), column: 'statusBands', value: '', expected: 'the first band with fromPercent null, then strictly rising bounds', message: 'status bands must cover all values in rising order' });
+  if (
+    bands[0]?.fromPercent !== null ||
+    bands.slice(1).some((band, k) => band.fromPercent === null || band.fromPercent <= (bands[k]?.fromPercent ?? -Infinity))
+  ) {
+    problems.error({
+      code: 'config-status-bands',
+      file: label,
+      line: lineOfPath(text, ['statusBands']),
+      column: 'statusBands',
+      value: '',
+      expected: 'the first band with fromPercent null, then strictly rising bounds',
+      message: 'status bands must cover all values in rising order',
+    });
   }
   // Every band needs its words in every language of the bulletin (band.<key> in the catalogue).
   for (const locale of config.locales) {
     const messages = loadMessages(locale);
     for (const band of bands) {
       if (messages[`band.${band.key}`] === undefined) {
-        problems.error({ code: 'config-band-words', file: label, line: lineOfPath(text, ['statusBands']), column: 'statusBands', value: band.key, expected: `a band key with wording in content/locales/${locale}.json (band.${band.key})`, message: `the status band has no wording in ${locale}` });
+        problems.error({
+          code: 'config-band-words',
+          file: label,
+          line: lineOfPath(text, ['statusBands']),
+          column: 'statusBands',
+          value: band.key,
+          expected: `a band key with wording in content/locales/${locale}.json (band.${band.key})`,
+          message: `the status band has no wording in ${locale}`,
+        });
       }
     }
   }

@@ -43,26 +43,51 @@ export class ConfinementError extends Error {
  */
 export function resolveInside(root: string, path: string, kind: FileKind, allowFolder = false): string {
   if (path === '' || path.includes('\0') || path.length > MAX_PATH_LENGTH) {
-    throw new ConfinementError('path-invalid', 'the path is empty, too long or holds a NUL byte', `a relative path of at most ${MAX_PATH_LENGTH} characters`);
+    throw new ConfinementError(
+      'path-invalid',
+      'the path is empty, too long or holds a NUL byte',
+      `a relative path of at most ${MAX_PATH_LENGTH} characters`,
+    );
   }
   if (isAbsolute(path) || /^[a-zA-Z]:[\\/]/.test(path)) {
-    throw new ConfinementError('path-outside', 'the path is absolute; inputs are named relative to the bulletin folder', 'a path relative to the bulletin folder');
+    throw new ConfinementError(
+      'path-outside',
+      'the path is absolute; inputs are named relative to the bulletin folder',
+      'a path relative to the bulletin folder',
+    );
   }
   const joined = join(root, path);
-  if (!isInside(root, joined)) throw new ConfinementError('path-outside', 'the path leads out of the bulletin folder', 'a path inside the bulletin folder');
+  if (!isInside(root, joined))
+    throw new ConfinementError('path-outside', 'the path leads out of the bulletin folder', 'a path inside the bulletin folder');
   let real: string;
   try {
     real = realpathSync(joined);
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
-    if (code === 'ELOOP') throw new ConfinementError('path-invalid', 'the path is a loop of symbolic links', 'a file inside the bulletin folder');
+    if (code === 'ELOOP')
+      throw new ConfinementError('path-invalid', 'the path is a loop of symbolic links', 'a file inside the bulletin folder');
     throw new ConfinementError('file-missing', 'the file does not exist', 'an existing file');
   }
-  if (!isInside(root, real)) throw new ConfinementError('path-outside', 'the path is a symbolic link that leads out of the bulletin folder', 'a file inside the bulletin folder');
+  if (!isInside(root, real))
+    throw new ConfinementError(
+      'path-outside',
+      'the path is a symbolic link that leads out of the bulletin folder',
+      'a file inside the bulletin folder',
+    );
   const stat = statSync(real);
   if (stat.isDirectory() && allowFolder) return real;
-  if (!stat.isFile()) throw new ConfinementError('not-regular-file', stat.isDirectory() ? 'the path is a folder' : 'the path is not a regular file (a pipe, device or socket)', 'a regular file');
-  if (stat.size > SIZE_LIMITS[kind]) throw new ConfinementError('file-too-large', `the file is ${stat.size} bytes, above the limit of ${SIZE_LIMITS[kind]} for this kind`, `at most ${SIZE_LIMITS[kind]} bytes`);
+  if (!stat.isFile())
+    throw new ConfinementError(
+      'not-regular-file',
+      stat.isDirectory() ? 'the path is a folder' : 'the path is not a regular file (a pipe, device or socket)',
+      'a regular file',
+    );
+  if (stat.size > SIZE_LIMITS[kind])
+    throw new ConfinementError(
+      'file-too-large',
+      `the file is ${stat.size} bytes, above the limit of ${SIZE_LIMITS[kind]} for this kind`,
+      `at most ${SIZE_LIMITS[kind]} bytes`,
+    );
   return real;
 }
 

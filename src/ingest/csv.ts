@@ -28,16 +28,39 @@ export type RowHandler = (values: string[], line: number, columns: ColumnIndex) 
  * below it, read in sorted path order, as a distributed engine writes them). `onFile` is told the
  * label of each partition before its rows, so problems name the partition and its row.
  */
-export async function readTable(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler, onFile?: (label: string) => void): Promise<number> {
+export async function readTable(
+  path: string,
+  label: string,
+  columns: ColumnSpec[],
+  problems: ProblemList,
+  onRow: RowHandler,
+  onFile?: (label: string) => void,
+): Promise<number> {
   if (existsSync(path) && statSync(path).isDirectory()) {
     const { files, links } = listRegularFiles(path);
     for (const link of links) {
-      problems.error({ code: 'partition-link', file: `${label.replace(/\/$/, '')}/${link}`, line: 0, column: '', value: '', expected: 'partitions as regular files inside the folder', message: 'a symbolic link in a folder of partitions is not followed' });
+      problems.error({
+        code: 'partition-link',
+        file: `${label.replace(/\/$/, '')}/${link}`,
+        line: 0,
+        column: '',
+        value: '',
+        expected: 'partitions as regular files inside the folder',
+        message: 'a symbolic link in a folder of partitions is not followed',
+      });
     }
     if (links.length > 0) return 0;
     const parts = files.filter((file) => file.toLowerCase().endsWith('.parquet'));
     if (parts.length === 0) {
-      problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'a file, or a folder with .parquet partitions', message: 'the folder holds no .parquet file' });
+      problems.error({
+        code: 'file-missing',
+        file: label,
+        line: 0,
+        column: '',
+        value: '',
+        expected: 'a file, or a folder with .parquet partitions',
+        message: 'the folder holds no .parquet file',
+      });
       return 0;
     }
     let rows = 0;
@@ -50,10 +73,20 @@ export async function readTable(path: string, label: string, columns: ColumnSpec
     return rows;
   }
   if (!existsSync(path) || !statSync(path).isFile()) {
-    problems.error({ code: 'file-missing', file: label, line: 0, column: '', value: '', expected: 'an existing file', message: 'the file does not exist' });
+    problems.error({
+      code: 'file-missing',
+      file: label,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'an existing file',
+      message: 'the file does not exist',
+    });
     return 0;
   }
-  return path.toLowerCase().endsWith('.parquet') ? readParquet(path, label, columns, problems, onRow) : readCsv(path, label, columns, problems, onRow);
+  return path.toLowerCase().endsWith('.parquet')
+    ? readParquet(path, label, columns, problems, onRow)
+    : readCsv(path, label, columns, problems, onRow);
 }
 
 /** The .parquet files below a folder, as sorted relative paths with forward slashes. */
@@ -61,7 +94,13 @@ export function parquetParts(folder: string): string[] {
   return listRegularFiles(folder).files.filter((path) => path.toLowerCase().endsWith('.parquet'));
 }
 
-export async function readCsv(path: string, label: string, columns: ColumnSpec[], problems: ProblemList, onRow: RowHandler): Promise<number> {
+export async function readCsv(
+  path: string,
+  label: string,
+  columns: ColumnSpec[],
+  problems: ProblemList,
+  onRow: RowHandler,
+): Promise<number> {
   let header: string[] | null = null;
   let index: ColumnIndex = {};
   let usable = true;
@@ -88,7 +127,15 @@ export async function readCsv(path: string, label: string, columns: ColumnSpec[]
             }
             if (!usable) continue;
             if (values.length !== header.length) {
-              problems.error({ code: 'field-count', file: label, line, column: '', value: String(values.length), expected: `${header.length} fields, as in the header`, message: 'the row has the wrong number of fields' });
+              problems.error({
+                code: 'field-count',
+                file: label,
+                line,
+                column: '',
+                value: String(values.length),
+                expected: `${header.length} fields, as in the header`,
+                message: 'the row has the wrong number of fields',
+              });
               continue;
             }
             rows++;
@@ -102,7 +149,15 @@ export async function readCsv(path: string, label: string, columns: ColumnSpec[]
   } catch (error) {
     if (!(error instanceof EncodingError)) throw error;
     const guess = error.guess ? `; it looks like ${error.guess}: convert it to UTF-8` : '; convert it to UTF-8';
-    problems.error({ code: 'not-utf8', file: label, line: lineAtOffset(path, error.offset), column: '', value: '', expected: 'UTF-8 text', message: `the file is not UTF-8${guess}` });
+    problems.error({
+      code: 'not-utf8',
+      file: label,
+      line: lineAtOffset(path, error.offset),
+      column: '',
+      value: '',
+      expected: 'UTF-8 text',
+      message: `the file is not UTF-8${guess}`,
+    });
     return rows;
   }
   finish(header !== null, usable, rows, label, problems);
@@ -114,12 +169,28 @@ async function readParquet(path: string, label: string, columns: ColumnSpec[], p
   try {
     records = (await parquetReadObjects({ file: await asyncBufferFromFile(path) })) as Array<Record<string, unknown>>;
   } catch (error) {
-    problems.error({ code: 'parquet-unreadable', file: label, line: 0, column: '', value: '', expected: 'a Parquet file', message: `cannot read the Parquet file: ${error instanceof Error ? error.message : String(error)}` });
+    problems.error({
+      code: 'parquet-unreadable',
+      file: label,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'a Parquet file',
+      message: `cannot read the Parquet file: ${error instanceof Error ? error.message : String(error)}`,
+    });
     return 0;
   }
   const header = records[0] ? Object.keys(records[0]) : [];
   if (records.length === 0) {
-    problems.error({ code: 'no-rows', file: label, line: 1, column: '', value: '', expected: 'at least one data row', message: 'the file has no data rows' });
+    problems.error({
+      code: 'no-rows',
+      file: label,
+      line: 1,
+      column: '',
+      value: '',
+      expected: 'at least one data row',
+      message: 'the file has no data rows',
+    });
     return 0;
   }
   const index = columnIndex(header, columns);
@@ -147,9 +218,25 @@ function columnIndex(header: string[], columns: ColumnSpec[]): ColumnIndex {
 
 function finish(hadHeader: boolean, usable: boolean, rows: number, label: string, problems: ProblemList): void {
   if (!hadHeader) {
-    problems.error({ code: 'file-empty', file: label, line: 0, column: '', value: '', expected: 'a header line and data rows', message: 'the file is empty' });
+    problems.error({
+      code: 'file-empty',
+      file: label,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'a header line and data rows',
+      message: 'the file is empty',
+    });
   } else if (usable && rows === 0) {
-    problems.error({ code: 'no-rows', file: label, line: 1, column: '', value: '', expected: 'at least one data row', message: 'the file has a header but no data rows' });
+    problems.error({
+      code: 'no-rows',
+      file: label,
+      line: 1,
+      column: '',
+      value: '',
+      expected: 'at least one data row',
+      message: 'the file has a header but no data rows',
+    });
   }
 }
 
@@ -157,19 +244,44 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
   let usable = true;
   for (const column of columns) {
     if (column.required && !header.includes(column.name)) {
-      problems.error({ code: 'column-missing', file: label, line: 1, column: column.name, value: '', expected: `a column named ${column.name}`, message: 'a required column is missing' });
+      problems.error({
+        code: 'column-missing',
+        file: label,
+        line: 1,
+        column: column.name,
+        value: '',
+        expected: `a column named ${column.name}`,
+        message: 'a required column is missing',
+      });
       usable = false;
     }
   }
   const seen = new Set<string>();
   for (const name of header) {
     if (seen.has(name)) {
-      problems.error({ code: 'column-duplicate', file: label, line: 1, column: name, value: name, expected: 'each column once', message: 'a column name appears twice' });
+      problems.error({
+        code: 'column-duplicate',
+        file: label,
+        line: 1,
+        column: name,
+        value: name,
+        expected: 'each column once',
+        message: 'a column name appears twice',
+      });
       usable = false;
     }
     seen.add(name);
     if (!columns.some((column) => column.name === name)) {
-      problems.warning({ code: 'column-unknown', file: label, line: 1, column: name, value: name, expected: columns.map((c) => c.name).join(', '), message: 'an unknown column is ignored', params: { columns: columns.map((c) => c.name).join(', ') } });
+      problems.warning({
+        code: 'column-unknown',
+        file: label,
+        line: 1,
+        column: name,
+        value: name,
+        expected: columns.map((c) => c.name).join(', '),
+        message: 'an unknown column is ignored',
+        params: { columns: columns.map((c) => c.name).join(', ') },
+      });
     }
   }
   return usable;

@@ -19,7 +19,8 @@ export class EncodingError extends Error {
 
 /** A guess from the start of the file and the first invalid byte. */
 export function guessEncoding(head: Uint8Array, badByte: number): string {
-  if ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff)) return 'UTF-16 (it starts with a UTF-16 byte-order mark)';
+  if ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff))
+    return 'UTF-16 (it starts with a UTF-16 byte-order mark)';
   if (head.subarray(0, Math.min(head.length, 200)).some((byte, k) => byte === 0 && k % 2 === 1)) return 'UTF-16 (every other byte is zero)';
   if (badByte >= 0x80) return 'Windows-1252 or ISO-8859-1 (a lone byte above 127, typical of Western European spreadsheet exports)';
   return '';

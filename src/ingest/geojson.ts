@@ -40,7 +40,14 @@ export function rewindForRendering(polygon: Ring[]): Ring[] {
 function isPosition(value: unknown): value is [number, number] {
   if (!Array.isArray(value) || value.length < 2) return false;
   const [lon, lat] = value as unknown[];
-  return typeof lon === 'number' && typeof lat === 'number' && Number.isFinite(lon) && Number.isFinite(lat) && Math.abs(lon) <= 180 && Math.abs(lat) <= 90;
+  return (
+    typeof lon === 'number' &&
+    typeof lat === 'number' &&
+    Number.isFinite(lon) &&
+    Number.isFinite(lat) &&
+    Math.abs(lon) <= 180 &&
+    Math.abs(lat) <= 90
+  );
 }
 
 /** Most positions read from one boundaries file (a coarse map needs far fewer). */
@@ -55,12 +62,28 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
     doc = JSON.parse(readFileSync(path, 'utf8').replace(/^\uFEFF/, ''));
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    problems.error({ code: 'geojson-unreadable', file: label, line: 0, column: '', value: '', expected: 'a GeoJSON FeatureCollection', message: `cannot read the GeoJSON: ${message}` });
+    problems.error({
+      code: 'geojson-unreadable',
+      file: label,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'a GeoJSON FeatureCollection',
+      message: `cannot read the GeoJSON: ${message}`,
+    });
     return [];
   }
   const features = (doc as { type?: unknown; features?: unknown }).features;
   if ((doc as { type?: unknown }).type !== 'FeatureCollection' || !Array.isArray(features)) {
-    problems.error({ code: 'geojson-not-collection', file: label, line: 0, column: 'type', value: '', expected: 'a FeatureCollection', message: 'the file is not a GeoJSON FeatureCollection' });
+    problems.error({
+      code: 'geojson-not-collection',
+      file: label,
+      line: 0,
+      column: 'type',
+      value: '',
+      expected: 'a FeatureCollection',
+      message: 'the file is not a GeoJSON FeatureCollection',
+    });
     return [];
   }
   const regions: SubRegion[] = [];
@@ -69,38 +92,86 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
   features.forEach((raw: unknown, index: number) => {
     const at = `features[${index}]`;
     if (raw === null || typeof raw !== 'object' || Array.isArray(raw)) {
-      problems.error({ code: 'geojson-feature', file: label, line: 0, column: at, value: '', expected: 'a GeoJSON Feature object', message: 'a feature is not an object' });
+      problems.error({
+        code: 'geojson-feature',
+        file: label,
+        line: 0,
+        column: at,
+        value: '',
+        expected: 'a GeoJSON Feature object',
+        message: 'a feature is not an object',
+      });
       return;
     }
     const feature = raw as { properties?: Record<string, unknown> | null; geometry?: { type?: string; coordinates?: unknown } | null };
     const id = feature.properties?.subregion_id;
     const name = feature.properties?.name;
     if (typeof id !== 'string' || typeof name !== 'string' || id.trim() === '' || name.trim() === '') {
-      problems.error({ code: 'geojson-properties', file: label, line: 0, column: `${at}.properties`, value: '', expected: 'subregion_id and name as text', message: 'a feature lacks its sub-region id or name' });
+      problems.error({
+        code: 'geojson-properties',
+        file: label,
+        line: 0,
+        column: `${at}.properties`,
+        value: '',
+        expected: 'subregion_id and name as text',
+        message: 'a feature lacks its sub-region id or name',
+      });
       return;
     }
     if (id.length > MAX_ID_LENGTH || name.length > MAX_NAME_LENGTH) {
-      problems.error({ code: 'value-too-long', file: label, line: 0, column: `${at}.properties`, value: id, expected: `an id of at most ${MAX_ID_LENGTH} and a name of at most ${MAX_NAME_LENGTH} characters`, message: 'the sub-region id or name is too long' });
+      problems.error({
+        code: 'value-too-long',
+        file: label,
+        line: 0,
+        column: `${at}.properties`,
+        value: id,
+        expected: `an id of at most ${MAX_ID_LENGTH} and a name of at most ${MAX_NAME_LENGTH} characters`,
+        message: 'the sub-region id or name is too long',
+      });
       return;
     }
     // Each sub-region gets a page whose path comes from its id: two ids may not make the same path.
     const slug = slugOf(id);
     const other = slugs.get(slug);
     if (other !== undefined && other !== id) {
-      problems.error({ code: 'id-path-collision', file: label, line: 0, column: `${at}.properties.subregion_id`, value: id, expected: `an id that differs from "${other}" in more than case or punctuation`, message: 'two sub-region ids would share one page address' });
+      problems.error({
+        code: 'id-path-collision',
+        file: label,
+        line: 0,
+        column: `${at}.properties.subregion_id`,
+        value: id,
+        expected: `an id that differs from "${other}" in more than case or punctuation`,
+        message: 'two sub-region ids would share one page address',
+      });
       return;
     }
     slugs.set(slug, id);
     const geometry = feature.geometry;
     const shapes = geometry?.type === 'Polygon' ? [geometry.coordinates] : geometry?.type === 'MultiPolygon' ? geometry.coordinates : null;
     if (!Array.isArray(shapes) || shapes.length === 0) {
-      problems.error({ code: 'geojson-geometry', file: label, line: 0, column: `${at}.geometry`, value: String(geometry?.type ?? ''), expected: 'Polygon or MultiPolygon', message: 'the feature has no polygon geometry' });
+      problems.error({
+        code: 'geojson-geometry',
+        file: label,
+        line: 0,
+        column: `${at}.geometry`,
+        value: String(geometry?.type ?? ''),
+        expected: 'Polygon or MultiPolygon',
+        message: 'the feature has no polygon geometry',
+      });
       return;
     }
     const polygons: Ring[][] = [];
     for (const polygon of shapes as unknown[]) {
       if (!Array.isArray(polygon) || polygon.length === 0) {
-        problems.error({ code: 'geojson-ring', file: label, line: 0, column: `${at}.geometry`, value: '', expected: 'a polygon of at least one ring', message: 'a polygon has no rings' });
+        problems.error({
+          code: 'geojson-ring',
+          file: label,
+          line: 0,
+          column: `${at}.geometry`,
+          value: '',
+          expected: 'a polygon of at least one ring',
+          message: 'a polygon has no rings',
+        });
         return;
       }
       const rings: Ring[] = [];
@@ -108,19 +179,43 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         const list = Array.isArray(ring) ? (ring as unknown[]) : [];
         positions += list.length;
         if (positions > MAX_POSITIONS) {
-          problems.error({ code: 'geojson-too-large', file: label, line: 0, column: `${at}.geometry`, value: '', expected: `at most ${MAX_POSITIONS} positions in all`, message: 'the boundaries hold too many positions; simplify them' });
+          problems.error({
+            code: 'geojson-too-large',
+            file: label,
+            line: 0,
+            column: `${at}.geometry`,
+            value: '',
+            expected: `at most ${MAX_POSITIONS} positions in all`,
+            message: 'the boundaries hold too many positions; simplify them',
+          });
           return;
         }
         const bad = list.findIndex((position) => !isPosition(position));
         if (bad >= 0) {
-          problems.error({ code: 'geojson-position', file: label, line: 0, column: `${at}.geometry`, value: JSON.stringify(list[bad]) ?? '', expected: 'a position [longitude, latitude] in degrees, longitude −180 to 180, latitude −90 to 90', message: 'a position is not a valid longitude and latitude' });
+          problems.error({
+            code: 'geojson-position',
+            file: label,
+            line: 0,
+            column: `${at}.geometry`,
+            value: JSON.stringify(list[bad]) ?? '',
+            expected: 'a position [longitude, latitude] in degrees, longitude −180 to 180, latitude −90 to 90',
+            message: 'a position is not a valid longitude and latitude',
+          });
           return;
         }
         const points = list.map((position) => [(position as number[])[0], (position as number[])[1]] as [number, number]);
         const first = points[0];
         const last = points[points.length - 1];
         if (points.length < 4 || !first || !last || first[0] !== last[0] || first[1] !== last[1]) {
-          problems.error({ code: 'geojson-ring', file: label, line: 0, column: `${at}.geometry`, value: String(points.length), expected: 'a closed ring of at least 4 positions, the last equal to the first', message: 'a polygon ring is not closed' });
+          problems.error({
+            code: 'geojson-ring',
+            file: label,
+            line: 0,
+            column: `${at}.geometry`,
+            value: String(points.length),
+            expected: 'a closed ring of at least 4 positions, the last equal to the first',
+            message: 'a polygon ring is not closed',
+          });
           return;
         }
         rings.push(points);

@@ -14,8 +14,19 @@ import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
 import {
-  readDistributionBins, readField, readInventory, readQuality, readRainfall, readSurfaceArea,
-  type AreaTable, type DistributionBin, type FieldRecord, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody,
+  readDistributionBins,
+  readField,
+  readInventory,
+  readQuality,
+  readRainfall,
+  readSurfaceArea,
+  type AreaTable,
+  type DistributionBin,
+  type FieldRecord,
+  type QualityTable,
+  type RainfallRecord,
+  type ReadContext,
+  type WaterBody,
 } from './tables.ts';
 
 export type { BulletinConfig } from './config.ts';
@@ -71,7 +82,12 @@ function hashFile(path: string, full: string, hashes: HashCache): Omit<InputFile
   if (!statSync(full).isDirectory()) return { path, ...sha256File(full, hashes) };
   const parts = parquetParts(full).map((part) => ({ part, ...sha256File(join(full, part), hashes) }));
   const listing = parts.map(({ part, sha256 }) => `${sha256}  ${part}\n`).join('');
-  return { path, sha256: createHash('sha256').update(listing).digest('hex'), bytes: parts.reduce((sum, part) => sum + part.bytes, 0), parts: parts.map(({ part, sha256, bytes }) => ({ path: part, sha256, bytes })) };
+  return {
+    path,
+    sha256: createHash('sha256').update(listing).digest('hex'),
+    bytes: parts.reduce((sum, part) => sum + part.bytes, 0),
+    parts: parts.map(({ part, sha256, bytes }) => ({ path: part, sha256, bytes })),
+  };
 }
 
 /**
@@ -99,7 +115,15 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   } catch (error) {
     const expected = error instanceof ConfinementError ? error.expected : 'a bulletin folder holding bulletin.json';
     const code = error instanceof ConfinementError && error.code !== 'file-missing' ? error.code : 'config-missing';
-    problems.error({ code, file: configLabel, line: 0, column: '', value: '', expected, message: error instanceof ConfinementError && code !== 'config-missing' ? error.message : 'the configuration file cannot be read' });
+    problems.error({
+      code,
+      file: configLabel,
+      line: 0,
+      column: '',
+      value: '',
+      expected,
+      message: error instanceof ConfinementError && code !== 'config-missing' ? error.message : 'the configuration file cannot be read',
+    });
     return { inputs: null, problems };
   }
   const config = readConfig(configPath, configLabel, problems);
@@ -115,7 +139,15 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
       real.set(path, resolveInside(root, path, key === 'boundaries' ? 'boundaries' : 'table', key !== 'boundaries'));
     } catch (error) {
       if (!(error instanceof ConfinementError)) throw error;
-      problems.error({ code: error.code, file: configLabel, line: 0, column: `inputs.${key}`, value: path, expected: error.expected, message: error.message });
+      problems.error({
+        code: error.code,
+        file: configLabel,
+        line: 0,
+        column: `inputs.${key}`,
+        value: path,
+        expected: error.expected,
+        message: error.message,
+      });
     }
   }
   const content = readContent(root, config, problems, label);
@@ -130,7 +162,9 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   const area = await readSurfaceArea(at(paths.surfaceArea), label(paths.surfaceArea), bodies, context);
   if (paths.quality) onStep?.(label(paths.quality));
   const quality = paths.quality ? await readQuality(at(paths.quality), label(paths.quality), bodies, context) : null;
-  const distribution = paths.distribution ? await readDistributionBins(at(paths.distribution), label(paths.distribution), regionIds, context) : [];
+  const distribution = paths.distribution
+    ? await readDistributionBins(at(paths.distribution), label(paths.distribution), regionIds, context)
+    : [];
   const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
 
@@ -150,7 +184,10 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     }),
   ].sort((a, b) => a.path.localeCompare(b.path));
   const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));
-  return { inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files, content, sources }, problems };
+  return {
+    inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files, content, sources },
+    problems,
+  };
 }
 
 /**
@@ -187,8 +224,26 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
         const bytes = readFileSync(resolveInside(root, path, 'content'));
         content[`${name}${suffix}`] = new TextDecoder('utf-8', { fatal: true }).decode(bytes).replace(/^\uFEFF/, '');
       } catch (error) {
-        if (error instanceof ConfinementError) problems.error({ code: error.code, file: label(path), line: 0, column: '', value: '', expected: error.expected, message: error.message });
-        else if (error instanceof TypeError) problems.error({ code: 'not-utf8', file: label(path), line: 0, column: '', value: '', expected: 'UTF-8 text', message: 'the file is not UTF-8; convert it to UTF-8' });
+        if (error instanceof ConfinementError)
+          problems.error({
+            code: error.code,
+            file: label(path),
+            line: 0,
+            column: '',
+            value: '',
+            expected: error.expected,
+            message: error.message,
+          });
+        else if (error instanceof TypeError)
+          problems.error({
+            code: 'not-utf8',
+            file: label(path),
+            line: 0,
+            column: '',
+            value: '',
+            expected: 'UTF-8 text',
+            message: 'the file is not UTF-8; convert it to UTF-8',
+          });
         else throw error;
       }
     }
@@ -196,25 +251,48 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
   return content;
 }
 
-
 /**
  * Editorial text written for the first language but not translated for another: that language's
  * pages will show the original (marked with its language). A warning, so editors notice.
  */
-function checkTranslations(content: Record<string, string>, config: BulletinConfig, problems: ProblemList, label: (path: string) => string): void {
+function checkTranslations(
+  content: Record<string, string>,
+  config: BulletinConfig,
+  problems: ProblemList,
+  label: (path: string) => string,
+): void {
   for (const name of CONTENT_FILES) {
     const original = `content/${name}.md`;
     if (content[name] === undefined) continue;
     for (const locale of config.locales.slice(1)) {
       const translation = `content/${name}.${locale}.md`;
       if (content[`${name}.${locale}`] !== undefined) continue;
-      problems.warning({ code: 'content-untranslated', file: label(original), line: 0, column: '', value: locale, expected: label(translation), message: `no ${locale} translation: the ${locale} pages show this text in the first language`, params: { locale, translation: label(translation) } });
+      problems.warning({
+        code: 'content-untranslated',
+        file: label(original),
+        line: 0,
+        column: '',
+        value: locale,
+        expected: label(translation),
+        message: `no ${locale} translation: the ${locale} pages show this text in the first language`,
+        params: { locale, translation: label(translation) },
+      });
     }
   }
 }
 
-function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: WaterBody[], area: AreaTable, subRegions: SubRegion[], problems: ProblemList, label: (path: string) => string): void {
-  const paths = Object.fromEntries(Object.entries(config.inputs).map(([key, value]) => [key, value === undefined ? undefined : label(value)])) as BulletinConfig['inputs'];
+function crossCheck(
+  config: BulletinConfig,
+  bulletinMonth: number,
+  bodies: WaterBody[],
+  area: AreaTable,
+  subRegions: SubRegion[],
+  problems: ProblemList,
+  label: (path: string) => string,
+): void {
+  const paths = Object.fromEntries(
+    Object.entries(config.inputs).map(([key, value]) => [key, value === undefined ? undefined : label(value)]),
+  ) as BulletinConfig['inputs'];
   const configLabel = label(CONFIG_FILE);
   const regionIds = new Set(subRegions.map((region) => region.id));
   if (subRegions.length > 0) {
@@ -222,7 +300,15 @@ function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: Water
     for (const body of bodies) if (!firstLine.has(body.subRegionId)) firstLine.set(body.subRegionId, body.line);
     for (const [id, line] of firstLine) {
       if (!regionIds.has(id)) {
-        problems.error({ code: 'subregion-without-boundary', file: paths.inventory, line, column: 'subregion_id', value: id, expected: `a feature with this subregion_id in ${paths.boundaries}`, message: 'the sub-region has no boundary' });
+        problems.error({
+          code: 'subregion-without-boundary',
+          file: paths.inventory,
+          line,
+          column: 'subregion_id',
+          value: id,
+          expected: `a feature with this subregion_id in ${paths.boundaries}`,
+          message: 'the sub-region has no boundary',
+        });
       }
     }
   }
@@ -239,16 +325,51 @@ function crossCheck(config: BulletinConfig, bulletinMonth: number, bodies: Water
     lastYear = Math.max(lastYear, yearOf(month));
   }
   bodies.forEach((body, k) => {
-    if (!hasData[k]) problems.warning({ code: 'body-without-data', file: paths.inventory, line: body.line, column: 'body_id', value: body.id, expected: `rows in ${paths.surfaceArea}`, message: 'the water body has no surface-area data', params: { table: paths.surfaceArea } });
+    if (!hasData[k])
+      problems.warning({
+        code: 'body-without-data',
+        file: paths.inventory,
+        line: body.line,
+        column: 'body_id',
+        value: body.id,
+        expected: `rows in ${paths.surfaceArea}`,
+        message: 'the water body has no surface-area data',
+        params: { table: paths.surfaceArea },
+      });
   });
   if (!inBulletinMonth) {
-    problems.error({ code: 'bulletin-month-without-data', file: configLabel, line: 0, column: 'issue.month', value: config.issue.month, expected: `a month present in ${paths.surfaceArea}`, message: 'the surface-area table has no row for the bulletin month' });
+    problems.error({
+      code: 'bulletin-month-without-data',
+      file: configLabel,
+      line: 0,
+      column: 'issue.month',
+      value: config.issue.month,
+      expected: `a month present in ${paths.surfaceArea}`,
+      message: 'the surface-area table has no row for the bulletin month',
+    });
   }
   const { firstYear: baselineFirst, lastYear: baselineLast } = config.baseline;
   if (baselineFirst < firstYear || baselineLast > lastYear) {
-    problems.error({ code: 'baseline-outside-data', file: configLabel, line: 0, column: 'baseline', value: `${baselineFirst}-${baselineLast}`, expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`, message: 'the baseline period reaches beyond the surface-area data' });
+    problems.error({
+      code: 'baseline-outside-data',
+      file: configLabel,
+      line: 0,
+      column: 'baseline',
+      value: `${baselineFirst}-${baselineLast}`,
+      expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`,
+      message: 'the baseline period reaches beyond the surface-area data',
+    });
   }
   if (baselineLast >= yearOf(bulletinMonth)) {
-    problems.warning({ code: 'baseline-includes-bulletin-year', file: configLabel, line: 0, column: 'baseline.lastYear', value: String(baselineLast), expected: `a baseline ending before ${yearOf(bulletinMonth)}`, message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself`, params: { year: String(yearOf(bulletinMonth)), month: monthLabel(bulletinMonth) } });
+    problems.warning({
+      code: 'baseline-includes-bulletin-year',
+      file: configLabel,
+      line: 0,
+      column: 'baseline.lastYear',
+      value: String(baselineLast),
+      expected: `a baseline ending before ${yearOf(bulletinMonth)}`,
+      message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself`,
+      params: { year: String(yearOf(bulletinMonth)), month: monthLabel(bulletinMonth) },
+    });
   }
 }

@@ -39,7 +39,10 @@ export interface LoadedIssue {
  * both call this, so they report the same problems. Problems come sorted per issue, the current
  * issue last, followed by those that span issues (an issue archived twice, a linked archive entry).
  */
-export async function loadIssues(folder: string, progress: { begin?: (count: number) => void; advance?: (k: number, detail?: string) => void; hashes?: HashCache } = {}): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
+export async function loadIssues(
+  folder: string,
+  progress: { begin?: (count: number) => void; advance?: (k: number, detail?: string) => void; hashes?: HashCache } = {},
+): Promise<{ issues: LoadedIssue[]; problems: Problem[]; errors: number; warnings: number }> {
   const { folders, links } = issueFolders(folder);
   progress.begin?.(folders.length);
   const issues: LoadedIssue[] = [];
@@ -48,7 +51,11 @@ export async function loadIssues(folder: string, progress: { begin?: (count: num
   let warnings = 0;
   for (const [k, issueFolder] of folders.entries()) {
     const prefix = relative(folder, issueFolder);
-    const result = await loadBulletin(issueFolder, { labelPrefix: prefix ? `${prefix.split('\\').join('/')}/` : '', onStep: (detail) => progress.advance?.(k, detail), hashes: progress.hashes });
+    const result = await loadBulletin(issueFolder, {
+      labelPrefix: prefix ? `${prefix.split('\\').join('/')}/` : '',
+      onStep: (detail) => progress.advance?.(k, detail),
+      hashes: progress.hashes,
+    });
     problems.push(...result.problems.sorted());
     errors += result.problems.total.errors;
     warnings += result.problems.total.warnings;
@@ -59,14 +66,34 @@ export async function loadIssues(folder: string, progress: { begin?: (count: num
     problems.push(problem);
     errors++;
   };
-  for (const link of links) add({ severity: 'error', code: 'archive-link', file: link, line: 0, column: '', value: '', expected: 'an archived issue as a folder inside the bulletin folder', message: 'an archive entry is a symbolic link; it is not followed' });
+  for (const link of links)
+    add({
+      severity: 'error',
+      code: 'archive-link',
+      file: link,
+      line: 0,
+      column: '',
+      value: '',
+      expected: 'an archived issue as a folder inside the bulletin folder',
+      message: 'an archive entry is a symbolic link; it is not followed',
+    });
   const seen = new Map<string, string>();
   for (const { folder: issueFolder, inputs } of issues) {
     if (!inputs) continue;
     const name = relative(folder, issueFolder) || '.';
     const key = `${inputs.bulletinMonth} ${inputs.config.issue.revision}`;
     const other = seen.get(key);
-    if (other !== undefined) add({ severity: 'error', code: 'issue-twice', file: name, line: 0, column: 'issue', value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`, expected: 'each month and revision once', message: `the same issue and revision is also in ${other}` });
+    if (other !== undefined)
+      add({
+        severity: 'error',
+        code: 'issue-twice',
+        file: name,
+        line: 0,
+        column: 'issue',
+        value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`,
+        expected: 'each month and revision once',
+        message: `the same issue and revision is also in ${other}`,
+      });
     seen.set(key, name);
   }
   return { issues, problems, errors, warnings };

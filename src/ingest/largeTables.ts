@@ -10,7 +10,16 @@ import { createHash } from 'node:crypto';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { sharedPool } from '../parallel/pool.ts';
 import { SeenBits } from './columns.ts';
-import { plainHeader, SCAN, scanRange, type ScanColumns, type ScanInventory, type ScanKind, type ScanResult, type ScanTask } from './plainScan.ts';
+import {
+  plainHeader,
+  SCAN,
+  scanRange,
+  type ScanColumns,
+  type ScanInventory,
+  type ScanKind,
+  type ScanResult,
+  type ScanTask,
+} from './plainScan.ts';
 import { QUALITY_PARAMETERS, type AreaTable, type QualityTable, type ReadContext, type WaterBody } from './tableTypes.ts';
 import { FIRST_MONTH } from '../common/months.ts';
 
@@ -31,15 +40,27 @@ export async function readQualityFast(path: string, bodies: WaterBody[], context
   const joined = await scanFile('quality', path, bodies, context);
   if (!joined) return null;
   const [median] = joined.values as [Float64Array];
-  const table: QualityTable = { length: joined.body.length, body: joined.body, month: joined.month, parameter: joined.parameter as Int32Array, median };
+  const table: QualityTable = {
+    length: joined.body.length,
+    body: joined.body,
+    month: joined.month,
+    parameter: joined.parameter as Int32Array,
+    median,
+  };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }
 
-function hasRepeats(table: { length: number; body: Int32Array; month: Int32Array }, bodies: number, bulletinMonth: number, parameter?: Int32Array): boolean {
+function hasRepeats(
+  table: { length: number; body: Int32Array; month: Int32Array },
+  bodies: number,
+  bulletinMonth: number,
+  parameter?: Int32Array,
+): boolean {
   const months = Math.max(1, bulletinMonth - FIRST_MONTH + 1);
   const seen = (parameter ? QUALITY_PARAMETERS : [null]).map(() => new SeenBits(bodies, FIRST_MONTH, months));
   for (let k = 0; k < table.length; k++) {
-    if ((seen[parameter ? (parameter[k] as number) : 0] as SeenBits).testAndSet(table.body[k] as number, table.month[k] as number)) return true;
+    if ((seen[parameter ? (parameter[k] as number) : 0] as SeenBits).testAndSet(table.body[k] as number, table.month[k] as number))
+      return true;
   }
   return false;
 }
@@ -52,7 +73,14 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
   const referenceHa = Float64Array.from(bodies, (body) => body.referenceHa);
   const key = createHash('sha256').update(ids.join('\n')).update(new Uint8Array(referenceHa.buffer)).digest('hex');
   const inventory: ScanInventory = { key, ids, referenceHa };
-  const tasks: ScanTask[] = layout.ranges.map(([start, end]) => ({ kind, path, start, end, header: layout.header, bulletinMonth: context.bulletinMonth }));
+  const tasks: ScanTask[] = layout.ranges.map(([start, end]) => ({
+    kind,
+    path,
+    start,
+    end,
+    header: layout.header,
+    bulletinMonth: context.bulletinMonth,
+  }));
   const parallel = layout.size > PARALLEL_BYTES && sharedPool().size > 1;
   let scanned = 0;
   const name = path.split(/[\\/]/).pop() ?? path;
@@ -61,14 +89,21 @@ async function scanFile(kind: ScanKind, path: string, bodies: WaterBody[], conte
     context.onStep?.(`${name}: part ${scanned} of ${tasks.length}`);
     return result;
   };
-  const results: ScanResult[] = parallel ? await Promise.all(tasks.map((task) => sharedPool().run(SCAN, { task, inventory }).then(report))) : tasks.map((task) => report(scanRange(task, inventory)));
+  const results: ScanResult[] = parallel
+    ? await Promise.all(tasks.map((task) => sharedPool().run(SCAN, { task, inventory }).then(report)))
+    : tasks.map((task) => report(scanRange(task, inventory)));
   if (results.some((result) => !result.ok)) return null;
   const parts = results as Array<Extract<ScanResult, { ok: true }>>;
   const rows = parts.reduce((sum, part) => sum + part.rows, 0);
   if (rows === 0) return null;
   // Join in file order.
   const first = (parts[0] as (typeof parts)[number]).columns;
-  const joined: ScanColumns = { body: new Int32Array(rows), month: new Int32Array(rows), values: first.values.map(() => new Float64Array(rows)), ...(first.parameter ? { parameter: new Int32Array(rows) } : {}) };
+  const joined: ScanColumns = {
+    body: new Int32Array(rows),
+    month: new Int32Array(rows),
+    values: first.values.map(() => new Float64Array(rows)),
+    ...(first.parameter ? { parameter: new Int32Array(rows) } : {}),
+  };
   let at = 0;
   for (let p = 0; p < parts.length; p++) {
     const part = parts[p] as (typeof parts)[number];

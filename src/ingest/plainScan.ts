@@ -73,12 +73,19 @@ export type ScanResult = { ok: true; rows: number; lines: number; columns: ScanC
 
 const AREA_COLUMNS = ['body_id', 'month', 'water_area_ha', 'observed_share', 'scenes'];
 const QUALITY_COLUMNS = ['body_id', 'month', 'parameter', 'unit', 'p10', 'p25', 'median', 'p75', 'p90', 'valid_pixels'];
-const REQUIRED: Record<ScanKind, string[]> = { area: ['body_id', 'month', 'water_area_ha', 'observed_share'], quality: ['body_id', 'month', 'parameter', 'unit', 'median'] };
+const REQUIRED: Record<ScanKind, string[]> = {
+  area: ['body_id', 'month', 'water_area_ha', 'observed_share'],
+  quality: ['body_id', 'month', 'parameter', 'unit', 'median'],
+};
 const KNOWN: Record<ScanKind, string[]> = { area: AREA_COLUMNS, quality: QUALITY_COLUMNS };
 
 /** Whether a header suits the fast path: every column known, once, and the required ones there. */
 export function plainHeader(kind: ScanKind, header: string[]): boolean {
-  return new Set(header).size === header.length && header.every((name) => KNOWN[kind].includes(name)) && REQUIRED[kind].every((name) => header.includes(name));
+  return (
+    new Set(header).size === header.length &&
+    header.every((name) => KNOWN[kind].includes(name)) &&
+    REQUIRED[kind].every((name) => header.includes(name))
+  );
 }
 
 const ascii = (text: string) => Uint8Array.from(text, (char) => char.charCodeAt(0));
@@ -88,7 +95,6 @@ const PARAMETERS = [
   { name: ascii('turbidity'), units: ['FNU'].map(ascii) },
 ];
 const PARAMETER_NAMES = PARAMETERS.map((parameter) => parameter.name);
-
 
 /** What each field of a row is, by its position in the header. */
 const ID = 0;
@@ -114,7 +120,17 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const fields = task.header.length;
   const area = task.kind === 'area';
   const numberNames = area ? ['water_area_ha', 'observed_share', 'scenes'] : ['p10', 'p25', 'median', 'p75', 'p90', 'valid_pixels'];
-  const roles = Int32Array.from(task.header, (name) => (name === 'body_id' ? ID : name === 'month' ? MONTH : name === 'parameter' ? PARAMETER : name === 'unit' ? UNIT : ROLE_NUMBER + numberNames.indexOf(name)));
+  const roles = Int32Array.from(task.header, (name) =>
+    name === 'body_id'
+      ? ID
+      : name === 'month'
+        ? MONTH
+        : name === 'parameter'
+          ? PARAMETER
+          : name === 'unit'
+            ? UNIT
+            : ROLE_NUMBER + numberNames.indexOf(name),
+  );
   const index = lookupOf(inventory);
   const body = new GrowableInt32(1 << 16);
   const month = new GrowableInt32(1 << 16);
@@ -187,7 +203,14 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
           let high = 0;
           while (k < to && buffer[k] !== COMMA) high |= buffer[k++] as number;
           const length = k - start;
-          if (length === 0 || length > previousId.length || high >= 128 || (buffer[start] as number) <= 32 || (buffer[k - 1] as number) <= 32) return ((reason = 'body id'), false);
+          if (
+            length === 0 ||
+            length > previousId.length ||
+            high >= 128 ||
+            (buffer[start] as number) <= 32 ||
+            (buffer[k - 1] as number) <= 32
+          )
+            return ((reason = 'body id'), false);
           const position = index.get(buffer.toString('latin1', start, k));
           if (position === undefined) return ((reason = 'unknown body'), false);
           previousId.set(buffer.subarray(start, k));
@@ -214,8 +237,9 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       if (!(waterHa >= 0) || !(observed <= 1)) return ((reason = 'number'), false);
       if (waterHa > 1.5 * (inventory.referenceHa[previousBody] as number)) return ((reason = 'area above reference'), false);
     } else {
-      if (code < 0 || matchOne(buffer, unitFrom, unitTo, (PARAMETERS[code] as (typeof PARAMETERS)[number]).units) < 0) return ((reason = 'parameter or unit'), false);
-      if (!(row[2] as number >= 0)) return ((reason = 'median'), false);
+      if (code < 0 || matchOne(buffer, unitFrom, unitTo, (PARAMETERS[code] as (typeof PARAMETERS)[number]).units) < 0)
+        return ((reason = 'parameter or unit'), false);
+      if (!((row[2] as number) >= 0)) return ((reason = 'median'), false);
       let previous = -Infinity;
       for (let q = 0; q < 5; q++) {
         const value = row[q] as number;
@@ -262,7 +286,12 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
     closeSync(handle);
   }
   const values = columns.map((column) => column.done());
-  return { ok: true, rows: body.length, lines: lineNumber, columns: { body: body.done(), month: month.done(), values, ...(area ? {} : { parameter: parameters.done() }) } };
+  return {
+    ok: true,
+    rows: body.length,
+    lines: lineNumber,
+    columns: { body: body.done(), month: month.done(), values, ...(area ? {} : { parameter: parameters.done() }) },
+  };
 }
 
 /** A month YYYY-MM from 7 bytes, as year × 12 + month − 1; NaN when it is not one. */

@@ -79,10 +79,23 @@ export class ProblemList {
     for (const [kind, count] of this.perKind) {
       if (count <= PROBLEMS_KEPT_PER_KIND) continue;
       const sample = this.items.find((problem) => `${problem.severity} ${problem.file} ${problem.code}` === kind) as Problem;
-      more.push({ ...sample, line: Number.MAX_SAFE_INTEGER, column: '', value: '', expected: '', message: `${count - PROBLEMS_KEPT_PER_KIND} more problem(s) of this kind (${sample.code}) not listed` });
+      more.push({
+        ...sample,
+        line: Number.MAX_SAFE_INTEGER,
+        column: '',
+        value: '',
+        expected: '',
+        message: `${count - PROBLEMS_KEPT_PER_KIND} more problem(s) of this kind (${sample.code}) not listed`,
+      });
     }
     return [...this.items, ...more].sort(
-      (a, b) => rankOf(a.file) - rankOf(b.file) || a.file.localeCompare(b.file) || a.line - b.line || (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) || a.column.localeCompare(b.column) || a.code.localeCompare(b.code),
+      (a, b) =>
+        rankOf(a.file) - rankOf(b.file) ||
+        a.file.localeCompare(b.file) ||
+        a.line - b.line ||
+        (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1) ||
+        a.column.localeCompare(b.column) ||
+        a.code.localeCompare(b.code),
     );
   }
 }
@@ -92,14 +105,19 @@ export class ProblemList {
  * unreadable inventory row above the "not in the inventory" lines of every table): the
  * configuration, then the boundaries, then the inventory, then the rest.
  */
-const ROOT_FILES: Array<[RegExp, number]> = [[/bulletin\.json$/, 0], [/\.geojson$/i, 1], [/water-bodies|inventory/i, 2]];
+const ROOT_FILES: Array<[RegExp, number]> = [
+  [/bulletin\.json$/, 0],
+  [/\.geojson$/i, 1],
+  [/water-bodies|inventory/i, 2],
+];
 function rankOf(file: string): number {
   return ROOT_FILES.find(([pattern]) => pattern.test(file))?.[1] ?? 3;
 }
 
 /** The bracket after a message: what was found and what was expected (or a suggestion). */
 export function describeFound(problem: Problem): string {
-  const expected = problem.expected === '' ? '' : problem.expected.startsWith('did you mean') ? problem.expected : `expected ${problem.expected}`;
+  const expected =
+    problem.expected === '' ? '' : problem.expected.startsWith('did you mean') ? problem.expected : `expected ${problem.expected}`;
   if (problem.value !== '') return ` (found "${problem.value}"${expected ? `; ${expected}` : ''})`;
   return expected ? ` (${expected})` : '';
 }

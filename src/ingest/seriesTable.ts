@@ -73,22 +73,54 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
     const valueText = (values[at[columns.value]!] ?? '').trim();
     const time = parseTime(timeText);
     if (time && !(Math.abs(time.years) <= MAX_MAGNITUDE)) {
-      problems.error({ code: 'value-out-of-range', file: label, line, column: columns.time, value: timeText, expected: `a time of at most ${MAX_MAGNITUDE} in size`, message: 'the time is too large for the trend arithmetic' });
+      problems.error({
+        code: 'value-out-of-range',
+        file: label,
+        line,
+        column: columns.time,
+        value: timeText,
+        expected: `a time of at most ${MAX_MAGNITUDE} in size`,
+        message: 'the time is too large for the trend arithmetic',
+      });
       return;
     }
     if (!time) {
-      problems.error({ code: 'time-invalid', file: label, line, column: columns.time, value: timeText, expected: 'YYYY-MM, YYYY-MM-DD or a number of years', message: 'the time cannot be read' });
+      problems.error({
+        code: 'time-invalid',
+        file: label,
+        line,
+        column: columns.time,
+        value: timeText,
+        expected: 'YYYY-MM, YYYY-MM-DD or a number of years',
+        message: 'the time cannot be read',
+      });
       return;
     }
     let value = Number.NaN;
     if (valueText !== '') {
       value = /^-?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(valueText) ? Number(valueText) : Number.NaN;
       if (Number.isNaN(value)) {
-        problems.error({ code: 'value-not-number', file: label, line, column: columns.value, value: valueText, expected: 'a finite number, or nothing for a missing value', message: 'the value is not a number' });
+        problems.error({
+          code: 'value-not-number',
+          file: label,
+          line,
+          column: columns.value,
+          value: valueText,
+          expected: 'a finite number, or nothing for a missing value',
+          message: 'the value is not a number',
+        });
         return;
       }
       if (!(Math.abs(value) <= MAX_MAGNITUDE)) {
-        problems.error({ code: 'value-out-of-range', file: label, line, column: columns.value, value: valueText, expected: `a number of at most ${MAX_MAGNITUDE} in size (rescale the unit)`, message: 'the value is too large for the trend arithmetic' });
+        problems.error({
+          code: 'value-out-of-range',
+          file: label,
+          line,
+          column: columns.value,
+          value: valueText,
+          expected: `a number of at most ${MAX_MAGNITUDE} in size (rescale the unit)`,
+          message: 'the value is too large for the trend arithmetic',
+        });
         return;
       }
     }
@@ -100,7 +132,15 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
   const series: SeriesInput[] = [];
   for (const [key, list] of [...rows.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
     if (list.length > MAX_VALUES_PER_SERIES) {
-      problems.error({ code: 'series-too-long', file: label, line: list[MAX_VALUES_PER_SERIES]!.line, column: columns.time, value: key, expected: `at most ${MAX_VALUES_PER_SERIES} values per series`, message: `series "${key}" has ${list.length} values, more than the pairwise trend methods are run on` });
+      problems.error({
+        code: 'series-too-long',
+        file: label,
+        line: list[MAX_VALUES_PER_SERIES]!.line,
+        column: columns.time,
+        value: key,
+        expected: `at most ${MAX_VALUES_PER_SERIES} values per series`,
+        message: `series "${key}" has ${list.length} values, more than the pairwise trend methods are run on`,
+      });
       continue;
     }
     list.sort((a, b) => a.time.years - b.time.years);
@@ -108,7 +148,15 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
       const here = list[k]!;
       const before = list[k - 1]!;
       if (here.time.years === before.time.years) {
-        problems.error({ code: 'duplicate-time', file: label, line: here.line, column: columns.time, value: here.label, expected: 'each time once per series', message: `series "${key}" already has this time on line ${before.line}` });
+        problems.error({
+          code: 'duplicate-time',
+          file: label,
+          line: here.line,
+          column: columns.time,
+          value: here.label,
+          expected: 'each time once per series',
+          message: `series "${key}" already has this time on line ${before.line}`,
+        });
       }
     }
     series.push({

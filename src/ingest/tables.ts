@@ -11,20 +11,46 @@ import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
 import { readTable } from './csv.ts';
 import { readAreaFast, readQualityFast } from './largeTables.ts';
 
-export { QUALITY_PARAMETERS, QUALITY_UNITS, type AreaTable, type DistributionBin, type FieldRecord, type QualityParameter, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody } from './tableTypes.ts';
+export {
+  QUALITY_PARAMETERS,
+  QUALITY_UNITS,
+  type AreaTable,
+  type DistributionBin,
+  type FieldRecord,
+  type QualityParameter,
+  type QualityTable,
+  type RainfallRecord,
+  type ReadContext,
+  type WaterBody,
+} from './tableTypes.ts';
 import { FIRST_MONTH, monthLabel } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
-import { QUALITY_PARAMETERS, QUALITY_UNITS, type AreaTable, type DistributionBin, type FieldRecord, type QualityParameter, type QualityTable, type RainfallRecord, type ReadContext, type WaterBody } from './tableTypes.ts';
+import {
+  QUALITY_PARAMETERS,
+  QUALITY_UNITS,
+  type AreaTable,
+  type DistributionBin,
+  type FieldRecord,
+  type QualityParameter,
+  type QualityTable,
+  type RainfallRecord,
+  type ReadContext,
+  type WaterBody,
+} from './tableTypes.ts';
 
-
-
-const spec = (required: string[], optional: string[] = []) => [...required.map((name) => ({ name, required: true })), ...optional.map((name) => ({ name, required: false }))];
+const spec = (required: string[], optional: string[] = []) => [
+  ...required.map((name) => ({ name, required: true })),
+  ...optional.map((name) => ({ name, required: false })),
+];
 
 /** Months after the bulletin month belong to a later issue: skipped with one warning per file. */
 class LaterMonths {
   private count = 0;
   private firstLine = 0;
-  constructor(private readonly file: string, private readonly context: ReadContext) {}
+  constructor(
+    private readonly file: string,
+    private readonly context: ReadContext,
+  ) {}
   skip(month: number, line: number): boolean {
     if (month <= this.context.bulletinMonth) return false;
     if (this.count++ === 0) this.firstLine = line;
@@ -32,14 +58,30 @@ class LaterMonths {
   }
   report(): void {
     if (this.count === 0) return;
-    this.context.problems.warning({ code: 'month-after-bulletin', file: this.file, line: this.firstLine, column: 'month', value: String(this.count), expected: `months up to ${monthLabel(this.context.bulletinMonth)}`, message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)`, params: { count: this.count, month: monthLabel(this.context.bulletinMonth) } });
+    this.context.problems.warning({
+      code: 'month-after-bulletin',
+      file: this.file,
+      line: this.firstLine,
+      column: 'month',
+      value: String(this.count),
+      expected: `months up to ${monthLabel(this.context.bulletinMonth)}`,
+      message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)`,
+      params: { count: this.count, month: monthLabel(this.context.bulletinMonth) },
+    });
   }
 }
 
 function monthInRange(cells: CellReader, month: number, raw: string, line: number): boolean {
   if (Number.isNaN(month)) return false;
   if (month < FIRST_MONTH) {
-    cells.fail(line, 'month', raw, 'month-out-of-range', `a month from ${monthLabel(FIRST_MONTH)} on`, 'the month is too early for satellite data');
+    cells.fail(
+      line,
+      'month',
+      raw,
+      'month-out-of-range',
+      `a month from ${monthLabel(FIRST_MONTH)} on`,
+      'the month is too early for satellite data',
+    );
     return false;
   }
   return true;
@@ -64,19 +106,37 @@ export async function readInventory(path: string, label: string, context: ReadCo
       ownPage: cells.flag(values, at.own_page!, 'own_page', line),
       line,
     };
-    if (body.referenceHa === 0) cells.fail(line, 'reference_area_ha', values[at.reference_area_ha!] ?? '', 'value-out-of-range', 'more than 0', 'a water body needs a reference area above 0');
+    if (body.referenceHa === 0)
+      cells.fail(
+        line,
+        'reference_area_ha',
+        values[at.reference_area_ha!] ?? '',
+        'value-out-of-range',
+        'more than 0',
+        'a water body needs a reference area above 0',
+      );
     const earlier = seen.get(body.id);
     if (earlier !== undefined) {
       cells.fail(line, 'body_id', body.id, 'duplicate-id', 'each id once', `the id already appears on line ${earlier}`);
       return;
     }
     seen.set(body.id, line);
-    if (body.id.length > MAX_ID_LENGTH) cells.fail(line, 'body_id', body.id, 'value-too-long', `an id of at most ${MAX_ID_LENGTH} characters`, 'the id is too long');
-    if (body.name.length > MAX_NAME_LENGTH) cells.fail(line, 'name', body.name, 'value-too-long', `a name of at most ${MAX_NAME_LENGTH} characters`, 'the name is too long');
+    if (body.id.length > MAX_ID_LENGTH)
+      cells.fail(line, 'body_id', body.id, 'value-too-long', `an id of at most ${MAX_ID_LENGTH} characters`, 'the id is too long');
+    if (body.name.length > MAX_NAME_LENGTH)
+      cells.fail(line, 'name', body.name, 'value-too-long', `a name of at most ${MAX_NAME_LENGTH} characters`, 'the name is too long');
     // A body's page path comes from its id: two ids may not make the same path (S1 and s1).
     const slug = slugOf(body.id);
     const sameSlug = slugs.get(slug);
-    if (sameSlug !== undefined) cells.fail(line, 'body_id', body.id, 'id-path-collision', `an id that differs from "${sameSlug.id}" (line ${sameSlug.line}) in more than case or punctuation`, 'two ids would share one page address');
+    if (sameSlug !== undefined)
+      cells.fail(
+        line,
+        'body_id',
+        body.id,
+        'id-path-collision',
+        `an id that differs from "${sameSlug.id}" (line ${sameSlug.line}) in more than case or punctuation`,
+        'two ids would share one page address',
+      );
     else slugs.set(slug, { id: body.id, line });
     if (cells.rowOk) bodies.push(body);
   });
@@ -98,50 +158,91 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
   const scenes = new GrowableFloat64();
   const lines = new GrowableInt32();
   const duplicates: Array<{ body: number; month: number; line: number }> = [];
-  await readTable(path, label, spec(['body_id', 'month', 'water_area_ha', 'observed_share'], ['scenes']), context.problems, (values, line, at) => {
-    cells.startRow();
-    const id = cells.text(values, at.body_id!, 'body_id', line);
-    const monthText = values[at.month!] ?? '';
-    const when = cells.month(values, at.month!, 'month', line);
-    const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0);
-    const observed = cells.number(values, at.observed_share!, 'observed_share', line, 0, 1);
-    const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, 0, Infinity, true) : Number.NaN;
-    if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
-    const position = index.get(id);
-    if (position === undefined) {
-      cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
-      return;
-    }
-    if (seen.testAndSet(position, when)) {
-      duplicates.push({ body: position, month: when, line });
-      return;
-    }
-    const reference = (bodies[position] as WaterBody).referenceHa;
-    if (waterHa > 1.5 * reference) {
-      context.problems.warning({ code: 'area-above-reference', file: label, line, column: 'water_area_ha', value: values[at.water_area_ha!] ?? '', expected: `at most 1.5 × the reference area (${reference} ha)`, message: 'the water area is far above the reference area: check the units or the inventory', params: { reference } });
-    }
-    body.push(position);
-    month.push(when);
-    water.push(waterHa);
-    share.push(observed);
-    scenes.push(sceneCount);
-    lines.push(line);
-  }, (file) => (cells.file = file));
+  await readTable(
+    path,
+    label,
+    spec(['body_id', 'month', 'water_area_ha', 'observed_share'], ['scenes']),
+    context.problems,
+    (values, line, at) => {
+      cells.startRow();
+      const id = cells.text(values, at.body_id!, 'body_id', line);
+      const monthText = values[at.month!] ?? '';
+      const when = cells.month(values, at.month!, 'month', line);
+      const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0);
+      const observed = cells.number(values, at.observed_share!, 'observed_share', line, 0, 1);
+      const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, 0, Infinity, true) : Number.NaN;
+      if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
+      const position = index.get(id);
+      if (position === undefined) {
+        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+        return;
+      }
+      if (seen.testAndSet(position, when)) {
+        duplicates.push({ body: position, month: when, line });
+        return;
+      }
+      const reference = (bodies[position] as WaterBody).referenceHa;
+      if (waterHa > 1.5 * reference) {
+        context.problems.warning({
+          code: 'area-above-reference',
+          file: label,
+          line,
+          column: 'water_area_ha',
+          value: values[at.water_area_ha!] ?? '',
+          expected: `at most 1.5 × the reference area (${reference} ha)`,
+          message: 'the water area is far above the reference area: check the units or the inventory',
+          params: { reference },
+        });
+      }
+      body.push(position);
+      month.push(when);
+      water.push(waterHa);
+      share.push(observed);
+      scenes.push(sceneCount);
+      lines.push(line);
+    },
+    (file) => (cells.file = file),
+  );
   later.report();
-  const table: AreaTable = { length: body.length, body: body.done(), month: month.done(), waterHa: water.done(), observedShare: share.done(), scenes: scenes.done() };
+  const table: AreaTable = {
+    length: body.length,
+    body: body.done(),
+    month: month.done(),
+    waterHa: water.done(),
+    observedShare: share.done(),
+    scenes: scenes.done(),
+  };
   reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'the same water body and month');
   return table;
 }
 
 /** Names the first line of each repeated (body, month) by one scan over the kept rows. */
-function reportDuplicates(duplicates: Array<{ body: number; month: number; line: number }>, table: { body: Int32Array; month: Int32Array; length: number }, lines: Int32Array, label: string, problems: ProblemList, what: string, parameter?: Int32Array, parameters?: number[]): void {
+function reportDuplicates(
+  duplicates: Array<{ body: number; month: number; line: number }>,
+  table: { body: Int32Array; month: Int32Array; length: number },
+  lines: Int32Array,
+  label: string,
+  problems: ProblemList,
+  what: string,
+  parameter?: Int32Array,
+  parameters?: number[],
+): void {
   if (duplicates.length === 0) return;
   const key = (b: number, m: number, p: number) => `${b} ${m} ${p}`;
   const firstLine = new Map<string, number>();
-  for (let k = 0; k < table.length; k++) firstLine.set(key(table.body[k] as number, table.month[k] as number, parameter ? (parameter[k] as number) : 0), lines[k] as number);
+  for (let k = 0; k < table.length; k++)
+    firstLine.set(key(table.body[k] as number, table.month[k] as number, parameter ? (parameter[k] as number) : 0), lines[k] as number);
   duplicates.forEach((duplicate, k) => {
     const earlier = firstLine.get(key(duplicate.body, duplicate.month, parameters?.[k] ?? 0));
-    problems.error({ code: 'duplicate-row', file: label, line: duplicate.line, column: 'month', value: monthLabel(duplicate.month), expected: 'one row per water body and month', message: `${what} already appear on line ${earlier ?? '?'}` });
+    problems.error({
+      code: 'duplicate-row',
+      file: label,
+      line: duplicate.line,
+      column: 'month',
+      value: monthLabel(duplicate.month),
+      expected: 'one row per water body and month',
+      message: `${what} already appear on line ${earlier ?? '?'}`,
+    });
   });
 }
 
@@ -161,48 +262,99 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
   const lines = new GrowableInt32();
   const duplicates: Array<{ body: number; month: number; line: number }> = [];
   const duplicateParameters: number[] = [];
-  await readTable(path, label, spec(['body_id', 'month', 'parameter', 'unit', 'median'], ['p10', 'p25', 'p75', 'p90', 'valid_pixels']), context.problems, (values, line, at) => {
-    cells.startRow();
-    const id = cells.text(values, at.body_id!, 'body_id', line);
-    const monthText = values[at.month!] ?? '';
-    const when = cells.month(values, at.month!, 'month', line);
-    const name = cells.text(values, at.parameter!, 'parameter', line);
-    const unit = cells.text(values, at.unit!, 'unit', line);
-    const found = QUANTILE_COLUMNS.map((column) => (at[column]! >= 0 ? cells.number(values, at[column]!, column, line, 0, Infinity, column !== 'median') : Number.NaN));
-    if (at.valid_pixels! >= 0) cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true);
-    const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
-    if (name !== '' && code < 0) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
-    if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
-      cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].join(' or '), `the unit does not match ${name}`);
-    }
-    const present = found.filter((value) => !Number.isNaN(value));
-    if (present.some((value, k) => k > 0 && value < (present[k - 1] as number))) {
-      cells.fail(line, 'median', found.map((v) => (Number.isNaN(v) ? '' : String(v))).join(' '), 'quantiles-out-of-order', 'p10 ≤ p25 ≤ median ≤ p75 ≤ p90', 'the quantiles are not in rising order');
-    }
-    if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
-    const position = index.get(id);
-    if (position === undefined) {
-      cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
-      return;
-    }
-    if ((seen[code] as SeenBits).testAndSet(position, when)) {
-      duplicates.push({ body: position, month: when, line });
-      duplicateParameters.push(code);
-      return;
-    }
-    body.push(position);
-    month.push(when);
-    parameter.push(code);
-    medians.push(found[2] as number);
-    lines.push(line);
-  }, (file) => (cells.file = file));
+  await readTable(
+    path,
+    label,
+    spec(['body_id', 'month', 'parameter', 'unit', 'median'], ['p10', 'p25', 'p75', 'p90', 'valid_pixels']),
+    context.problems,
+    (values, line, at) => {
+      cells.startRow();
+      const id = cells.text(values, at.body_id!, 'body_id', line);
+      const monthText = values[at.month!] ?? '';
+      const when = cells.month(values, at.month!, 'month', line);
+      const name = cells.text(values, at.parameter!, 'parameter', line);
+      const unit = cells.text(values, at.unit!, 'unit', line);
+      const found = QUANTILE_COLUMNS.map((column) =>
+        at[column]! >= 0 ? cells.number(values, at[column]!, column, line, 0, Infinity, column !== 'median') : Number.NaN,
+      );
+      if (at.valid_pixels! >= 0) cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true);
+      const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
+      if (name !== '' && code < 0)
+        cells.fail(
+          line,
+          'parameter',
+          name,
+          'parameter-unknown',
+          QUALITY_PARAMETERS.join(' or '),
+          'the parameter is not one the bulletin knows',
+        );
+      if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
+        cells.fail(
+          line,
+          'unit',
+          unit,
+          'unit-mismatch',
+          QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].join(' or '),
+          `the unit does not match ${name}`,
+        );
+      }
+      const present = found.filter((value) => !Number.isNaN(value));
+      if (present.some((value, k) => k > 0 && value < (present[k - 1] as number))) {
+        cells.fail(
+          line,
+          'median',
+          found.map((v) => (Number.isNaN(v) ? '' : String(v))).join(' '),
+          'quantiles-out-of-order',
+          'p10 ≤ p25 ≤ median ≤ p75 ≤ p90',
+          'the quantiles are not in rising order',
+        );
+      }
+      if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
+      const position = index.get(id);
+      if (position === undefined) {
+        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+        return;
+      }
+      if ((seen[code] as SeenBits).testAndSet(position, when)) {
+        duplicates.push({ body: position, month: when, line });
+        duplicateParameters.push(code);
+        return;
+      }
+      body.push(position);
+      month.push(when);
+      parameter.push(code);
+      medians.push(found[2] as number);
+      lines.push(line);
+    },
+    (file) => (cells.file = file),
+  );
   later.report();
-  const table: QualityTable = { length: body.length, body: body.done(), month: month.done(), parameter: parameter.done(), median: medians.done() };
-  reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'the same water body, month and parameter', table.parameter, duplicateParameters);
+  const table: QualityTable = {
+    length: body.length,
+    body: body.done(),
+    month: month.done(),
+    parameter: parameter.done(),
+    median: medians.done(),
+  };
+  reportDuplicates(
+    duplicates,
+    table,
+    lines.done(),
+    label,
+    context.problems,
+    'the same water body, month and parameter',
+    table.parameter,
+    duplicateParameters,
+  );
   return table;
 }
 
-export async function readRainfall(path: string, label: string, subRegionIds: Set<string>, context: ReadContext): Promise<RainfallRecord[]> {
+export async function readRainfall(
+  path: string,
+  label: string,
+  subRegionIds: Set<string>,
+  context: ReadContext,
+): Promise<RainfallRecord[]> {
   const records: RainfallRecord[] = [];
   const seen = new Map<string, number>();
   const cells = new CellReader(label, context.problems, context.decimal);
@@ -215,13 +367,27 @@ export async function readRainfall(path: string, label: string, subRegionIds: Se
     const rainfallMm = cells.number(values, at.rainfall_mm!, 'rainfall_mm', line, 0);
     if (!cells.rowOk || !monthInRange(cells, month, monthText, line) || later.skip(month, line)) return;
     if (subRegionIds.size > 0 && !subRegionIds.has(subRegionId)) {
-      cells.fail(line, 'subregion_id', subRegionId, 'unknown-subregion', 'a sub-region of the boundaries file', 'the sub-region has no boundary');
+      cells.fail(
+        line,
+        'subregion_id',
+        subRegionId,
+        'unknown-subregion',
+        'a sub-region of the boundaries file',
+        'the sub-region has no boundary',
+      );
       return;
     }
     const key = `${subRegionId} ${month}`;
     const earlier = seen.get(key);
     if (earlier !== undefined) {
-      cells.fail(line, 'month', monthText, 'duplicate-row', 'one row per sub-region and month', `the same sub-region and month already appear on line ${earlier}`);
+      cells.fail(
+        line,
+        'month',
+        monthText,
+        'duplicate-row',
+        'one row per sub-region and month',
+        `the same sub-region and month already appear on line ${earlier}`,
+      );
       return;
     }
     seen.set(key, line);
@@ -244,8 +410,17 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
     const value = cells.number(values, at.value!, 'value', line, 0);
     const unit = cells.text(values, at.unit!, 'unit', line);
     const parameter = QUALITY_PARAMETERS.find((known) => known === name);
-    if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
-    if (parameter && unit !== '' && !QUALITY_UNITS[parameter].includes(unit)) cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[parameter].join(' or '), `the unit does not match ${name}`);
+    if (name !== '' && !parameter)
+      cells.fail(
+        line,
+        'parameter',
+        name,
+        'parameter-unknown',
+        QUALITY_PARAMETERS.join(' or '),
+        'the parameter is not one the bulletin knows',
+      );
+    if (parameter && unit !== '' && !QUALITY_UNITS[parameter].includes(unit))
+      cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[parameter].join(' or '), `the unit does not match ${name}`);
     if (!cells.rowOk || !parameter) return;
     const date = new Date(day * 86_400_000);
     const month = date.getUTCFullYear() * 12 + date.getUTCMonth();
@@ -261,25 +436,53 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
   return records;
 }
 
-export async function readDistributionBins(path: string, label: string, subRegionIds: Set<string>, context: ReadContext): Promise<DistributionBin[]> {
+export async function readDistributionBins(
+  path: string,
+  label: string,
+  subRegionIds: Set<string>,
+  context: ReadContext,
+): Promise<DistributionBin[]> {
   const bins: DistributionBin[] = [];
   const cells = new CellReader(label, context.problems, context.decimal);
   const later = new LaterMonths(label, context);
-  await readTable(path, label, spec(['subregion_id', 'month', 'parameter', 'bin_lower', 'bin_upper', 'pixel_count']), context.problems, (values, line, at) => {
-    cells.startRow();
-    const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
-    const month = cells.month(values, at.month!, 'month', line);
-    const name = cells.text(values, at.parameter!, 'parameter', line);
-    const lower = cells.number(values, at.bin_lower!, 'bin_lower', line, 0);
-    const upper = cells.number(values, at.bin_upper!, 'bin_upper', line, 0);
-    const count = cells.number(values, at.pixel_count!, 'pixel_count', line, 0);
-    const parameter = QUALITY_PARAMETERS.find((known) => known === name);
-    if (name !== '' && !parameter) cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), 'the parameter is not one the bulletin knows');
-    if (!Number.isNaN(lower) && !Number.isNaN(upper) && upper <= lower) cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', 'the bin has no width');
-    if (subRegionIds.size > 0 && subRegionId !== '' && !subRegionIds.has(subRegionId)) cells.fail(line, 'subregion_id', subRegionId, 'unknown-subregion', 'a sub-region of the boundaries file', 'the sub-region has no boundary');
-    if (!cells.rowOk || !parameter || later.skip(month, line)) return;
-    bins.push({ subRegionId, month, parameter, lower, upper, count, line });
-  });
+  await readTable(
+    path,
+    label,
+    spec(['subregion_id', 'month', 'parameter', 'bin_lower', 'bin_upper', 'pixel_count']),
+    context.problems,
+    (values, line, at) => {
+      cells.startRow();
+      const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
+      const month = cells.month(values, at.month!, 'month', line);
+      const name = cells.text(values, at.parameter!, 'parameter', line);
+      const lower = cells.number(values, at.bin_lower!, 'bin_lower', line, 0);
+      const upper = cells.number(values, at.bin_upper!, 'bin_upper', line, 0);
+      const count = cells.number(values, at.pixel_count!, 'pixel_count', line, 0);
+      const parameter = QUALITY_PARAMETERS.find((known) => known === name);
+      if (name !== '' && !parameter)
+        cells.fail(
+          line,
+          'parameter',
+          name,
+          'parameter-unknown',
+          QUALITY_PARAMETERS.join(' or '),
+          'the parameter is not one the bulletin knows',
+        );
+      if (!Number.isNaN(lower) && !Number.isNaN(upper) && upper <= lower)
+        cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', 'the bin has no width');
+      if (subRegionIds.size > 0 && subRegionId !== '' && !subRegionIds.has(subRegionId))
+        cells.fail(
+          line,
+          'subregion_id',
+          subRegionId,
+          'unknown-subregion',
+          'a sub-region of the boundaries file',
+          'the sub-region has no boundary',
+        );
+      if (!cells.rowOk || !parameter || later.skip(month, line)) return;
+      bins.push({ subRegionId, month, parameter, lower, upper, count, line });
+    },
+  );
   later.report();
   return bins;
 }

@@ -23,7 +23,13 @@ export interface GroupMonth {
  * before): the rows of other months are left out. Bodies are visited one by one over their months
  * (each body's arrays read in order), summing in member order month by month as before.
  */
-export function aggregate(series: BodySeries, members: ArrayLike<number>, referenceHa: ArrayLike<number>, minCoveragePercent: number, keep?: (month: number) => boolean): GroupMonth[] {
+export function aggregate(
+  series: BodySeries,
+  members: ArrayLike<number>,
+  referenceHa: ArrayLike<number>,
+  minCoveragePercent: number,
+  keep?: (month: number) => boolean,
+): GroupMonth[] {
   let total = 0;
   for (let m = 0; m < members.length; m++) total += referenceHa[members[m] as number] as number;
   const slots: number[] = [];
@@ -53,7 +59,8 @@ export function aggregate(series: BodySeries, members: ArrayLike<number>, refere
     const coveragePercent = total > 0 ? (100 * (observed[s] as number)) / total : 0;
     return {
       month: series.firstMonth + slot,
-      fillingPercent: (reference[s] as number) > 0 && coveragePercent >= minCoveragePercent ? (water[s] as number) / (reference[s] as number) : null,
+      fillingPercent:
+        (reference[s] as number) > 0 && coveragePercent >= minCoveragePercent ? (water[s] as number) / (reference[s] as number) : null,
       coveragePercent,
       filledPercent: total > 0 ? (100 * (filled[s] as number)) / total : 0,
       bodiesWithValue: count[s] as number,

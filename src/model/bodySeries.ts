@@ -34,7 +34,8 @@ export function bodySeries(inputs: BulletinInputs): BodySeries {
     (filling[body] as Float64Array)[slot] = (100 * (area.waterHa[k] as number)) / (bodies[body] as { referenceHa: number }).referenceHa;
     (state[body] as Uint8Array)[slot] = OBSERVED;
   }
-  for (let body = 0; body < bodies.length; body++) fillShortGaps(filling[body] as Float64Array, state[body] as Uint8Array, config.coverage.maxFilledGap);
+  for (let body = 0; body < bodies.length; body++)
+    fillShortGaps(filling[body] as Float64Array, state[body] as Uint8Array, config.coverage.maxFilledGap);
   return { firstMonth, months, filling, state };
 }
 

@@ -56,7 +56,8 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
       if (members.length < minBodies) return { ...base, state: 'too-few-bodies' as const, ...empty };
       const status = groupStatus(inputs, series, members);
       if (status.kind === 'low-coverage') return { ...base, state: 'low-coverage' as const, ...empty };
-      if (status.kind === 'short-baseline') return { ...base, state: 'short-baseline' as const, ...empty, fillingPercent: status.fillingPercent };
+      if (status.kind === 'short-baseline')
+        return { ...base, state: 'short-baseline' as const, ...empty, fillingPercent: status.fillingPercent };
       return {
         ...base,
         state: 'stated' as const,

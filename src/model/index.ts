@@ -18,7 +18,15 @@ import { methodTexts, type MethodId } from './methods.ts';
 import { prepareQuality, quality, relabelQuality, type PreparedQuality, type Quality } from './quality.ts';
 import { rainfall, type RainfallSummary } from './rainfall.ts';
 import { referenceAreasOf, relabelSurface, surfaceWater, type SurfaceWater } from './surfaceWater.ts';
-import { bodyTrends, bodyTrendTests, groupTrends, regionalChangePoint, type ChangePoint, type TrendSummary, type TrendTest } from './trends.ts';
+import {
+  bodyTrends,
+  bodyTrendTests,
+  groupTrends,
+  regionalChangePoint,
+  type ChangePoint,
+  type TrendSummary,
+  type TrendTest,
+} from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
 import { warningText, type ShownWarning } from './warnings.ts';
 
@@ -61,12 +69,29 @@ export interface BulletinModel {
     /** site.bodiesPerListPage. */
     bodiesPerListPage: number;
   };
-  bodies: Array<{ id: string; name: string; subRegionId: string; kind: string; referenceHa: number; lon: number; lat: number; ownPage: boolean }>;
+  bodies: Array<{
+    id: string;
+    name: string;
+    subRegionId: string;
+    kind: string;
+    referenceHa: number;
+    lon: number;
+    lat: number;
+    ownPage: boolean;
+  }>;
   surfaceWater: SurfaceWater;
   /** Each body's own status in the bulletin month (its band, or why none), in inventory order. */
   bodyStatus: Array<{ bandKey: string | null; percentOfBaseline: number | null; state: 'stated' | 'low-coverage' | 'short-baseline' }>;
   /** Water bodies flagged for their own page: the last 36 months of filling (observed or filled) and the trend. */
-  monitored: Array<{ body: number; id: string; name: string; firstMonth: number; filling: Array<number | null>; direction: string; slopePerYear: number | null }>;
+  monitored: Array<{
+    body: number;
+    id: string;
+    name: string;
+    firstMonth: number;
+    filling: Array<number | null>;
+    direction: string;
+    slopePerYear: number | null;
+  }>;
   grid: Grid;
   trends: { methods: string[]; bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
   quality: Quality | null;
@@ -113,7 +138,10 @@ export function trendSeriesCount(inputs: BulletinInputs): number {
 /** The parts of the model worth spreading over worker threads for a large inventory; `onSeries` counts the trend series done. */
 export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onSeries?: (series: number) => void): Promise<PreparedModel> {
   const series = bodySeries(inputs);
-  const [bodyTests, waterQuality] = await Promise.all([bodyTrendTests(series, inputs.config.trends, pool, onSeries), prepareQuality(inputs, pool, onSeries)]);
+  const [bodyTests, waterQuality] = await Promise.all([
+    bodyTrendTests(series, inputs.config.trends, pool, onSeries),
+    prepareQuality(inputs, pool, onSeries),
+  ]);
   return { series, bodyTests, quality: waterQuality };
 }
 
@@ -121,27 +149,74 @@ export async function prepareModel(inputs: BulletinInputs, pool: WorkerPool, onS
 type Figures = Pick<BulletinModel, 'bodies' | 'bodyStatus' | 'monitored' | 'grid' | 'trends' | 'rainfall' | 'boundaries' | 'validation'>;
 
 function sharedFigures(base: BulletinModel): Figures {
-  return { bodies: base.bodies, bodyStatus: base.bodyStatus, monitored: base.monitored, grid: base.grid, trends: base.trends, rainfall: base.rainfall, boundaries: base.boundaries, validation: base.validation };
+  return {
+    bodies: base.bodies,
+    bodyStatus: base.bodyStatus,
+    monitored: base.monitored,
+    grid: base.grid,
+    trends: base.trends,
+    rainfall: base.rainfall,
+    boundaries: base.boundaries,
+    validation: base.validation,
+  };
 }
 
-function figuresOf(inputs: BulletinInputs, series: BodySeries, trendsOfBodies: TrendSummary, trendsOfRegion: TrendSummary, surface: SurfaceWater, pageBodies: Set<number>): Figures {
+function figuresOf(
+  inputs: BulletinInputs,
+  series: BodySeries,
+  trendsOfBodies: TrendSummary,
+  trendsOfRegion: TrendSummary,
+  surface: SurfaceWater,
+  pageBodies: Set<number>,
+): Figures {
   const { config, bulletinMonth } = inputs;
   const referenceAreas = referenceAreasOf(inputs);
   const forStatus = statusMonths(bulletinMonth);
   return {
-    bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage })),
+    bodies: inputs.bodies.map(({ id, name, subRegionId, kind, referenceHa, lon, lat, ownPage }) => ({
+      id,
+      name,
+      subRegionId,
+      kind,
+      referenceHa,
+      lon,
+      lat,
+      ownPage,
+    })),
     bodyStatus: inputs.bodies.map((_, k) => {
-      const status = statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config);
-      return status.kind === 'stated' ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const } : { bandKey: null, percentOfBaseline: null, state: status.kind };
+      const status = statusOf(
+        aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus),
+        bulletinMonth,
+        config,
+      );
+      return status.kind === 'stated'
+        ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const }
+        : { bandKey: null, percentOfBaseline: null, state: status.kind };
     }),
     monitored: inputs.bodies.flatMap((body, k) => {
       if (!pageBodies.has(k)) return [];
       const from = Math.max(0, series.months - 36);
       const trend = trendsOfBodies.entries[k];
-      return [{ body: k, id: body.id, name: body.name, firstMonth: series.firstMonth + from, filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)), direction: trend?.direction ?? 'untested', slopePerYear: trend?.test?.slopePerYear ?? null }];
+      return [
+        {
+          body: k,
+          id: body.id,
+          name: body.name,
+          firstMonth: series.firstMonth + from,
+          filling: Array.from((series.filling[k] as Float64Array).slice(from), (value) => (Number.isFinite(value) ? value : null)),
+          direction: trend?.direction ?? 'untested',
+          slopePerYear: trend?.test?.slopePerYear ?? null,
+        },
+      ];
     }),
     grid: grid(inputs, series),
-    trends: { methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'], bodies: trendsOfBodies, subRegions: groupTrends(surface.subRegions, config), region: trendsOfRegion, changePoint: regionalChangePoint(surface.region.series) },
+    trends: {
+      methods: ['trend-bodies', 'trend-region', 'change-point', 'evidence'],
+      bodies: trendsOfBodies,
+      subRegions: groupTrends(surface.subRegions, config),
+      region: trendsOfRegion,
+      changePoint: regionalChangePoint(surface.region.series),
+    },
     rainfall: rainfall(inputs),
     boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
     validation: validation(inputs),
@@ -161,18 +236,31 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
   const trendsOfRegion = base ? base.trends.region : groupTrends([surface.region], config);
   const waterQuality = base ? relabelQuality(base.quality, config, locale) : quality(inputs, options.prepared?.quality, locale);
   const firstYear = Math.floor(series.firstMonth / 12);
-  const key = keyMessages({ locale, bulletinMonth, firstYear, surface, bodyTrends: trendsOfBodies, regionTrend: trendsOfRegion.entries[0]?.test ?? null, quality: waterQuality });
+  const key = keyMessages({
+    locale,
+    bulletinMonth,
+    firstYear,
+    surface,
+    bodyTrends: trendsOfBodies,
+    regionTrend: trendsOfRegion.entries[0]?.test ?? null,
+    quality: waterQuality,
+  });
 
   const monthName = formatMonth(locale, bulletinMonth);
   const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(bulletinMonth));
   const baselineParams = { baselineFirst: config.baseline.firstYear, baselineLast: config.baseline.lastYear };
   const notices: Notice[] = key.caveats.map((text) => ({ kind: 'notice' as const, text }));
   // Pages of their own for the flagged bodies, the largest first, up to the configured cap.
-  const flagged = inputs.bodies.map((body, k) => ({ body, k })).filter(({ body }) => body.ownPage).sort((a, b) => b.body.referenceHa - a.body.referenceHa || a.k - b.k);
+  const flagged = inputs.bodies
+    .map((body, k) => ({ body, k }))
+    .filter(({ body }) => body.ownPage)
+    .sort((a, b) => b.body.referenceHa - a.body.referenceHa || a.k - b.k);
   const pageBodies = new Set(flagged.slice(0, config.site.maxBodyPages).map(({ k }) => k));
-  if (flagged.length > pageBodies.size) notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: flagged.length, shown: pageBodies.size }) });
+  if (flagged.length > pageBodies.size)
+    notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: flagged.length, shown: pageBodies.size }) });
   const region = surface.region.status;
-  if (region.kind === 'stated' && region.filledPercent >= 1) notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
+  if (region.kind === 'stated' && region.filledPercent >= 1)
+    notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
   const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
   if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });
@@ -199,7 +287,12 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
       issuePath: options.issuePath ?? `/issues/${monthLabel(bulletinMonth)}/`,
       corrections: config.issue.corrections.map(({ date, text, translations }) => {
         const translated = translations?.[locale as keyof typeof translations];
-        return { date, dateName: formatDate(locale, date), text: translated ?? text, lang: translated === undefined ? (config.locales[0] ?? locale) : locale };
+        return {
+          date,
+          dateName: formatDate(locale, date),
+          text: translated ?? text,
+          lang: translated === undefined ? (config.locales[0] ?? locale) : locale,
+        };
       }),
       baseline: config.baseline,
       minObservedShare: config.coverage.minObservedShare,

@@ -46,14 +46,20 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   const caveats: string[] = [];
   const catalogue = loadMessages(input.locale);
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(catalogue, key, params);
-  const tCount = (key: string, count: number, params: Record<string, string | number>) => formatCount(catalogue, input.locale, key, count, params);
+  const tCount = (key: string, count: number, params: Record<string, string | number>) =>
+    formatCount(catalogue, input.locale, key, count, params);
   const pct = (value: number) => formatPercent(input.locale, value);
   const month = formatMonth(input.locale, input.bulletinMonth);
   const calendarMonth = formatCalendarMonth(input.locale, (input.bulletinMonth % 12) + 1);
   const region = input.surface.region.status;
 
   if (region.kind === 'stated') {
-    messages.push({ id: 'region', text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(`band.${region.bandKey}`) }), figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' }, link: 'surface-water/#status' });
+    messages.push({
+      id: 'region',
+      text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(`band.${region.bandKey}`) }),
+      figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' },
+      link: 'surface-water/#status',
+    });
   } else if (region.kind === 'low-coverage') {
     caveats.push(t('caveat.keyCoverage', { month, coverage: pct(region.coveragePercent), threshold: pct(region.thresholdPercent) }));
   } else {
@@ -63,19 +69,47 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   const stated = input.surface.subRegions.filter((entry) => entry.status.kind === 'stated');
   const lowest = [...stated].sort((a, b) => percentOf(a.status) - percentOf(b.status))[0];
   if (region.kind === 'stated' && stated.length >= 2 && lowest && percentOf(lowest.status) < 100) {
-    messages.push({ id: 'sub-region', text: t('key.subRegion', { name: lowest.name, percentOfBaseline: pct(percentOf(lowest.status)) }), figure: { value: percentOf(lowest.status), unit: '% of baseline median', method: 'status' }, link: 'surface-water/#sub-regions' });
+    messages.push({
+      id: 'sub-region',
+      text: t('key.subRegion', { name: lowest.name, percentOfBaseline: pct(percentOf(lowest.status)) }),
+      figure: { value: percentOf(lowest.status), unit: '% of baseline median', method: 'status' },
+      link: 'surface-water/#sub-regions',
+    });
   }
 
-  const classes = input.surface.sizeClasses.filter((entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null && entry.status.kind === 'stated');
-  const worst = [...classes].sort((a, b) => (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)))[0];
+  const classes = input.surface.sizeClasses.filter(
+    (entry) => entry.lossPercent !== null && entry.baselineLossPercent !== null && entry.status.kind === 'stated',
+  );
+  const worst = [...classes].sort(
+    (a, b) =>
+      (b.lossPercent as number) - (b.baselineLossPercent as number) - ((a.lossPercent as number) - (a.baselineLossPercent as number)),
+  )[0];
   if (region.kind === 'stated' && worst && (worst.lossPercent as number) > (worst.baselineLossPercent as number)) {
-    messages.push({ id: 'size-class', text: t('key.sizeClass', { label: worst.name, loss: pct(worst.lossPercent as number), baselineLoss: pct(worst.baselineLossPercent as number), calendarMonth }), figure: { value: worst.lossPercent as number, unit: '% of reference area dry', method: 'size-class-loss' }, link: 'surface-water/#size-classes' });
+    messages.push({
+      id: 'size-class',
+      text: t('key.sizeClass', {
+        label: worst.name,
+        loss: pct(worst.lossPercent as number),
+        baselineLoss: pct(worst.baselineLossPercent as number),
+        calendarMonth,
+      }),
+      figure: { value: worst.lossPercent as number, unit: '% of reference area dry', method: 'size-class-loss' },
+      link: 'surface-water/#size-classes',
+    });
   }
 
   const trends = input.bodyTrends;
   if (trends.tested > 0) {
-    const text = trends.declining > 0 ? tCount('key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear }) : t('key.trendNone', { firstYear: input.firstYear });
-    messages.push({ id: 'trend-count', text, figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' }, link: 'trends/#bodies' });
+    const text =
+      trends.declining > 0
+        ? tCount('key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear })
+        : t('key.trendNone', { firstYear: input.firstYear });
+    messages.push({
+      id: 'trend-count',
+      text,
+      figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' },
+      link: 'trends/#bodies',
+    });
   }
 
   const regionTrend = input.regionTrend;
@@ -83,21 +117,42 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
     const evidence = evidenceFor(regionTrend.p);
     if (evidence === 'very-strong' || evidence === 'strong' || evidence === 'moderate') {
       const slope = `${regionTrend.slopePerYear > 0 ? '+' : '−'}${formatNumber(input.locale, Math.abs(regionTrend.slopePerYear), 1)}`;
-      messages.push({ id: 'region-trend', text: t('key.regionTrend', { evidence: t(`evidence.${evidence}`), slope, firstYear: input.firstYear }), figure: { value: regionTrend.slopePerYear, unit: 'percentage points of reference area a year', method: 'trend-region' }, link: 'trends/#region', evidence });
+      messages.push({
+        id: 'region-trend',
+        text: t('key.regionTrend', { evidence: t(`evidence.${evidence}`), slope, firstYear: input.firstYear }),
+        figure: { value: regionTrend.slopePerYear, unit: 'percentage points of reference area a year', method: 'trend-region' },
+        link: 'trends/#region',
+        evidence,
+      });
     }
   }
 
   const who = input.quality?.who;
   const above10 = who?.levels.find((level) => level.level === 10);
   if (who && above10 && above10.bodiesAbove > 0) {
-    messages.push({ id: 'chlorophyll', text: tCount('key.chlorophyll', above10.bodiesAbove, { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }), figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' }, link: 'water-quality/#who' });
+    messages.push({
+      id: 'chlorophyll',
+      text: tCount('key.chlorophyll', above10.bodiesAbove, { month, above: above10.bodiesAbove, bodies: who.bodiesWithValue }),
+      figure: { value: above10.bodiesAbove, unit: `water bodies of ${who.bodiesWithValue} with a value`, method: 'who-levels' },
+      link: 'water-quality/#who',
+    });
   }
 
   if (region.kind === 'stated' && region.changeFromLastYear !== null && messages.length < 6) {
     const change = region.changeFromLastYear;
-    messages.push({ id: 'last-year', text: t('key.lastYear', { points: formatNumber(input.locale, Math.abs(change), 1), direction: t(change < 0 ? 'direction.less' : 'direction.more'), lastYearMonth: formatMonth(input.locale, input.bulletinMonth - 12) }), figure: { value: change, unit: 'percentage points of reference area', method: 'status' }, link: 'surface-water/#status' });
+    messages.push({
+      id: 'last-year',
+      text: t('key.lastYear', {
+        points: formatNumber(input.locale, Math.abs(change), 1),
+        direction: t(change < 0 ? 'direction.less' : 'direction.more'),
+        lastYearMonth: formatMonth(input.locale, input.bulletinMonth - 12),
+      }),
+      figure: { value: change, unit: 'percentage points of reference area', method: 'status' },
+      link: 'surface-water/#status',
+    });
   }
   return { messages: messages.slice(0, 6), caveats };
 }
 
-const percentOf = (status: SurfaceWater['region']['status']) => (status.kind === 'stated' ? status.percentOfBaseline : Number.POSITIVE_INFINITY);
+const percentOf = (status: SurfaceWater['region']['status']) =>
+  status.kind === 'stated' ? status.percentOfBaseline : Number.POSITIVE_INFINITY;

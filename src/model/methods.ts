@@ -5,7 +5,23 @@
  */
 import { formatMessage, loadMessages } from '../text/index.ts';
 
-export const METHOD_IDS = ['filling-ratio', 'gap-filling', 'status', 'size-class-loss', 'grid', 'trend-bodies', 'trend-region', 'change-point', 'quality-medians', 'quality-classes', 'trophic', 'who-levels', 'validation', 'rainfall', 'evidence'] as const;
+export const METHOD_IDS = [
+  'filling-ratio',
+  'gap-filling',
+  'status',
+  'size-class-loss',
+  'grid',
+  'trend-bodies',
+  'trend-region',
+  'change-point',
+  'quality-medians',
+  'quality-classes',
+  'trophic',
+  'who-levels',
+  'validation',
+  'rainfall',
+  'evidence',
+] as const;
 
 export type MethodId = (typeof METHOD_IDS)[number];
 

@@ -38,15 +38,15 @@ export async function parallelTrends(series: TrendSeries[], options: TrendOption
   }
   let done = 0;
   const batches: Array<Promise<Row[]>> = [];
-    for (let start = 0; start < series.length; start += batchSize) {
-      const batch = series.slice(start, start + batchSize);
-      batches.push(
-        pool.run(TREND_ROWS, { series: batch, options }).then((rows) => {
-          done += rows.length;
-          parallel.onProgress?.(done, series.length);
-          return rows;
-        }),
-      );
-    }
+  for (let start = 0; start < series.length; start += batchSize) {
+    const batch = series.slice(start, start + batchSize);
+    batches.push(
+      pool.run(TREND_ROWS, { series: batch, options }).then((rows) => {
+        done += rows.length;
+        parallel.onProgress?.(done, series.length);
+        return rows;
+      }),
+    );
+  }
   return adjustAcrossSeries((await Promise.all(batches)).flat(), options.falseDiscoveryRate);
 }

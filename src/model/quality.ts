@@ -14,7 +14,18 @@
  */
 import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
-import { benjaminiHochberg, mannKendall, median, quantile, sensSlope, TROPHIC_BOUNDS, trophicClass, trophicStateIndex, weightedMedian, type TrophicClass } from '../stats/index.ts';
+import {
+  benjaminiHochberg,
+  mannKendall,
+  median,
+  quantile,
+  sensSlope,
+  TROPHIC_BOUNDS,
+  trophicClass,
+  trophicStateIndex,
+  weightedMedian,
+  type TrophicClass,
+} from '../stats/index.ts';
 import { referenceAreasOf, sizeClassBounds } from './surfaceWater.ts';
 import { manyTrendTests, trendTest, type TrendTest } from './trends.ts';
 import type { WorkerPool } from '../parallel/pool.ts';
@@ -40,12 +51,37 @@ export interface QualityParameterSummary {
   /** Region medians per month: plain and area-weighted; null where no body had a value. */
   monthly: Array<{ month: number; bodies: number; median: number | null; weightedMedian: number | null }>;
   distribution: { edges: number[]; months: Array<{ month: number; counts: number[] }> };
-  bySizeClass: Array<{ label: string; fromHa: number; toHa: number | null; bodies: number; p10: number | null; p25: number | null; p50: number | null; p75: number | null; p90: number | null }>;
+  bySizeClass: Array<{
+    label: string;
+    fromHa: number;
+    toHa: number | null;
+    bodies: number;
+    p10: number | null;
+    p25: number | null;
+    p50: number | null;
+    p75: number | null;
+    p90: number | null;
+  }>;
   bodiesThisMonth: number;
   /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
   medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
-  trends: { tested: number; rising: number; falling: number; falseDiscoveryRate: number; entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }> };
-  seasonal: Array<{ season: string; seasonName: string; sizeClass: string; fromHa: number; toHa: number | null; years: number; slopePerYear: number | null; p: number | null }>;
+  trends: {
+    tested: number;
+    rising: number;
+    falling: number;
+    falseDiscoveryRate: number;
+    entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }>;
+  };
+  seasonal: Array<{
+    season: string;
+    seasonName: string;
+    sizeClass: string;
+    fromHa: number;
+    toHa: number | null;
+    years: number;
+    slopePerYear: number | null;
+    p: number | null;
+  }>;
 }
 
 export interface Quality {
@@ -62,10 +98,14 @@ export function parameterMonths(inputs: BulletinInputs, parameter: QualityParame
   const table = inputs.quality;
   const code = QUALITY_PARAMETERS.indexOf(parameter);
   let firstMonth = inputs.bulletinMonth;
-  if (table) for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) firstMonth = Math.min(firstMonth, table.month[k] as number);
+  if (table)
+    for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) firstMonth = Math.min(firstMonth, table.month[k] as number);
   const months = inputs.bulletinMonth - firstMonth + 1;
   const values = inputs.bodies.map(() => new Float64Array(months).fill(Number.NaN));
-  if (table) for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) (values[table.body[k] as number] as Float64Array)[(table.month[k] as number) - firstMonth] = table.median[k] as number;
+  if (table)
+    for (let k = 0; k < table.length; k++)
+      if (table.parameter[k] === code)
+        (values[table.body[k] as number] as Float64Array)[(table.month[k] as number) - firstMonth] = table.median[k] as number;
   return { firstMonth, months, values };
 }
 
@@ -74,7 +114,9 @@ const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);
 
 function edgesFor(parameter: QualityParameter): number[] {
   // Chlorophyll-a: 0.1 to 1000 µg/L, four bins a decade. Turbidity: 0 to 100 FNU in steps of 5.
-  return parameter === 'chlorophyll_a' ? Array.from({ length: 17 }, (_, k) => round(10 ** (k / 4 - 1))) : Array.from({ length: 21 }, (_, k) => 5 * k);
+  return parameter === 'chlorophyll_a'
+    ? Array.from({ length: 17 }, (_, k) => round(10 ** (k / 4 - 1)))
+    : Array.from({ length: 21 }, (_, k) => 5 * k);
 }
 
 /** Bin index of a value, or −1 below the first edge; values at or above the last edge go in the last bin. */
@@ -84,7 +126,13 @@ function binOf(value: number, edges: number[]): number {
   return edges.length - 2;
 }
 
-function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, data: ParameterMonths, prepared: Array<TrendTest | null> | undefined, locale: string): QualityParameterSummary {
+function parameterSummary(
+  inputs: BulletinInputs,
+  parameter: QualityParameter,
+  data: ParameterMonths,
+  prepared: Array<TrendTest | null> | undefined,
+  locale: string,
+): QualityParameterSummary {
   const { bodies, config, bulletinMonth } = inputs;
   const reference = referenceAreasOf(inputs);
   // Month-major copy of the body values: each month's values are then one contiguous view.
@@ -98,7 +146,12 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
     const values = monthValues(slot);
     let bodiesWithValue = 0;
     for (let k = 0; k < count; k++) bodiesWithValue += Number.isFinite(values[k]) ? 1 : 0;
-    return { month: data.firstMonth + slot, bodies: bodiesWithValue, median: finiteOrNull(median(values)), weightedMedian: finiteOrNull(weightedMedian(values, reference)) };
+    return {
+      month: data.firstMonth + slot,
+      bodies: bodiesWithValue,
+      median: finiteOrNull(median(values)),
+      weightedMedian: finiteOrNull(weightedMedian(values, reference)),
+    };
   });
   const edges = edgesFor(parameter);
   const distribution = {
@@ -116,7 +169,9 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
   };
   const now = data.values.map((series) => series[bulletinMonth - data.firstMonth] as number);
   const bySizeClass = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => {
-    const values = now.filter((value, k) => Number.isFinite(value) && (reference[k] as number) >= fromHa && (toHa === null || (reference[k] as number) < toHa));
+    const values = now.filter(
+      (value, k) => Number.isFinite(value) && (reference[k] as number) >= fromHa && (toHa === null || (reference[k] as number) < toHa),
+    );
     const q = (p: number) => (values.length > 0 ? quantile(values, p) : null);
     const label = sizeClassLabel(locale, fromHa, toHa);
     return { label, fromHa, toHa, bodies: values.length, p10: q(0.1), p25: q(0.25), p50: q(0.5), p75: q(0.75), p90: q(0.9) };
@@ -124,11 +179,23 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
 
   const months = Int32Array.from({ length: data.months }, (_, k) => data.firstMonth + k);
   const tests = prepared ?? data.values.map((series) => trendTest(months, series, config));
-  const adjusted = benjaminiHochberg(tests.map((test) => test?.p ?? null), config.trends.falseDiscoveryRate);
+  const adjusted = benjaminiHochberg(
+    tests.map((test) => test?.p ?? null),
+    config.trends.falseDiscoveryRate,
+  );
   const entries = bodies.map((body, k) => {
     const test = tests[k] ?? null;
     const pAdjusted = finiteOrNull(adjusted.adjusted[k] as number);
-    const direction = !test || pAdjusted === null ? 'untested' : adjusted.rejected[k] ? (test.slopePerYear > 0 ? 'rise' : test.slopePerYear < 0 ? 'fall' : 'none') : 'none';
+    const direction =
+      !test || pAdjusted === null
+        ? 'untested'
+        : adjusted.rejected[k]
+          ? test.slopePerYear > 0
+            ? 'rise'
+            : test.slopePerYear < 0
+              ? 'fall'
+              : 'none'
+          : 'none';
     return { id: body.id, test, pAdjusted, direction };
   });
 
@@ -140,7 +207,13 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
     bySizeClass,
     bodiesThisMonth: now.filter(Number.isFinite).length,
     medianTrend: medianTrend(monthly),
-    trends: { tested: entries.filter((e) => e.direction !== 'untested').length, rising: entries.filter((e) => e.direction === 'rise').length, falling: entries.filter((e) => e.direction === 'fall').length, falseDiscoveryRate: config.trends.falseDiscoveryRate, entries },
+    trends: {
+      tested: entries.filter((e) => e.direction !== 'untested').length,
+      rising: entries.filter((e) => e.direction === 'rise').length,
+      falling: entries.filter((e) => e.direction === 'fall').length,
+      falseDiscoveryRate: config.trends.falseDiscoveryRate,
+      entries,
+    },
     seasonal: seasonalClassTrends(inputs, data, config, locale),
   };
 }
@@ -148,8 +221,13 @@ function parameterSummary(inputs: BulletinInputs, parameter: QualityParameter, d
 function medianTrend(monthly: Array<{ month: number; median: number | null }>): QualityParameterSummary['medianTrend'] {
   const rows = monthly.filter((row) => row.median !== null);
   if (rows.length < 3) return null;
-  const result = sensSlope(rows.map((row) => row.month / 12), rows.map((row) => row.median as number));
-  return Number.isFinite(result.slope) ? { slopePerYear: result.slope, intercept: result.intercept, lower: result.lower, upper: result.upper } : null;
+  const result = sensSlope(
+    rows.map((row) => row.month / 12),
+    rows.map((row) => row.median as number),
+  );
+  return Number.isFinite(result.slope)
+    ? { slopePerYear: result.slope, intercept: result.intercept, lower: result.lower, upper: result.upper }
+    : null;
 }
 
 /**
@@ -157,12 +235,21 @@ function medianTrend(monthly: Array<{ month: number; median: number | null }>): 
  * seasonal mean, year by year, tested with Mann-Kendall and Sen's slope per year (years with no
  * value are left out).
  */
-function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig, locale: string): QualityParameterSummary['seasonal'] {
+function seasonalClassTrends(
+  inputs: BulletinInputs,
+  data: ParameterMonths,
+  config: BulletinConfig,
+  locale: string,
+): QualityParameterSummary['seasonal'] {
   const out: QualityParameterSummary['seasonal'] = [];
   const reference = Array.from(referenceAreasOf(inputs));
   const firstYear = Math.floor(data.firstMonth / 12);
   const lastYear = Math.floor(inputs.bulletinMonth / 12);
-  const classes = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => ({ fromHa, toHa, members: reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0) }));
+  const classes = sizeClassBounds(config.sizeClasses.quality, false).map(({ fromHa, toHa }) => ({
+    fromHa,
+    toHa,
+    members: reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0),
+  }));
   for (const season of config.quality.seasons) {
     for (const { fromHa, toHa, members } of classes) {
       const years: number[] = [];
@@ -191,7 +278,16 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
       }
       const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
-      out.push({ season: season.key, seasonName: seasonName(config, season.key, locale), sizeClass: label, fromHa, toHa, years: years.length, slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null, p: finiteOrNull(test.p) });
+      out.push({
+        season: season.key,
+        seasonName: seasonName(config, season.key, locale),
+        sizeClass: label,
+        fromHa,
+        toHa,
+        years: years.length,
+        slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null,
+        p: finiteOrNull(test.p),
+      });
     }
   }
   return out;
@@ -201,7 +297,11 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
 export type PreparedQuality = Array<{ parameter: QualityParameter; data: ParameterMonths; tests: Array<TrendTest | null> }>;
 
 /** The body values of each parameter and their trend tests, on the worker pool for a large inventory. */
-export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, onBatch?: (series: number) => void): Promise<PreparedQuality | null> {
+export async function prepareQuality(
+  inputs: BulletinInputs,
+  pool: WorkerPool,
+  onBatch?: (series: number) => void,
+): Promise<PreparedQuality | null> {
   if (!inputs.quality || inputs.quality.length === 0) return null;
   return Promise.all(
     QUALITY_PARAMETERS.map(async (parameter) => {
@@ -211,7 +311,11 @@ export async function prepareQuality(inputs: BulletinInputs, pool: WorkerPool, o
         for (let body = from; body < to; body++) matrix.set(data.values[body] as Float64Array, (body - from) * data.months);
         return matrix;
       };
-      return { parameter, data, tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool, onBatch) };
+      return {
+        parameter,
+        data,
+        tests: await manyTrendTests(data.firstMonth, data.months, data.values.length, rows, inputs.config.trends, pool, onBatch),
+      };
     }),
   );
 }
@@ -230,20 +334,27 @@ export function relabelQuality(base: Quality | null, config: BulletinConfig, loc
     parameters: base.parameters.map((parameter) => ({
       ...parameter,
       bySizeClass: parameter.bySizeClass.map((entry) => ({ ...entry, label: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
-      seasonal: parameter.seasonal.map((entry) => ({ ...entry, seasonName: seasonName(config, entry.season, locale), sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
+      seasonal: parameter.seasonal.map((entry) => ({
+        ...entry,
+        seasonName: seasonName(config, entry.season, locale),
+        sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa),
+      })),
     })),
   };
 }
 
 export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null, locale = 'en'): Quality | null {
   if (!inputs.quality || inputs.quality.length === 0) return null;
-  const byParameter = prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
+  const byParameter =
+    prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
   const chlorophyll = byParameter.find((entry) => entry.parameter === 'chlorophyll_a')?.data;
   const now = chlorophyll ? chlorophyll.values.map((series) => series[inputs.bulletinMonth - chlorophyll.firstMonth] as number) : [];
   const trophicBodies = inputs.bodies.flatMap((body, k) => {
     const value = now[k];
     const trophic = value === undefined ? null : trophicClass(value);
-    return value !== undefined && Number.isFinite(value) && trophic ? [{ id: body.id, chlorophyll: value, index: trophicStateIndex(value), trophicClass: trophic }] : [];
+    return value !== undefined && Number.isFinite(value) && trophic
+      ? [{ id: body.id, chlorophyll: value, index: trophicStateIndex(value), trophicClass: trophic }]
+      : [];
   });
   const withValue = now.filter(Number.isFinite);
   return {
@@ -251,7 +362,11 @@ export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | nul
     parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests, locale)),
     trophic: {
       bodies: trophicBodies,
-      counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({ trophicClass: trophicClassName, upperBound: Number.isFinite(upper) ? upper : null, bodies: trophicBodies.filter((entry) => entry.trophicClass === trophicClassName).length })),
+      counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({
+        trophicClass: trophicClassName,
+        upperBound: Number.isFinite(upper) ? upper : null,
+        bodies: trophicBodies.filter((entry) => entry.trophicClass === trophicClassName).length,
+      })),
     },
     who: {
       bodiesWithValue: withValue.length,

@@ -21,7 +21,11 @@ export function rainfall(inputs: BulletinInputs): RainfallSummary | null {
   return {
     subRegions: inputs.subRegions.map((subRegion) => {
       const rows = inputs.rainfall.filter((row) => row.subRegionId === subRegion.id).sort((a, b) => a.month - b.month);
-      const climate = climatology(rows.map((row) => row.month), rows.map((row) => row.rainfallMm), inputs.config.baseline);
+      const climate = climatology(
+        rows.map((row) => row.month),
+        rows.map((row) => row.rainfallMm),
+        inputs.config.baseline,
+      );
       const now = rows.find((row) => row.month === inputs.bulletinMonth)?.rainfallMm ?? null;
       const median = climate[inputs.bulletinMonth % 12]?.median;
       return {

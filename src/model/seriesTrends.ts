@@ -71,10 +71,18 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
   for (let k = 0; k < series.values.length; k++) if (Number.isFinite(series.values[k])) observedIndex.push(k);
   let seasonal = null;
   if (options.seasonal) {
-    if (!series.months || Array.from(series.months).some((month) => Number.isNaN(month))) throw new RangeError('seasonal trends require monthly times');
+    if (!series.months || Array.from(series.months).some((month) => Number.isNaN(month)))
+      throw new RangeError('seasonal trends require monthly times');
     seasonal = seasonalKendall(series.months, series.values);
   }
-  const reasons = [plain.reason && `mann-kendall: ${plain.reason}`, corrected.reason && corrected.reason !== plain.reason ? `autocorrelation: ${corrected.reason}` : null, seasonal?.reason ? `seasonal: ${seasonal.reason}` : null, seasonal && !seasonal.covariance.applied ? `seasonal covariance: too few years (${seasonal.covariance.fewestYears} of ${seasonal.covariance.neededYears})` : null].filter(Boolean);
+  const reasons = [
+    plain.reason && `mann-kendall: ${plain.reason}`,
+    corrected.reason && corrected.reason !== plain.reason ? `autocorrelation: ${corrected.reason}` : null,
+    seasonal?.reason ? `seasonal: ${seasonal.reason}` : null,
+    seasonal && !seasonal.covariance.applied
+      ? `seasonal covariance: too few years (${seasonal.covariance.fewestYears} of ${seasonal.covariance.neededYears})`
+      : null,
+  ].filter(Boolean);
   return {
     series: series.key,
     n: plain.n,
@@ -109,10 +117,16 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
 
 /** Adds the Benjamini-Hochberg adjusted p and decision across rows. */
 export function adjustAcrossSeries(rows: Array<Omit<TrendRow, 'pAdjusted' | 'rejected'>>, falseDiscoveryRate = 0.05): TrendRow[] {
-  const adjusted = benjaminiHochberg(rows.map((row) => row.testP), falseDiscoveryRate);
+  const adjusted = benjaminiHochberg(
+    rows.map((row) => row.testP),
+    falseDiscoveryRate,
+  );
   return rows.map((row, k) => ({ ...row, pAdjusted: adjusted.adjusted[k] as number, rejected: adjusted.rejected[k] as boolean }));
 }
 
 export function trendTable(series: TrendSeries[], options: TrendOptions): TrendRow[] {
-  return adjustAcrossSeries(series.map((entry) => trendRow(entry, options)), options.falseDiscoveryRate);
+  return adjustAcrossSeries(
+    series.map((entry) => trendRow(entry, options)),
+    options.falseDiscoveryRate,
+  );
 }

@@ -48,14 +48,32 @@ export function bandFor(percentOfBaseline: number, bands: Array<{ key: string; f
 export function statusOf(series: GroupMonth[], bulletinMonth: number, config: BulletinConfig): Status {
   const current = series.find((entry) => entry.month === bulletinMonth);
   const thresholdPercent = 100 * config.coverage.minRegionCoverage;
-  if (!current || current.fillingPercent === null) return { kind: 'low-coverage', coveragePercent: current?.coveragePercent ?? 0, thresholdPercent };
+  if (!current || current.fillingPercent === null)
+    return { kind: 'low-coverage', coveragePercent: current?.coveragePercent ?? 0, thresholdPercent };
   // Only the bulletin's calendar month enters its climatology.
   const same = series.filter((row) => row.month % 12 === bulletinMonth % 12);
-  const entry = climatology(same.map((row) => row.month), same.map((row) => row.fillingPercent), config.baseline)[bulletinMonth % 12];
+  const entry = climatology(
+    same.map((row) => row.month),
+    same.map((row) => row.fillingPercent),
+    config.baseline,
+  )[bulletinMonth % 12];
   if (!entry || !entry.enough) {
-    return { kind: 'short-baseline', fillingPercent: current.fillingPercent, coveragePercent: current.coveragePercent, usableYears: entry?.count ?? 0, neededYears: config.baseline.minYears };
+    return {
+      kind: 'short-baseline',
+      fillingPercent: current.fillingPercent,
+      coveragePercent: current.coveragePercent,
+      usableYears: entry?.count ?? 0,
+      neededYears: config.baseline.minYears,
+    };
   }
-  const years = same.filter((row) => row.fillingPercent !== null && Math.floor(row.month / 12) >= config.baseline.firstYear && Math.floor(row.month / 12) <= config.baseline.lastYear).map((row) => Math.floor(row.month / 12));
+  const years = same
+    .filter(
+      (row) =>
+        row.fillingPercent !== null &&
+        Math.floor(row.month / 12) >= config.baseline.firstYear &&
+        Math.floor(row.month / 12) <= config.baseline.lastYear,
+    )
+    .map((row) => Math.floor(row.month / 12));
   const result = anomaly(current.fillingPercent, entry);
   const at = (month: number) => series.find((row) => row.month === month)?.fillingPercent ?? null;
   const lastYear = at(bulletinMonth - 12);
@@ -65,7 +83,15 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
     fillingPercent: current.fillingPercent,
     coveragePercent: current.coveragePercent,
     filledPercent: current.filledPercent,
-    baseline: { years, values: entry.values, median: entry.median, p10: entry.p10, p90: entry.p90, mean: entry.mean, standardDeviation: entry.standardDeviation },
+    baseline: {
+      years,
+      values: entry.values,
+      median: entry.median,
+      p10: entry.p10,
+      p90: entry.p90,
+      mean: entry.mean,
+      standardDeviation: entry.standardDeviation,
+    },
     anomalyPoints: result.absolute,
     percentOfBaseline: result.percentOfBaseline,
     standardized: result.standardized,

@@ -58,7 +58,13 @@ export function referenceAreasOf(inputs: BulletinInputs): Float64Array {
 
 /** The status alone of a group (grid cells): only the months it reads are aggregated. */
 export function groupStatus(inputs: BulletinInputs, series: BodySeries, members: number[]): Status {
-  const monthly = aggregate(series, members, referenceAreasOf(inputs), 100 * inputs.config.coverage.minRegionCoverage, statusMonths(inputs.bulletinMonth));
+  const monthly = aggregate(
+    series,
+    members,
+    referenceAreasOf(inputs),
+    100 * inputs.config.coverage.minRegionCoverage,
+    statusMonths(inputs.bulletinMonth),
+  );
   return statusOf(monthly, inputs.bulletinMonth, inputs.config);
 }
 
@@ -83,14 +89,23 @@ export function sizeClassBounds(boundaries: number[], openBottom: boolean): Arra
 
 /** The same figures with the words of another language: the size-class names. */
 export function relabelSurface(base: SurfaceWater, locale: string): SurfaceWater {
-  return { ...base, sizeClasses: base.sizeClasses.map((entry) => ({ ...entry, name: sizeClassLabel(locale, entry.fromHa, entry.toHa, true) })) };
+  return {
+    ...base,
+    sizeClasses: base.sizeClasses.map((entry) => ({ ...entry, name: sizeClassLabel(locale, entry.fromHa, entry.toHa, true) })),
+  };
 }
 
 export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale = 'en'): SurfaceWater {
   const all = inputs.bodies.map((_, k) => k);
   const region = group(inputs, series, 'region', inputs.config.region.name, all);
   const subRegions = inputs.subRegions.map((subRegion) =>
-    group(inputs, series, subRegion.id, subRegion.name, all.filter((k) => inputs.bodies[k]?.subRegionId === subRegion.id)),
+    group(
+      inputs,
+      series,
+      subRegion.id,
+      subRegion.name,
+      all.filter((k) => inputs.bodies[k]?.subRegionId === subRegion.id),
+    ),
   );
   const sizeClasses = sizeClassBounds(inputs.config.sizeClasses.surface, true).map(({ fromHa, toHa }) => {
     const members = all.filter((k) => {
@@ -111,8 +126,16 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale 
   const { firstYear, lastYear } = inputs.config.baseline;
   const sameMonthEachYear = region.series
     .filter((entry) => entry.month % 12 === inputs.bulletinMonth % 12)
-    .map((entry) => ({ year: Math.floor(entry.month / 12), fillingPercent: entry.fillingPercent, inBaseline: Math.floor(entry.month / 12) >= firstYear && Math.floor(entry.month / 12) <= lastYear }));
-  const regionEnvelope = climatology(region.series.map((row) => row.month), region.series.map((row) => row.fillingPercent), inputs.config.baseline).map((entry) => ({
+    .map((entry) => ({
+      year: Math.floor(entry.month / 12),
+      fillingPercent: entry.fillingPercent,
+      inBaseline: Math.floor(entry.month / 12) >= firstYear && Math.floor(entry.month / 12) <= lastYear,
+    }));
+  const regionEnvelope = climatology(
+    region.series.map((row) => row.month),
+    region.series.map((row) => row.fillingPercent),
+    inputs.config.baseline,
+  ).map((entry) => ({
     calendarMonth: entry.calendarMonth,
     median: entry.enough ? entry.median : null,
     p10: entry.enough ? entry.p10 : null,
@@ -122,5 +145,13 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale 
     const baseline = regionEnvelope[row.month % 12]?.median ?? null;
     return row.fillingPercent === null || baseline === null ? [] : [{ month: row.month, points: row.fillingPercent - baseline }];
   });
-  return { methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'], region, subRegions, sizeClasses, sameMonthEachYear, regionAnomalies, regionEnvelope };
+  return {
+    methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'],
+    region,
+    subRegions,
+    sizeClasses,
+    sameMonthEachYear,
+    regionAnomalies,
+    regionEnvelope,
+  };
 }

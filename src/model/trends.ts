@@ -62,7 +62,10 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
     }
   }
   if (keptValues.length < config.trends.minMonths) return null;
-  const seasonality = kruskalWallis(keptMonths.map((month) => month % 12), keptValues);
+  const seasonality = kruskalWallis(
+    keptMonths.map((month) => month % 12),
+    keptValues,
+  );
   const seasonal = seasonality.reason === null && seasonality.p < config.trends.seasonalityP;
   if (seasonal) {
     const result = seasonalKendall(keptMonths, keptValues);
@@ -86,10 +89,22 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
 }
 
 function summarize(entries: Array<{ id: string; name: string; test: TrendTest | null }>, falseDiscoveryRate: number): TrendSummary {
-  const adjusted = benjaminiHochberg(entries.map((entry) => (entry.test && Number.isFinite(entry.test.p) ? entry.test.p : null)), falseDiscoveryRate);
+  const adjusted = benjaminiHochberg(
+    entries.map((entry) => (entry.test && Number.isFinite(entry.test.p) ? entry.test.p : null)),
+    falseDiscoveryRate,
+  );
   const out: TrendEntry[] = entries.map((entry, k) => {
     const pAdjusted = Number.isFinite(adjusted.adjusted[k]) ? (adjusted.adjusted[k] as number) : null;
-    const direction: TrendEntry['direction'] = !entry.test || pAdjusted === null ? 'untested' : adjusted.rejected[k] ? (entry.test.slopePerYear < 0 ? 'decline' : entry.test.slopePerYear > 0 ? 'rise' : 'none') : 'none';
+    const direction: TrendEntry['direction'] =
+      !entry.test || pAdjusted === null
+        ? 'untested'
+        : adjusted.rejected[k]
+          ? entry.test.slopePerYear < 0
+            ? 'decline'
+            : entry.test.slopePerYear > 0
+              ? 'rise'
+              : 'none'
+          : 'none';
     return { ...entry, pAdjusted, direction };
   });
   return {
@@ -105,7 +120,12 @@ function summarize(entries: Array<{ id: string; name: string; test: TrendTest | 
  * Trends of every water body; `tests` when they were computed beforehand (bodyTrendTests on the
  * worker pool), otherwise here.
  */
-export function bodyTrends(series: BodySeries, bodies: Array<{ id: string; name: string }>, config: BulletinConfig, tests?: Array<TrendTest | null>): TrendSummary {
+export function bodyTrends(
+  series: BodySeries,
+  bodies: Array<{ id: string; name: string }>,
+  config: BulletinConfig,
+  tests?: Array<TrendTest | null>,
+): TrendSummary {
   const computed = tests ?? testBatch(series.firstMonth, series.months, observedValues(series, 0, bodies.length), config.trends);
   const entries = bodies.map((body, k) => ({ id: body.id, name: body.name, test: computed[k] ?? null }));
   return summarize(entries, config.trends.falseDiscoveryRate);
@@ -121,15 +141,36 @@ const PARALLEL_BODIES = 4000;
  * only the observed months of its bodies as one typed array; the results come back in body order,
  * so they are the same whatever the number of threads.
  */
-export function bodyTrendTests(series: BodySeries, trends: TrendSettings, pool: WorkerPool, onBatch?: (series: number) => void): Promise<Array<TrendTest | null>> {
-  return manyTrendTests(series.firstMonth, series.months, series.filling.length, (from, to) => observedValues(series, from, to), trends, pool, onBatch);
+export function bodyTrendTests(
+  series: BodySeries,
+  trends: TrendSettings,
+  pool: WorkerPool,
+  onBatch?: (series: number) => void,
+): Promise<Array<TrendTest | null>> {
+  return manyTrendTests(
+    series.firstMonth,
+    series.months,
+    series.filling.length,
+    (from, to) => observedValues(series, from, to),
+    trends,
+    pool,
+    onBatch,
+  );
 }
 
 /**
  * The trend tests of `count` monthly series that share their months, given as body-major matrices
  * of rows [from, to) (NaN = missing): in this thread for a few, in batches on the pool for many.
  */
-export async function manyTrendTests(firstMonth: number, months: number, count: number, rows: (from: number, to: number) => Float64Array, trends: TrendSettings, pool: WorkerPool, onBatch?: (series: number) => void): Promise<Array<TrendTest | null>> {
+export async function manyTrendTests(
+  firstMonth: number,
+  months: number,
+  count: number,
+  rows: (from: number, to: number) => Float64Array,
+  trends: TrendSettings,
+  pool: WorkerPool,
+  onBatch?: (series: number) => void,
+): Promise<Array<TrendTest | null>> {
   if (count < PARALLEL_BODIES || pool.size < 2) {
     const tests = testBatch(firstMonth, months, rows(0, count), trends);
     onBatch?.(count);
@@ -160,7 +201,8 @@ function observedValues(series: BodySeries, from: number, to: number): Float64Ar
     const filling = series.filling[body] as Float64Array;
     const state = series.state[body] as Uint8Array;
     const offset = (body - from) * series.months;
-    for (let slot = 0; slot < series.months; slot++) values[offset + slot] = state[slot] === OBSERVED ? (filling[slot] as number) : Number.NaN;
+    for (let slot = 0; slot < series.months; slot++)
+      values[offset + slot] = state[slot] === OBSERVED ? (filling[slot] as number) : Number.NaN;
   }
   return values;
 }
@@ -168,7 +210,8 @@ function observedValues(series: BodySeries, from: number, to: number): Float64Ar
 function testBatch(firstMonth: number, months: number, values: Float64Array, trends: TrendSettings): Array<TrendTest | null> {
   const monthIndex = Int32Array.from({ length: months }, (_, k) => firstMonth + k);
   const tests: Array<TrendTest | null> = [];
-  for (let offset = 0; offset < values.length; offset += months) tests.push(trendTest(monthIndex, values.subarray(offset, offset + months), { trends }));
+  for (let offset = 0; offset < values.length; offset += months)
+    tests.push(trendTest(monthIndex, values.subarray(offset, offset + months), { trends }));
   return tests;
 }
 
@@ -189,7 +232,13 @@ const TREND_TESTS = defineTask<Parameters<typeof encodedTestBatch>[0], EncodedTe
 /** The worker side: a batch of series, tested and encoded. */
 export function encodedTestBatch(input: { firstMonth: number; months: number; values: Float64Array; trends: TrendSettings }): EncodedTests {
   const tests = testBatch(input.firstMonth, input.months, input.values, input.trends);
-  const encoded: EncodedTests = { method: new Int8Array(tests.length), observedMonths: new Int32Array(tests.length), seasonalityP: new Float64Array(tests.length), slopePerYear: new Float64Array(tests.length), p: new Float64Array(tests.length) };
+  const encoded: EncodedTests = {
+    method: new Int8Array(tests.length),
+    observedMonths: new Int32Array(tests.length),
+    seasonalityP: new Float64Array(tests.length),
+    slopePerYear: new Float64Array(tests.length),
+    p: new Float64Array(tests.length),
+  };
   tests.forEach((test, k) => {
     encoded.method[k] = test ? METHOD_CODES.indexOf(test.method) : -1;
     encoded.observedMonths[k] = test?.observedMonths ?? 0;
@@ -202,7 +251,15 @@ export function encodedTestBatch(input: { firstMonth: number; months: number; va
 
 function decodeTests(encoded: EncodedTests): Array<TrendTest | null> {
   return Array.from(encoded.method, (code, k) =>
-    code < 0 ? null : { observedMonths: encoded.observedMonths[k] as number, seasonalityP: encoded.seasonalityP[k] as number, method: METHOD_CODES[code] as TrendMethod, slopePerYear: encoded.slopePerYear[k] as number, p: encoded.p[k] as number },
+    code < 0
+      ? null
+      : {
+          observedMonths: encoded.observedMonths[k] as number,
+          seasonalityP: encoded.seasonalityP[k] as number,
+          method: METHOD_CODES[code] as TrendMethod,
+          slopePerYear: encoded.slopePerYear[k] as number,
+          p: encoded.p[k] as number,
+        },
   );
 }
 
@@ -210,7 +267,11 @@ export function groupTrends(groups: Array<{ id: string; name: string; series: Gr
   const entries = groups.map((entry) => ({
     id: entry.id,
     name: entry.name,
-    test: trendTest(entry.series.map((row) => row.month), entry.series.map((row) => row.fillingPercent ?? Number.NaN), config),
+    test: trendTest(
+      entry.series.map((row) => row.month),
+      entry.series.map((row) => row.fillingPercent ?? Number.NaN),
+      config,
+    ),
   }));
   return summarize(entries, config.trends.falseDiscoveryRate);
 }
@@ -231,7 +292,9 @@ export interface ChangePoint {
  */
 export function regionalChangePoint(series: GroupMonth[]): ChangePoint {
   const stated = series.filter((row) => row.fillingPercent !== null) as Array<GroupMonth & { fillingPercent: number }>;
-  const medians = Array.from({ length: 12 }, (_, month) => median(stated.filter((row) => row.month % 12 === month).map((row) => row.fillingPercent)));
+  const medians = Array.from({ length: 12 }, (_, month) =>
+    median(stated.filter((row) => row.month % 12 === month).map((row) => row.fillingPercent)),
+  );
   const anomalies = stated.map((row) => row.fillingPercent - (medians[row.month % 12] as number));
   const result = pettitt(anomalies);
   if (result.reason !== null) return { month: null, k: result.k, p: result.p, meanBefore: null, meanAfter: null };

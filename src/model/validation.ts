@@ -39,8 +39,24 @@ export function validation(inputs: BulletinInputs): ValidationSummary[] {
       if (nextStart - 1 - sample.day < windowDays) candidates.push(sample.month + 1);
       const month = candidates.find((candidate) => Number.isFinite(valueAt(sample.body, candidate)));
       if (month === undefined) continue;
-      pairs.push({ bodyId: sample.bodyId, date: date.toISOString().slice(0, 10), field: sample.value, satellite: valueAt(sample.body, month), satelliteMonth: month });
+      pairs.push({
+        bodyId: sample.bodyId,
+        date: date.toISOString().slice(0, 10),
+        field: sample.value,
+        satellite: valueAt(sample.body, month),
+        satelliteMonth: month,
+      });
     }
-    return [{ parameter, windowDays, pairs, agreement: agreement(pairs.map((pair) => pair.field), pairs.map((pair) => pair.satellite)) }];
+    return [
+      {
+        parameter,
+        windowDays,
+        pairs,
+        agreement: agreement(
+          pairs.map((pair) => pair.field),
+          pairs.map((pair) => pair.satellite),
+        ),
+      },
+    ];
   });
 }

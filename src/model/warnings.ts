@@ -16,9 +16,20 @@ export interface ShownWarning extends Problem {
 export function warningText(problem: Problem, locale: string): ShownWarning {
   const messages = loadMessages(locale);
   const sentence = messages[`warning.${problem.code}`];
-  if (sentence === undefined || problem.params === undefined || problem.severity !== 'warning') return { ...problem, text: formatProblem(problem), lang: 'en' };
+  if (sentence === undefined || problem.params === undefined || problem.severity !== 'warning')
+    return { ...problem, text: formatProblem(problem), lang: 'en' };
   const numbers = new Intl.NumberFormat(locale, { maximumFractionDigits: 6 });
-  const params = Object.fromEntries(Object.entries(problem.params).map(([name, value]) => [name, typeof value === 'number' ? numbers.format(value) : value]));
+  const params = Object.fromEntries(
+    Object.entries(problem.params).map(([name, value]) => [name, typeof value === 'number' ? numbers.format(value) : value]),
+  );
   const message = fillMessage(sentence, { ...params, value: problem.value }, `warning.${problem.code}`);
-  return { ...problem, text: fillMessage(messages['warning.where'] as string, { where: problemPlace(problem), column: problem.column ? ` [${problem.column}]` : '', message }, 'warning.where'), lang: locale };
+  return {
+    ...problem,
+    text: fillMessage(
+      messages['warning.where'] as string,
+      { where: problemPlace(problem), column: problem.column ? ` [${problem.column}]` : '', message },
+      'warning.where',
+    ),
+    lang: locale,
+  };
 }

@@ -40,10 +40,13 @@ const LANGUAGE_NAMES: Record<string, string> = { en: 'English', fr: 'Français' 
 
 /** A language as the switch, hreflang and Open Graph links need it. */
 function languageOf(locale: string, siteLocale: string) {
-  return { locale, prefix: prefixOf(locale, siteLocale), name: LANGUAGE_NAMES[locale] ?? locale, ogLocale: loadMessages(locale)['site.ogLocale'] };
+  return {
+    locale,
+    prefix: prefixOf(locale, siteLocale),
+    name: LANGUAGE_NAMES[locale] ?? locale,
+    ogLocale: loadMessages(locale)['site.ogLocale'],
+  };
 }
-
-
 
 /** Everything one issue's pages read, computed here so templates only place it. */
 export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
@@ -65,7 +68,14 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
   const inputsPath = bundle.inputsPath ?? issue;
   const revisions = sameLanguage
     .filter((other) => other.model.meta.month === model.meta.month)
-    .map((other) => ({ revision: other.model.meta.revision, published: other.model.meta.published, publishedName: other.model.meta.publishedName, href: other.model.meta.issuePath, corrections: other.model.meta.corrections, current: other === bundle }))
+    .map((other) => ({
+      revision: other.model.meta.revision,
+      published: other.model.meta.published,
+      publishedName: other.model.meta.publishedName,
+      href: other.model.meta.issuePath,
+      corrections: other.model.meta.corrections,
+      current: other === bundle,
+    }))
     .sort((a, b) => a.revision - b.revision);
   return {
     bulletin: model,
@@ -79,7 +89,11 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     previous: position >= 0 ? link(current[position - 1]) : null,
     next: position >= 0 ? link(current[position + 1]) : null,
     revisions,
-    inputDownloads: model.inputs.map((file) => ({ ...file, href: `${inputsPath}data/inputs/${file.published}`, parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.published}/${part.path}` })) })),
+    inputDownloads: model.inputs.map((file) => ({
+      ...file,
+      href: `${inputsPath}data/inputs/${file.published}`,
+      parts: file.parts?.map((part) => ({ ...part, href: `${inputsPath}data/inputs/${file.published}/${part.path}` })),
+    })),
     t: messages,
     prefix,
     languages,
@@ -120,7 +134,9 @@ function jsonLd(model: BulletinModel): string {
     spatialCoverage: { '@type': 'Place', name: model.meta.region },
     publisher: { '@type': 'Organization', name: model.meta.publisher },
     isAccessibleForFree: true,
-    distribution: [{ '@type': 'DataDownload', encodingFormat: 'application/json', contentUrl: url(`${model.meta.issuePath}data/bulletin-model.json`) }],
+    distribution: [
+      { '@type': 'DataDownload', encodingFormat: 'application/json', contentUrl: url(`${model.meta.issuePath}data/bulletin-model.json`) },
+    ],
   };
   return JSON.stringify(data).replace(/</g, '\\u003c').replace(/>/g, '\\u003e').replace(/&/g, '\\u0026');
 }
@@ -145,7 +161,10 @@ function languageSite(issues: IssueData[], locale: string, siteLocale: string, l
 /** The site-level data: per language, the latest issue and the archive by year; the first language's at the root. */
 export function siteData(issues: IssueData[], siteLocale?: string) {
   const first = siteLocale ?? (issues[issues.length - 1] as IssueData).bulletin.meta.locale;
-  const locales = siteLocales(issues.map((issue) => issue.bulletin.meta.locale), first);
+  const locales = siteLocales(
+    issues.map((issue) => issue.bulletin.meta.locale),
+    first,
+  );
   const languages = locales.map((locale) => languageOf(locale, first));
   const sites = locales.map((locale) => languageSite(issues, locale, first, languages));
   const root = sites[0] as ReturnType<typeof languageSite>;
@@ -167,16 +186,34 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
     quietMode: true,
     config: (eleventyConfig) => {
       eleventyConfig.addGlobalData('issues', issues);
-      eleventyConfig.addGlobalData('subRegionPages', issues.flatMap((issue) => issue.subRegions.map((subRegion) => ({ issue, subRegion }))));
+      eleventyConfig.addGlobalData(
+        'subRegionPages',
+        issues.flatMap((issue) => issue.subRegions.map((subRegion) => ({ issue, subRegion }))),
+      );
       eleventyConfig.addGlobalData(
         'bodyListPages',
-        issues.flatMap((issue) => issue.subRegions.flatMap((subRegion) => subRegion.listPages.map((page) => ({ issue, subRegion, page, pages: subRegion.listPages.map(({ number, href }) => ({ number, href })) })))),
+        issues.flatMap((issue) =>
+          issue.subRegions.flatMap((subRegion) =>
+            subRegion.listPages.map((page) => ({
+              issue,
+              subRegion,
+              page,
+              pages: subRegion.listPages.map(({ number, href }) => ({ number, href })),
+            })),
+          ),
+        ),
       );
-      eleventyConfig.addGlobalData('bodyPages', issues.flatMap((issue) => issue.monitoredBodies.map((body) => ({ issue, body }))));
+      eleventyConfig.addGlobalData(
+        'bodyPages',
+        issues.flatMap((issue) => issue.monitoredBodies.map((body) => ({ issue, body }))),
+      );
       // Wording: a catalogue entry with its {placeholders} filled (the result is escaped like any text).
       eleventyConfig.addFilter('fmt', (template: string, params: Record<string, string | number>) => fillMessage(template, params));
       // The same page in another language: only the language prefix of the path differs.
-      eleventyConfig.addFilter('switchPrefix', (url: string, from: string, to: string) => `${to}${from && url.startsWith(`${from}/`) ? url.slice(from.length) : url}`);
+      eleventyConfig.addFilter(
+        'switchPrefix',
+        (url: string, from: string, to: string) => `${to}${from && url.startsWith(`${from}/`) ? url.slice(from.length) : url}`,
+      );
       eleventyConfig.addFilter('absoluteUrl', (path: string, baseUrl: string) => siteUrl(baseUrl, path));
       eleventyConfig.addGlobalData('site', site);
       eleventyConfig.addGlobalData('sites', site.sites);
@@ -187,7 +224,13 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
   eleventy.disableLogger();
   await eleventy.write();
   const known = copyInputs(bundles, outDir, hashes);
-  for (const file of siteFiles(bundles.map((bundle) => bundle.model), outDir, known, site.locale)) write(file);
+  for (const file of siteFiles(
+    bundles.map((bundle) => bundle.model),
+    outDir,
+    known,
+    site.locale,
+  ))
+    write(file);
 }
 
 /**
@@ -213,7 +256,8 @@ function copyInputs(bundles: IssueBundle[], outDir: string, hashes: HashCache): 
         mkdirSync(dirname(to), { recursive: true });
         const sha256 = copyHashed(folder ? join(source, part.path) : source, to, hashes);
         // The bytes published must be the bytes read: an input changed during the build stops it.
-        if (sha256 !== part.sha256) throw new Error(`${input.path}${folder ? `/${part.path}` : ''} changed while the bulletin was being built; build again`);
+        if (sha256 !== part.sha256)
+          throw new Error(`${input.path}${folder ? `/${part.path}` : ''} changed while the bulletin was being built; build again`);
         known.set(relative(outDir, to).split(sep).join('/'), sha256);
       }
     }
@@ -232,7 +276,10 @@ const COMPACT_MODEL_FROM = 10_000;
 export function* downloadFiles(model: BulletinModel, chartSet: ChartSet): Generator<SiteFile> {
   const issue = model.meta.issuePath.replace(/^\//, '');
   // Indented for reading; compact for a large inventory, where indentation alone would add tens of megabytes.
-  yield { path: `${issue}data/bulletin-model.json`, content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n` };
+  yield {
+    path: `${issue}data/bulletin-model.json`,
+    content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n`,
+  };
   yield { path: `${issue}card.png`, content: chartSet.card.png };
   for (const chart of Object.values(chartSet.charts)) {
     yield { path: `${issue}charts/${chart.id}.csv`, content: chart.csv };

@@ -33,15 +33,17 @@ const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.base
 
 function atom(models: BulletinModel[], prefix: string): string {
   const latest = models[0] as BulletinModel;
-  const entries = models.map((model) => [
-    '  <entry>',
-    `    <id>${escapeXml(absolute(model, model.meta.issuePath))}</id>`,
-    `    <title>${escapeXml(`${model.meta.title}: ${model.meta.monthName}`)}</title>`,
-    `    <updated>${model.meta.published}T00:00:00Z</updated>`,
-    `    <link rel="alternate" type="text/html" href="${escapeXml(absolute(model, model.meta.issuePath))}"/>`,
-    `    <summary>${escapeXml(model.headline)}</summary>`,
-    '  </entry>',
-  ].join('\n'));
+  const entries = models.map((model) =>
+    [
+      '  <entry>',
+      `    <id>${escapeXml(absolute(model, model.meta.issuePath))}</id>`,
+      `    <title>${escapeXml(`${model.meta.title}: ${model.meta.monthName}`)}</title>`,
+      `    <updated>${model.meta.published}T00:00:00Z</updated>`,
+      `    <link rel="alternate" type="text/html" href="${escapeXml(absolute(model, model.meta.issuePath))}"/>`,
+      `    <summary>${escapeXml(model.headline)}</summary>`,
+      '  </entry>',
+    ].join('\n'),
+  );
   return [
     '<?xml version="1.0" encoding="utf-8"?>',
     `<feed xmlns="http://www.w3.org/2005/Atom" xml:lang="${escapeXml(latest.meta.locale)}">`,
@@ -82,11 +84,21 @@ function jsonFeed(models: BulletinModel[], prefix: string): string {
 }
 
 /** Feeds and sitemap first; then the manifests over everything written, the site manifest last. */
-export function siteFiles(models: BulletinModel[], outDir: string, known: ReadonlyMap<string, string> = new Map(), siteLocale = models[models.length - 1]?.meta.locale ?? 'en'): SiteFile[] {
-  const current = models.filter((model) => !model.meta.issuePath.includes('/revisions/')).sort((a, b) => b.meta.month.localeCompare(a.meta.month));
+export function siteFiles(
+  models: BulletinModel[],
+  outDir: string,
+  known: ReadonlyMap<string, string> = new Map(),
+  siteLocale = models[models.length - 1]?.meta.locale ?? 'en',
+): SiteFile[] {
+  const current = models
+    .filter((model) => !model.meta.issuePath.includes('/revisions/'))
+    .sort((a, b) => b.meta.month.localeCompare(a.meta.month));
   const latest = (current.find((model) => model.meta.locale === siteLocale) ?? current[0]) as BulletinModel;
   // One pair of feeds per language, the first language's at the root.
-  const locales = siteLocales(current.map((model) => model.meta.locale), siteLocale);
+  const locales = siteLocales(
+    current.map((model) => model.meta.locale),
+    siteLocale,
+  );
   const files: SiteFile[] = locales.flatMap((locale) => {
     const prefix = prefixOf(locale, siteLocale);
     const own = current.filter((model) => model.meta.locale === locale);
@@ -95,19 +107,40 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
       { path: `${prefix.slice(1)}${prefix ? '/' : ''}feed.json`, content: jsonFeed(own, prefix) },
     ];
   });
-  const pages = [...listFiles(outDir).filter((path) => path.endsWith('index.html')).map((path) => `/${path.replace(/index\.html$/, '')}`)].sort();
+  const pages = [
+    ...listFiles(outDir)
+      .filter((path) => path.endsWith('index.html'))
+      .map((path) => `/${path.replace(/index\.html$/, '')}`),
+  ].sort();
   // Each page with its versions in the other languages (hreflang alternates, as in the pages).
   const pageSet = new Set(pages);
   const prefixes = locales.map((locale) => ({ locale, prefix: prefixOf(locale, siteLocale) }));
-  const baseOf = (page: string) => prefixes.filter(({ prefix }) => prefix && page.startsWith(`${prefix}/`)).map(({ prefix }) => page.slice(prefix.length))[0] ?? page;
+  const baseOf = (page: string) =>
+    prefixes.filter(({ prefix }) => prefix && page.startsWith(`${prefix}/`)).map(({ prefix }) => page.slice(prefix.length))[0] ?? page;
   const entry = (page: string) => {
-    const versions = prefixes.map(({ locale, prefix }) => ({ locale, page: `${prefix}${baseOf(page)}` })).filter((version) => pageSet.has(version.page));
-    const links = versions.length > 1 ? versions.map((version) => `<xhtml:link rel="alternate" hreflang="${escapeXml(version.locale)}" href="${escapeXml(absolute(latest, version.page))}"/>`).join('') : '';
+    const versions = prefixes
+      .map(({ locale, prefix }) => ({ locale, page: `${prefix}${baseOf(page)}` }))
+      .filter((version) => pageSet.has(version.page));
+    const links =
+      versions.length > 1
+        ? versions
+            .map(
+              (version) =>
+                `<xhtml:link rel="alternate" hreflang="${escapeXml(version.locale)}" href="${escapeXml(absolute(latest, version.page))}"/>`,
+            )
+            .join('')
+        : '';
     return `  <url><loc>${escapeXml(absolute(latest, page))}</loc>${links}</url>`;
   };
   files.push({
     path: 'sitemap.xml',
-    content: ['<?xml version="1.0" encoding="UTF-8"?>', `<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9"${locales.length > 1 ? ' xmlns:xhtml="http://www.w3.org/1999/xhtml"' : ''}>`, ...pages.map(entry), '</urlset>', ''].join('\n'),
+    content: [
+      '<?xml version="1.0" encoding="UTF-8"?>',
+      `<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9"${locales.length > 1 ? ' xmlns:xhtml="http://www.w3.org/1999/xhtml"' : ''}>`,
+      ...pages.map(entry),
+      '</urlset>',
+      '',
+    ].join('\n'),
   });
   // Manifests cover the files on disk plus the feed files above (not yet written).
   const pending = new Map(files.map((file) => [file.path, file.content]));
@@ -118,7 +151,8 @@ export function siteFiles(models: BulletinModel[], outDir: string, known: Readon
     return known.get(path) ?? sha256File(join(outDir, path)).sha256;
   };
   const issuePrefixes = models.map((model) => model.meta.issuePath.replace(/^\//, ''));
-  const ownerOf = (path: string) => issuePrefixes.filter((prefix) => path.startsWith(prefix)).sort((a, b) => b.length - a.length)[0] ?? null;
+  const ownerOf = (path: string) =>
+    issuePrefixes.filter((prefix) => path.startsWith(prefix)).sort((a, b) => b.length - a.length)[0] ?? null;
   const manifests: SiteFile[] = models.map((model) => {
     const prefix = model.meta.issuePath.replace(/^\//, '');
     const owned = all.filter((path) => ownerOf(path) === prefix && path !== `${prefix}${MANIFEST}`);

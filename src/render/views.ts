@@ -21,18 +21,27 @@ export interface TableView {
 
 /** The page formatters of one locale: a missing or undefined figure always prints as "–". */
 function formatters(locale: string) {
-  const missing = (value: number | null | undefined): value is null | undefined => value === null || value === undefined || !Number.isFinite(value);
+  const missing = (value: number | null | undefined): value is null | undefined =>
+    value === null || value === undefined || !Number.isFinite(value);
   const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
   return {
     t,
     /** A group's status in words: its band, or why none is stated. */
-    statusWords: (status: Status | undefined) => (status?.kind === 'stated' ? t(`band.${status.bandKey}`) : status?.kind === 'low-coverage' ? t('view.notStated.lowCoverage') : t('view.notStated.shortBaseline')),
+    statusWords: (status: Status | undefined) =>
+      status?.kind === 'stated'
+        ? t(`band.${status.bandKey}`)
+        : status?.kind === 'low-coverage'
+          ? t('view.notStated.lowCoverage')
+          : t('view.notStated.shortBaseline'),
     /** One water body's own status in words; `lowCoverage` names the words for a body not seen well enough. */
-    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage = 'view.body.lowCoverage') => (own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline')),
+    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage = 'view.body.lowCoverage') =>
+      own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline'),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
-    signed: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`),
-    p: (value: number | null | undefined) => (missing(value) ? '–' : value < 0.001 ? `< ${formatNumber(locale, 0.001, 3)}` : formatNumber(locale, value, 3)),
+    signed: (value: number | null | undefined, digits = 1) =>
+      missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`,
+    p: (value: number | null | undefined) =>
+      missing(value) ? '–' : value < 0.001 ? `< ${formatNumber(locale, 0.001, 3)}` : formatNumber(locale, value, 3),
   };
 }
 
@@ -43,9 +52,29 @@ export function views(model: BulletinModel) {
   const statusRow = (name: string, group: GroupSurface) => {
     const s = group.status;
     const stated = s.kind === 'stated' ? s : null;
-    return [name, String(group.bodies), pct(s.kind === 'low-coverage' ? null : s.fillingPercent), pct(stated?.baseline.median), pct(stated?.percentOfBaseline), signed(stated?.standardized, 2), stated ? formatNumber(locale, stated.percentileRank, 0) : '–', statusWords(s), pct(s.coveragePercent)];
+    return [
+      name,
+      String(group.bodies),
+      pct(s.kind === 'low-coverage' ? null : s.fillingPercent),
+      pct(stated?.baseline.median),
+      pct(stated?.percentOfBaseline),
+      signed(stated?.standardized, 2),
+      stated ? formatNumber(locale, stated.percentileRank, 0) : '–',
+      statusWords(s),
+      pct(s.coveragePercent),
+    ];
   };
-  const statusColumns = [t('view.area'), t('ui.bodies'), t('view.water'), t('view.baselineMedian'), t('ui.percentOfUsual'), t('view.standardized'), t('view.percentileRank'), t('ui.status'), t('view.seen')];
+  const statusColumns = [
+    t('view.area'),
+    t('ui.bodies'),
+    t('view.water'),
+    t('view.baselineMedian'),
+    t('ui.percentOfUsual'),
+    t('view.standardized'),
+    t('view.percentileRank'),
+    t('ui.status'),
+    t('view.seen'),
+  ];
 
   const sw = model.surfaceWater;
   const regionStatus = sw.region.status;
@@ -53,7 +82,12 @@ export function views(model: BulletinModel) {
   const surfaceTables: TableView[] = [
     {
       id: 'status',
-      caption: t('view.status.caption', { month: model.meta.monthName, calendarMonth: model.meta.calendarMonthName, baselineFirst: model.meta.baseline.firstYear, baselineLast: model.meta.baseline.lastYear }),
+      caption: t('view.status.caption', {
+        month: model.meta.monthName,
+        calendarMonth: model.meta.calendarMonthName,
+        baselineFirst: model.meta.baseline.firstYear,
+        baselineLast: model.meta.baseline.lastYear,
+      }),
       columns: [t('ui.figure'), t('ui.value')],
       rows: [
         [t('view.water'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.fillingPercent, 1)],
@@ -64,39 +98,100 @@ export function views(model: BulletinModel) {
         [t('view.standardized'), signed(regionStated?.standardized, 2)],
         [t('view.percentileRankBaseline'), regionStated ? formatNumber(locale, regionStated.percentileRank, 0) : '–'],
         [t('ui.status'), statusWords(regionStatus)],
-        [t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 12) }), signed(regionStated?.changeFromLastYear)],
-        [t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 1) }), signed(regionStated?.changeFromPreviousMonth)],
+        [
+          t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 12) }),
+          signed(regionStated?.changeFromLastYear),
+        ],
+        [
+          t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 1) }),
+          signed(regionStated?.changeFromPreviousMonth),
+        ],
         [t('view.seen'), pct(regionStatus.coveragePercent)],
         [t('view.filled'), pct(regionStated?.filledPercent)],
       ],
     },
-    { id: 'sub-regions', caption: t('view.subRegions.caption', { month: model.meta.monthName }), columns: statusColumns, rows: sw.subRegions.map((group) => statusRow(group.name, group)) },
+    {
+      id: 'sub-regions',
+      caption: t('view.subRegions.caption', { month: model.meta.monthName }),
+      columns: statusColumns,
+      rows: sw.subRegions.map((group) => statusRow(group.name, group)),
+    },
     {
       id: 'size-classes',
       caption: t('view.sizeClasses.caption', { month: model.meta.monthName }),
-      columns: [t('view.sizeClass'), t('ui.bodies'), t('view.dryShare'), t('view.dryShareUsual', { calendarMonth: model.meta.calendarMonthName }), t('ui.status')],
-      rows: sw.sizeClasses.map((entry) => [entry.name, String(entry.bodies), pct(entry.lossPercent), pct(entry.baselineLossPercent), statusWords(entry.status)]),
+      columns: [
+        t('view.sizeClass'),
+        t('ui.bodies'),
+        t('view.dryShare'),
+        t('view.dryShareUsual', { calendarMonth: model.meta.calendarMonthName }),
+        t('ui.status'),
+      ],
+      rows: sw.sizeClasses.map((entry) => [
+        entry.name,
+        String(entry.bodies),
+        pct(entry.lossPercent),
+        pct(entry.baselineLossPercent),
+        statusWords(entry.status),
+      ]),
     },
     {
       id: 'grid',
       caption: t('view.grid.caption', { degrees: formatNumber(locale, model.grid.cellDegrees, 2), month: model.meta.monthName }),
       columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('view.standardized'), t('view.grid.state')],
-      rows: model.grid.cells.map((cell) => [`${formatNumber(locale, Math.abs(cell.south), 2)}° ${t(cell.south < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(cell.west), 2)}° ${t(cell.west < 0 ? 'view.west' : 'view.east')}`, String(cell.bodies), pct(cell.fillingPercent), pct(cell.baselineMean), signed(cell.standardized, 2), t(`view.cell.${cell.state}`)]),
+      rows: model.grid.cells.map((cell) => [
+        `${formatNumber(locale, Math.abs(cell.south), 2)}° ${t(cell.south < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(cell.west), 2)}° ${t(cell.west < 0 ? 'view.west' : 'view.east')}`,
+        String(cell.bodies),
+        pct(cell.fillingPercent),
+        pct(cell.baselineMean),
+        signed(cell.standardized, 2),
+        t(`view.cell.${cell.state}`),
+      ]),
       note: t('view.grid.note', { minBodies: model.grid.minBodies }),
     },
   ];
 
   const bodyName = new Map(model.bodies.map((body) => [body.id, body.name]));
-  const trendRow = (entry: TrendEntry): string[] => [entry.name, entry.test ? t(`view.test.${entry.test.method}`) : t('view.notTested'), signed(entry.test?.slopePerYear, 2), p(entry.test?.p), p(entry.pAdjusted), t(`view.direction.${entry.direction}`)];
+  const trendRow = (entry: TrendEntry): string[] => [
+    entry.name,
+    entry.test ? t(`view.test.${entry.test.method}`) : t('view.notTested'),
+    signed(entry.test?.slopePerYear, 2),
+    p(entry.test?.p),
+    p(entry.pAdjusted),
+    t(`view.direction.${entry.direction}`),
+  ];
   const trendColumns = [t('ui.body'), t('view.test'), t('view.trendPoints'), 'p', t('view.adjustedP'), t('view.afterAdjustment')];
   const tested = model.trends.bodies.entries.filter((entry) => entry.test);
-  const declines = tested.filter((entry) => (entry.test?.slopePerYear ?? 0) < 0).sort((a, b) => (a.test?.slopePerYear ?? 0) - (b.test?.slopePerYear ?? 0)).slice(0, 10);
-  const rises = tested.filter((entry) => (entry.test?.slopePerYear ?? 0) > 0).sort((a, b) => (b.test?.slopePerYear ?? 0) - (a.test?.slopePerYear ?? 0)).slice(0, 10);
+  const declines = tested
+    .filter((entry) => (entry.test?.slopePerYear ?? 0) < 0)
+    .sort((a, b) => (a.test?.slopePerYear ?? 0) - (b.test?.slopePerYear ?? 0))
+    .slice(0, 10);
+  const rises = tested
+    .filter((entry) => (entry.test?.slopePerYear ?? 0) > 0)
+    .sort((a, b) => (b.test?.slopePerYear ?? 0) - (a.test?.slopePerYear ?? 0))
+    .slice(0, 10);
   const regionTrend = model.trends.region.entries[0];
   const change = model.trends.changePoint;
   const trendTables: TableView[] = [
-    { id: 'region', caption: t('view.trends.region'), columns: trendColumns, rows: regionTrend ? [trendRow(regionTrend)] : [], note: change.month !== null ? t('view.trends.changePoint', { month: formatMonth(locale, change.month), points: signed((change.meanAfter ?? 0) - (change.meanBefore ?? 0)), p: p(change.p) }) : t('view.trends.noChangePoint') },
-    { id: 'sub-region-trends', caption: t('ui.surface.subRegions'), columns: trendColumns, rows: model.trends.subRegions.entries.map(trendRow) },
+    {
+      id: 'region',
+      caption: t('view.trends.region'),
+      columns: trendColumns,
+      rows: regionTrend ? [trendRow(regionTrend)] : [],
+      note:
+        change.month !== null
+          ? t('view.trends.changePoint', {
+              month: formatMonth(locale, change.month),
+              points: signed((change.meanAfter ?? 0) - (change.meanBefore ?? 0)),
+              p: p(change.p),
+            })
+          : t('view.trends.noChangePoint'),
+    },
+    {
+      id: 'sub-region-trends',
+      caption: t('ui.surface.subRegions'),
+      columns: trendColumns,
+      rows: model.trends.subRegions.entries.map(trendRow),
+    },
     { id: 'declines', caption: t('view.trends.declines'), columns: trendColumns, rows: declines.map(trendRow) },
     { id: 'rises', caption: t('view.trends.rises'), columns: trendColumns, rows: rises.map(trendRow) },
   ];
@@ -111,39 +206,91 @@ export function views(model: BulletinModel) {
         id: `${parameter.parameter}-classes`,
         caption: t('view.quality.caption', { name, unit: parameter.unit, month: model.meta.monthName }),
         columns: [t('view.sizeClass'), t('ui.bodies'), t('view.p10'), t('view.p25'), t('view.p50'), t('view.p75'), t('view.p90')],
-        rows: parameter.bySizeClass.map((entry) => [entry.label, String(entry.bodies), num(entry.p10), num(entry.p25), num(entry.p50), num(entry.p75), num(entry.p90)]),
-        note: t('view.quality.note', { median: num(last?.median ?? null), weighted: num(last?.weightedMedian ?? null), unit: parameter.unit, rising: parameter.trends.rising, tested: parameter.trends.tested, falling: parameter.trends.falling }),
+        rows: parameter.bySizeClass.map((entry) => [
+          entry.label,
+          String(entry.bodies),
+          num(entry.p10),
+          num(entry.p25),
+          num(entry.p50),
+          num(entry.p75),
+          num(entry.p90),
+        ]),
+        note: t('view.quality.note', {
+          median: num(last?.median ?? null),
+          weighted: num(last?.weightedMedian ?? null),
+          unit: parameter.unit,
+          rising: parameter.trends.rising,
+          tested: parameter.trends.tested,
+          falling: parameter.trends.falling,
+        }),
       });
     }
     qualityTables.push({
       id: 'trophic',
       caption: t('view.trophic.caption', { month: model.meta.monthName }),
       columns: [t('view.trophic.class'), t('view.trophic.upTo'), t('ui.bodies')],
-      rows: quality.trophic.counts.map((entry) => [t(`trophic.${entry.trophicClass}`), entry.upperBound === null ? t('view.trophic.above', { value: num(25, 0) }) : `${num(entry.upperBound, 1)} µg/L`, String(entry.bodies)]),
+      rows: quality.trophic.counts.map((entry) => [
+        t(`trophic.${entry.trophicClass}`),
+        entry.upperBound === null ? t('view.trophic.above', { value: num(25, 0) }) : `${num(entry.upperBound, 1)} µg/L`,
+        String(entry.bodies),
+      ]),
     });
     qualityTables.push({
       id: 'who',
       caption: t('view.who.caption', { month: model.meta.monthName }),
       columns: [t('view.who.level'), t('view.who.above'), t('view.who.share')],
-      rows: quality.who.levels.map((level) => [`${level.level} µg/L`, t('view.countOf', { count: level.bodiesAbove, total: quality.who.bodiesWithValue }), pct(level.sharePercent)]),
+      rows: quality.who.levels.map((level) => [
+        `${level.level} µg/L`,
+        t('view.countOf', { count: level.bodiesAbove, total: quality.who.bodiesWithValue }),
+        pct(level.sharePercent),
+      ]),
     });
-    const seasonal = quality.parameters.flatMap((parameter) => parameter.seasonal.map((entry) => ({ ...entry, parameter: t(`parameter.${parameter.parameter}`), unit: parameter.unit })));
+    const seasonal = quality.parameters.flatMap((parameter) =>
+      parameter.seasonal.map((entry) => ({ ...entry, parameter: t(`parameter.${parameter.parameter}`), unit: parameter.unit })),
+    );
     if (seasonal.length > 0) {
       qualityTables.push({
         id: 'seasonal-trends',
         caption: t('view.seasonal.caption'),
         columns: [t('view.seasonal.row'), t('view.years'), t('view.trendYear'), 'p', t('view.evidence')],
-        rows: seasonal.map((entry) => [t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.seasonName, sizeClass: entry.sizeClass }), String(entry.years), entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`, p(entry.p), entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`)]),
+        rows: seasonal.map((entry) => [
+          t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.seasonName, sizeClass: entry.sizeClass }),
+          String(entry.years),
+          entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`,
+          p(entry.p),
+          entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`),
+        ]),
       });
     }
   }
-  const validationTables: TableView[] = model.validation.length === 0 ? [] : [{
-    id: 'validation',
-    caption: t('view.validation.caption'),
-    columns: [t('view.validation.parameter'), t('view.validation.pairs'), t('view.validation.bias'), t('view.validation.mae'), 'RMSE', 'R²', t('view.validation.line')],
-    rows: model.validation.map((entry) => [`${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`, String(entry.agreement.n), signed(entry.agreement.bias, 2), num(entry.agreement.meanAbsoluteError, 2), num(entry.agreement.rootMeanSquareError, 2), num(entry.agreement.rSquared, 2), `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`]),
-    note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
-  }];
+  const validationTables: TableView[] =
+    model.validation.length === 0
+      ? []
+      : [
+          {
+            id: 'validation',
+            caption: t('view.validation.caption'),
+            columns: [
+              t('view.validation.parameter'),
+              t('view.validation.pairs'),
+              t('view.validation.bias'),
+              t('view.validation.mae'),
+              'RMSE',
+              'R²',
+              t('view.validation.line'),
+            ],
+            rows: model.validation.map((entry) => [
+              `${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`,
+              String(entry.agreement.n),
+              signed(entry.agreement.bias, 2),
+              num(entry.agreement.meanAbsoluteError, 2),
+              num(entry.agreement.rootMeanSquareError, 2),
+              num(entry.agreement.rSquared, 2),
+              `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`,
+            ]),
+            note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
+          },
+        ];
 
   const monitored = model.monitored.map((entry) => {
     const status = model.bodyStatus[entry.body];
@@ -153,7 +300,10 @@ export function views(model: BulletinModel) {
       name: entry.name,
       last: pct(last),
       status: bodyStatusWords(status),
-      trend: entry.slopePerYear === null ? t('view.notTested') : t('view.monitored.trend', { slope: signed(entry.slopePerYear, 2), direction: t(`view.direction.${entry.direction}`) }),
+      trend:
+        entry.slopePerYear === null
+          ? t('view.notTested')
+          : t('view.monitored.trend', { slope: signed(entry.slopePerYear, 2), direction: t(`view.direction.${entry.direction}`) }),
     };
   });
 
@@ -180,7 +330,6 @@ export function views(model: BulletinModel) {
   };
 }
 
-
 export interface BodyListPage<T> {
   number: number;
   /** Site path of the page, with trailing slash. */
@@ -195,7 +344,13 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
   const pages: Array<BodyListPage<T>> = [];
   for (let from = 0; from < items.length; from += size) {
     const number = pages.length + 1;
-    pages.push({ number, href: number === 1 ? base : `${base}page-${number}/`, first: from + 1, last: Math.min(items.length, from + size), bodies: items.slice(from, from + size) });
+    pages.push({
+      number,
+      href: number === 1 ? base : `${base}page-${number}/`,
+      first: from + 1,
+      last: Math.min(items.length, from + size),
+      bodies: items.slice(from, from + size),
+    });
   }
   return pages;
 }
@@ -213,7 +368,15 @@ export function subRegionView(model: BulletinModel, id: string) {
     .filter(({ body }) => body.subRegionId === id)
     .map(({ body, k }) => {
       const own = model.bodyStatus[k];
-      return { id: body.id, name: body.name, kind: body.kind, area: formatNumber(locale, body.referenceHa, 1), status: bodyStatusWords(own), percent: pct(own?.percentOfBaseline), href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null };
+      return {
+        id: body.id,
+        name: body.name,
+        kind: body.kind,
+        area: formatNumber(locale, body.referenceHa, 1),
+        status: bodyStatusWords(own),
+        percent: pct(own?.percentOfBaseline),
+        href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null,
+      };
     });
   const slug = slugOf(id);
   // Up to site.bodiesPerListPage bodies are listed on the sub-region's page and the index; more get numbered pages.
@@ -235,7 +398,12 @@ export function subRegionView(model: BulletinModel, id: string) {
       [t('view.seen'), pct(status?.coveragePercent)],
       [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
       [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],
-      [t('view.rainfallIn', { month: model.meta.monthName }), rain?.bulletinMonthMm === null || rain?.bulletinMonthMm === undefined ? '–' : t('view.rainfall', { mm: formatNumber(locale, rain.bulletinMonthMm, 0), percent: pct(rain.percentOfBaseline) })],
+      [
+        t('view.rainfallIn', { month: model.meta.monthName }),
+        rain?.bulletinMonthMm === null || rain?.bulletinMonthMm === undefined
+          ? '–'
+          : t('view.rainfall', { mm: formatNumber(locale, rain.bulletinMonthMm, 0), percent: pct(rain.percentOfBaseline) }),
+      ],
     ],
   };
 }
@@ -257,12 +425,29 @@ export function bodyView(model: BulletinModel, index: number) {
     summary: [
       [t('ui.kind'), body.kind],
       [t('view.referenceArea'), `${formatNumber(locale, body.referenceHa, 1)} ha`],
-      [t('view.location'), `${formatNumber(locale, Math.abs(body.lat), 3)}° ${t(body.lat < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${t(body.lon < 0 ? 'view.west' : 'view.east')}`],
+      [
+        t('view.location'),
+        `${formatNumber(locale, Math.abs(body.lat), 3)}° ${t(body.lat < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${t(body.lon < 0 ? 'view.west' : 'view.east')}`,
+      ],
       [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
       [t('ui.status'), bodyStatusWords(own, 'view.body.lowCoverageMonth')],
-      [t('view.trendSinceFirst'), monitored?.slopePerYear === null || monitored?.slopePerYear === undefined ? t('view.notTested') : formatNumber(locale, monitored.slopePerYear, 2)],
+      [
+        t('view.trendSinceFirst'),
+        monitored?.slopePerYear === null || monitored?.slopePerYear === undefined
+          ? t('view.notTested')
+          : formatNumber(locale, monitored.slopePerYear, 2),
+      ],
       [t('view.trendAdjusted'), t(`view.direction.${monitored?.direction ?? 'untested'}`)],
-      [t('view.chlorophyllNow'), trophic ? t('view.chlorophyllValue', { value: formatNumber(locale, trophic.chlorophyll, 1), index: formatNumber(locale, trophic.index, 0), trophicClass: t(`trophic.${trophic.trophicClass}`) }) : t('view.noEstimate')],
+      [
+        t('view.chlorophyllNow'),
+        trophic
+          ? t('view.chlorophyllValue', {
+              value: formatNumber(locale, trophic.chlorophyll, 1),
+              index: formatNumber(locale, trophic.index, 0),
+              trophicClass: t(`trophic.${trophic.trophicClass}`),
+            })
+          : t('view.noEstimate'),
+      ],
     ],
   };
 }

@@ -22,7 +22,21 @@
  */
 import { hostname, homedir } from 'node:os';
 import {
-  existsSync, lstatSync, mkdirSync, readdirSync, readFileSync, readlinkSync, realpathSync, renameSync, rmSync, rmdirSync, statSync, symlinkSync, unlinkSync, writeFileSync, linkSync,
+  existsSync,
+  lstatSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  readlinkSync,
+  realpathSync,
+  renameSync,
+  rmSync,
+  rmdirSync,
+  statSync,
+  symlinkSync,
+  unlinkSync,
+  writeFileSync,
+  linkSync,
 } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { isInside, isLink } from '../common/paths.ts';
@@ -66,7 +80,6 @@ function realish(path: string): string {
   }
   return join(realpathSync(at), ...rest);
 }
-
 
 /** True when `dir` holds a site this tool published (its manifest says so). */
 function isOurSite(dir: string): boolean {
@@ -135,7 +148,9 @@ function takeLock(lockPath: string, out: string): void {
     const stale = info !== null && info.host === hostname() && !processAlive(info.pid);
     if (!stale) {
       const who = info ? `process ${info.pid} on ${info.host}, since ${info.started}` : 'an unreadable lock';
-      throw new PublishError(`another build is publishing to ${out} (${who}); wait for it to finish, or remove ${lockPath} if that build is gone`);
+      throw new PublishError(
+        `another build is publishing to ${out} (${who}); wait for it to finish, or remove ${lockPath} if that build is gone`,
+      );
     }
     // Stale: move it aside under a name of our own, and put it back if it changed meanwhile (another build took it).
     const aside = `${lockPath}.stale-${process.pid}`;
@@ -166,11 +181,17 @@ export function openTarget(outDir: string, options: { bulletinFolder?: string; f
   const real = realish(target);
   const parent = dirname(target);
   const name = basename(target);
-  const forbidden: Array<[string, string]> = [['/', 'the root folder'], [realish(process.cwd()), 'the current folder'], [realish(homedir()), 'the home folder']];
-  for (const [path, what] of forbidden) if (isInside(real, path)) throw new PublishError(`--out ${outDir} is or holds ${what}; give a folder of its own for the site`);
+  const forbidden: Array<[string, string]> = [
+    ['/', 'the root folder'],
+    [realish(process.cwd()), 'the current folder'],
+    [realish(homedir()), 'the home folder'],
+  ];
+  for (const [path, what] of forbidden)
+    if (isInside(real, path)) throw new PublishError(`--out ${outDir} is or holds ${what}; give a folder of its own for the site`);
   if (options.bulletinFolder !== undefined && existsSync(options.bulletinFolder)) {
     const bulletin = realpathSync(options.bulletinFolder);
-    if (isInside(real, bulletin) || isInside(bulletin, real)) throw new PublishError(`--out ${outDir} overlaps the bulletin folder ${options.bulletinFolder}; publish the site outside it`);
+    if (isInside(real, bulletin) || isInside(bulletin, real))
+      throw new PublishError(`--out ${outDir} overlaps the bulletin folder ${options.bulletinFolder}; publish the site outside it`);
   }
   const store = join(parent, `.${name}.limnopress`);
   let existing: ReturnType<typeof lstatSync> | null = null;
@@ -182,14 +203,19 @@ export function openTarget(outDir: string, options: { bulletinFolder?: string; f
   let kind: 'none' | 'link' | 'empty' | 'old-site' | 'foreign' = 'none';
   if (existing?.isSymbolicLink()) {
     const link = readlinkSync(target);
-    if (!link.startsWith(`.${name}.limnopress/site-`) || link.includes('..')) throw new PublishError(`--out ${outDir} is a symbolic link that limnopress did not make; give another folder`);
+    if (!link.startsWith(`.${name}.limnopress/site-`) || link.includes('..'))
+      throw new PublishError(`--out ${outDir} is a symbolic link that limnopress did not make; give another folder`);
     kind = 'link';
   } else if (existing?.isDirectory()) {
-    if (statSync(parent).dev !== existing.dev) throw new PublishError(`--out ${outDir} is a mount point, which cannot be swapped; give a folder inside it`);
+    if (statSync(parent).dev !== existing.dev)
+      throw new PublishError(`--out ${outDir} is a mount point, which cannot be swapped; give a folder inside it`);
     if (readdirSync(target).length === 0) kind = 'empty';
     else if (isOurSite(target)) kind = 'old-site';
     else if (options.force) kind = 'foreign';
-    else throw new PublishError(`--out ${outDir} is a folder that holds files but no limnopress site; give an empty or new folder, or --force to keep it under a new name and publish there`);
+    else
+      throw new PublishError(
+        `--out ${outDir} is a folder that holds files but no limnopress site; give an empty or new folder, or --force to keep it under a new name and publish there`,
+      );
   } else if (existing) {
     throw new PublishError(`--out ${outDir} is a file, not a folder; give a folder for the site`);
   }
@@ -233,7 +259,13 @@ export function openTarget(outDir: string, options: { bulletinFolder?: string; f
       if (kind === 'old-site' || kind === 'foreign' || kind === 'empty') {
         // One time only: the plain folder goes aside (kept, for a folder not ours), then the link takes its name.
         if (kind === 'empty') rmdirSync(target);
-        else renameSync(target, kind === 'foreign' ? join(parent, `${name}.replaced-${Date.now().toString(36)}`) : join(parent, `${name}${OLD_RETIRED_MARK}${process.pid}`));
+        else
+          renameSync(
+            target,
+            kind === 'foreign'
+              ? join(parent, `${name}.replaced-${Date.now().toString(36)}`)
+              : join(parent, `${name}${OLD_RETIRED_MARK}${process.pid}`),
+          );
         await pauseAt('retired', pause);
         symlinkSync(linkText, target);
       } else {
@@ -260,29 +292,46 @@ function recover(parent: string, name: string, store: string): void {
   const retired = beside.filter((entry) => entry.startsWith(`${name}${OLD_RETIRED_MARK}`));
   if (!existsSync(target) && !isLink(target) && retired[0] !== undefined) renameSync(join(parent, retired[0]), target);
   for (const entry of beside) {
-    if (entry.startsWith(`${name}${OLD_STAGING_MARK}`) || (entry.startsWith(`${name}${OLD_RETIRED_MARK}`) && isOurSite(join(parent, entry)))) rmSync(join(parent, entry), { recursive: true, force: true });
+    if (
+      entry.startsWith(`${name}${OLD_STAGING_MARK}`) ||
+      (entry.startsWith(`${name}${OLD_RETIRED_MARK}`) && isOurSite(join(parent, entry)))
+    )
+      rmSync(join(parent, entry), { recursive: true, force: true });
   }
   const current = isLink(target) ? basename(readlinkSync(target)) : null;
   for (const entry of readdirSync(store)) {
     if (entry === 'lock' || entry === current) continue;
-    if (entry.startsWith('staging-') || entry.startsWith('site-') || entry.startsWith('link-')) rmSync(join(store, entry), { recursive: true, force: true });
+    if (entry.startsWith('staging-') || entry.startsWith('site-') || entry.startsWith('link-'))
+      rmSync(join(store, entry), { recursive: true, force: true });
   }
 }
-
 
 /** A system error in words: "permission denied (EACCES)". */
 export function systemReason(error: unknown): string {
   const code = (error as NodeJS.ErrnoException)?.code;
   const words: Record<string, string> = {
-    EACCES: 'permission denied', EPERM: 'operation not permitted', EROFS: 'the file system is read-only', ENOSPC: 'no space left on the device', EDQUOT: 'disk quota exceeded',
-    ENOENT: 'no such file or folder', ENOTDIR: 'a part of the path is not a folder', EISDIR: 'is a folder', EXDEV: 'crosses file systems', EBUSY: 'busy (a mount point?)', ELOOP: 'a loop of symbolic links',
+    EACCES: 'permission denied',
+    EPERM: 'operation not permitted',
+    EROFS: 'the file system is read-only',
+    ENOSPC: 'no space left on the device',
+    EDQUOT: 'disk quota exceeded',
+    ENOENT: 'no such file or folder',
+    ENOTDIR: 'a part of the path is not a folder',
+    EISDIR: 'is a folder',
+    EXDEV: 'crosses file systems',
+    EBUSY: 'busy (a mount point?)',
+    ELOOP: 'a loop of symbolic links',
   };
   if (code && words[code]) return `${words[code]} (${code})`;
   return error instanceof Error ? error.message : String(error);
 }
 
 /** For tests and older callers: check the folder, take the lock, publish, release. */
-export async function publishAtomically(outDir: string, writeInto: (stagingDir: string) => Promise<void>, options: { bulletinFolder?: string; force?: boolean } = {}): Promise<void> {
+export async function publishAtomically(
+  outDir: string,
+  writeInto: (stagingDir: string) => Promise<void>,
+  options: { bulletinFolder?: string; force?: boolean } = {},
+): Promise<void> {
   const target = openTarget(outDir, options);
   try {
     await target.publish(writeInto);

@@ -11,13 +11,22 @@ import { extname, join, normalize } from 'node:path';
 import { isInside } from '../common/paths.ts';
 
 const MIME: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8', '.css': 'text/css; charset=utf-8', '.json': 'application/json', '.csv': 'text/csv; charset=utf-8',
-  '.svg': 'image/svg+xml', '.png': 'image/png', '.xml': 'application/xml', '.geojson': 'application/geo+json', '.md': 'text/markdown; charset=utf-8', '.parquet': 'application/vnd.apache.parquet',
+  '.html': 'text/html; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.json': 'application/json',
+  '.csv': 'text/csv; charset=utf-8',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+  '.xml': 'application/xml',
+  '.geojson': 'application/geo+json',
+  '.md': 'text/markdown; charset=utf-8',
+  '.parquet': 'application/vnd.apache.parquet',
 };
 
 /** The headers every answer of the site should carry (the same policy as the pages' meta tag). */
 export const SECURITY_HEADERS: Record<string, string> = {
-  'content-security-policy': "default-src 'self'; script-src 'none'; style-src 'self'; img-src 'self' data:; font-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'",
+  'content-security-policy':
+    "default-src 'self'; script-src 'none'; style-src 'self'; img-src 'self' data:; font-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'",
   'x-content-type-options': 'nosniff',
   'referrer-policy': 'no-referrer',
 };
@@ -40,7 +49,10 @@ function fileFor(base: string, pathname: string): string | null {
   }
 }
 
-export async function serveFolder(folder: string | (() => string), port = 0): Promise<{ origin: string; port: number; close: () => Promise<void> }> {
+export async function serveFolder(
+  folder: string | (() => string),
+  port = 0,
+): Promise<{ origin: string; port: number; close: () => Promise<void> }> {
   const root = () => realpathSync(typeof folder === 'string' ? folder : folder());
   const server: Server = createServer((request, response) => {
     try {
@@ -48,10 +60,14 @@ export async function serveFolder(folder: string | (() => string), port = 0): Pr
       const file = fileFor(base, new URL(request.url ?? '/', 'http://localhost').pathname);
       if (file === null) {
         const notFound = fileFor(base, '/404.html');
-        response.writeHead(404, { ...SECURITY_HEADERS, 'content-type': MIME['.html'] as string }).end(notFound ? readFileSync(notFound) : 'not found');
+        response
+          .writeHead(404, { ...SECURITY_HEADERS, 'content-type': MIME['.html'] as string })
+          .end(notFound ? readFileSync(notFound) : 'not found');
         return;
       }
-      response.writeHead(200, { ...SECURITY_HEADERS, 'content-type': MIME[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
+      response
+        .writeHead(200, { ...SECURITY_HEADERS, 'content-type': MIME[extname(file)] ?? 'application/octet-stream' })
+        .end(readFileSync(file));
     } catch {
       // A malformed request or a site swapped mid-read: answer, never stop serving.
       if (!response.headersSent) response.writeHead(400, { ...SECURITY_HEADERS, 'content-type': 'text/plain; charset=utf-8' });

@@ -15,7 +15,18 @@ export interface VerifyFinding {
 }
 
 /** A path as a manifest lists it: relative, forward slashes, no `..` segment, no NUL. */
-const sitePath = z.string().min(1).max(4096).refine((path) => !path.startsWith('/') && !path.includes('\0') && !path.includes('\\') && !path.split('/').some((part) => part === '..' || part === '.' || part === ''), 'a relative path inside the site');
+const sitePath = z
+  .string()
+  .min(1)
+  .max(4096)
+  .refine(
+    (path) =>
+      !path.startsWith('/') &&
+      !path.includes('\0') &&
+      !path.includes('\\') &&
+      !path.split('/').some((part) => part === '..' || part === '.' || part === ''),
+    'a relative path inside the site',
+  );
 const listed = z.array(z.object({ path: sitePath, sha256: z.string().regex(/^[0-9a-f]{64}$/) }));
 const siteManifest = z.object({ issues: listed, outputs: listed });
 const issueManifest = z.object({ outputs: listed });

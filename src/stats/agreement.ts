@@ -19,10 +19,22 @@ export interface AgreementResult {
  * with slope = Sxy/Sxx, intercept = ē − slope·r̄ and R² = Sxy²/(Sxx·Syy). Pairs with a missing
  * member are skipped. NaN where undefined (n < 2 for the line, zero spread). Cost O(n).
  */
-export function agreement(reference: ArrayLike<number | null | undefined>, estimate: ArrayLike<number | null | undefined>): AgreementResult {
+export function agreement(
+  reference: ArrayLike<number | null | undefined>,
+  estimate: ArrayLike<number | null | undefined>,
+): AgreementResult {
   const { times: r, values: e } = finitePairs(reference, estimate);
   const n = r.length;
-  if (n === 0) return { n, bias: Number.NaN, meanAbsoluteError: Number.NaN, rootMeanSquareError: Number.NaN, rSquared: Number.NaN, slope: Number.NaN, intercept: Number.NaN };
+  if (n === 0)
+    return {
+      n,
+      bias: Number.NaN,
+      meanAbsoluteError: Number.NaN,
+      rootMeanSquareError: Number.NaN,
+      rSquared: Number.NaN,
+      slope: Number.NaN,
+      intercept: Number.NaN,
+    };
   let sumError = 0;
   let sumAbsolute = 0;
   let sumSquared = 0;

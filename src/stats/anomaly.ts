@@ -20,7 +20,8 @@ export interface Anomaly {
  * standard deviation. Cost O(years).
  */
 export function anomaly(value: number, reference: ClimatologyEntry): Anomaly {
-  if (!reference.enough || !Number.isFinite(value)) return { absolute: Number.NaN, percentOfBaseline: Number.NaN, standardized: Number.NaN, percentileRank: Number.NaN };
+  if (!reference.enough || !Number.isFinite(value))
+    return { absolute: Number.NaN, percentOfBaseline: Number.NaN, standardized: Number.NaN, percentileRank: Number.NaN };
   return {
     absolute: value - reference.median,
     percentOfBaseline: reference.median !== 0 ? (100 * value) / reference.median : Number.NaN,

@@ -32,7 +32,11 @@ export interface BaselinePeriod {
  * median, mean, sample standard deviation (n − 1) and 10th and 90th percentiles (type 7). A month
  * with fewer than `minYears` values gets NaN statistics and `enough: false`. Cost O(n log n).
  */
-export function climatology(months: ArrayLike<number>, values: ArrayLike<number | null | undefined>, baseline: BaselinePeriod): ClimatologyEntry[] {
+export function climatology(
+  months: ArrayLike<number>,
+  values: ArrayLike<number | null | undefined>,
+  baseline: BaselinePeriod,
+): ClimatologyEntry[] {
   if (months.length !== values.length) throw new RangeError('climatology requires months and values of the same length');
   const byMonth: number[][] = Array.from({ length: 12 }, () => []);
   for (let k = 0; k < months.length; k++) {

@@ -22,7 +22,10 @@ function isArrayLike(values: object): values is ArrayLike<number | null | undefi
  * The same convention for paired series (time and value): a pair counts only when both members
  * are finite. Returns new arrays. Cost O(n).
  */
-export function finitePairs(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>): { times: Float64Array; values: Float64Array } {
+export function finitePairs(
+  times: ArrayLike<number | null | undefined>,
+  values: ArrayLike<number | null | undefined>,
+): { times: Float64Array; values: Float64Array } {
   const keptTimes = new Float64Array(values.length);
   const keptValues = new Float64Array(values.length);
   const n = copyFinitePairs(times, values, keptTimes, keptValues);
@@ -46,7 +49,12 @@ export function copyFinite(values: ArrayLike<number | null | undefined>, into: F
  * finitePairs without an allocation: copies the pairs where both members are finite into
  * `intoTimes` and `intoValues` (long enough) and returns how many there were. Cost O(n).
  */
-export function copyFinitePairs(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, intoTimes: Float64Array, intoValues: Float64Array): number {
+export function copyFinitePairs(
+  times: ArrayLike<number | null | undefined>,
+  values: ArrayLike<number | null | undefined>,
+  intoTimes: Float64Array,
+  intoValues: Float64Array,
+): number {
   if (times.length !== values.length) throw new RangeError('times and values must have the same length');
   let n = 0;
   for (let k = 0; k < values.length; k++) {

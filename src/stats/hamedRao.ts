@@ -32,12 +32,24 @@ export interface HamedRaoResult {
  * A factor that is not positive gives no statement (reason 'correction-not-positive').
  * Cost O(n²).
  */
-export function hamedRao(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, { alpha = 0.05 } = {}): HamedRaoResult {
+export function hamedRao(
+  times: ArrayLike<number | null | undefined>,
+  values: ArrayLike<number | null | undefined>,
+  { alpha = 0.05 } = {},
+): HamedRaoResult {
   const { times: t, values: x } = finitePairs(times, values);
   const plain = mannKendall(x);
   const n = x.length;
   if (plain.reason !== null) {
-    return { plain, correctionFactor: Number.NaN, significantLags: [], varianceS: plain.varianceS, z: plain.z, p: plain.p, reason: plain.reason };
+    return {
+      plain,
+      correctionFactor: Number.NaN,
+      significantLags: [],
+      varianceS: plain.varianceS,
+      z: plain.z,
+      p: plain.p,
+      reason: plain.reason,
+    };
   }
   const beta = sensSlope(t, x).slope;
   const ranks = averageRanks(Float64Array.from(x, (value, k) => value - beta * (t[k] as number)));
@@ -58,7 +70,15 @@ export function hamedRao(times: ArrayLike<number | null | undefined>, values: Ar
   }
   const correctionFactor = 1 + (2 / (n * (n - 1) * (n - 2))) * sum;
   if (!(correctionFactor > 0)) {
-    return { plain, correctionFactor, significantLags, varianceS: Number.NaN, z: Number.NaN, p: Number.NaN, reason: 'correction-not-positive' };
+    return {
+      plain,
+      correctionFactor,
+      significantLags,
+      varianceS: Number.NaN,
+      z: Number.NaN,
+      p: Number.NaN,
+      reason: 'correction-not-positive',
+    };
   }
   const varianceS = plain.varianceS * correctionFactor;
   const z = (plain.s - Math.sign(plain.s)) / Math.sqrt(varianceS);
@@ -69,7 +89,7 @@ export function hamedRao(times: ArrayLike<number | null | undefined>, values: Ar
 function averageRanks(values: Float64Array): Float64Array {
   const order = Array.from(values.keys()).sort((a, b) => (values[a] as number) - (values[b] as number));
   const ranks = new Float64Array(values.length);
-  for (let start = 0; start < order.length; ) {
+  for (let start = 0; start < order.length;) {
     let end = start;
     while (end + 1 < order.length && values[order[end + 1] as number] === values[order[start] as number]) end++;
     const rank = (start + end) / 2 + 1;

@@ -84,7 +84,8 @@ export function kendallScore(values: ArrayLike<number>, length = values.length):
     }
     run = 1;
   }
-  const median = n === 0 ? Number.NaN : n % 2 === 1 ? (source[(n - 1) / 2] as number) : ((source[n / 2 - 1] as number) + (source[n / 2] as number)) / 2;
+  const median =
+    n === 0 ? Number.NaN : n % 2 === 1 ? (source[(n - 1) / 2] as number) : ((source[n / 2 - 1] as number) + (source[n / 2] as number)) / 2;
   const pairs = (n * (n - 1)) / 2;
   return { s: pairs - tiedPairs - 2 * inversions, varianceTerm, tiedPairs, median };
 }

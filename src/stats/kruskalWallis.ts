@@ -47,7 +47,7 @@ export function kruskalWallis(groups: ArrayLike<number>, values: ArrayLike<numbe
   const sums: number[] = [];
   const counts: number[] = [];
   let tieTerm = 0;
-  for (let start = 0; start < n; ) {
+  for (let start = 0; start < n;) {
     const value = kept[order[start] as number] as number;
     let end = start;
     while (end + 1 < n && kept[order[end + 1] as number] === value) end++;

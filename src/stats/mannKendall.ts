@@ -50,7 +50,17 @@ export function mannKendall(values: Iterable<number | null | undefined> | ArrayL
   const pairs = (n * (n - 1)) / 2;
   const tau = pairs - ties.tiedPairs > 0 ? s / Math.sqrt((pairs - ties.tiedPairs) * pairs) : Number.NaN;
   if (n < 3) {
-    return { n, s, varianceS, z: Number.NaN, zUncorrected: Number.NaN, p: Number.NaN, pUncorrected: Number.NaN, tau, reason: 'too-few-values' };
+    return {
+      n,
+      s,
+      varianceS,
+      z: Number.NaN,
+      zUncorrected: Number.NaN,
+      p: Number.NaN,
+      pUncorrected: Number.NaN,
+      tau,
+      reason: 'too-few-values',
+    };
   }
   if (varianceS <= 0) {
     return { n, s, varianceS: 0, z: 0, zUncorrected: 0, p: 1, pUncorrected: 1, tau, reason: 'no-variance' };

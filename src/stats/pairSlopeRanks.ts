@@ -114,7 +114,11 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
   }
   if (!(highest < belowLow + count)) return null;
 
-  const found = selectRanks(inside, count, ranks.map((rank) => rank - belowLow));
+  const found = selectRanks(
+    inside,
+    count,
+    ranks.map((rank) => rank - belowLow),
+  );
   const floor = lo + tolerance(lo);
   const ceiling = hi - tolerance(hi);
   for (const value of found) if (!(value > floor && value < ceiling)) return null;

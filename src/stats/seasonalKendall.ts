@@ -53,7 +53,11 @@ export interface SeasonalKendallOptions {
  * over all pairs within the same season. Cost O(n²) per season for a record of n years, O(144·n²)
  * for the covariance.
  */
-export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<number | null | undefined>, options: SeasonalKendallOptions = {}): SeasonalKendallResult {
+export function seasonalKendall(
+  months: ArrayLike<number>,
+  values: ArrayLike<number | null | undefined>,
+  options: SeasonalKendallOptions = {},
+): SeasonalKendallResult {
   const neededYears = options.minYearsForCovariance ?? 10;
   if (months.length !== values.length) throw new RangeError('seasonalKendall requires months and values of the same length');
   const grid = yearGrid(months, values);
@@ -103,7 +107,17 @@ export function seasonalKendall(months: ArrayLike<number>, values: ArrayLike<num
       ? withCovariance(grid, s, varianceS)
       : { applied: false, reason: 'too-few-years', fewestYears, neededYears };
   if (varianceS <= 0) {
-    return { seasons, n, s, varianceS, z: n < 3 ? Number.NaN : 0, p: n < 3 ? Number.NaN : 1, covariance, slope, reason: n < 3 ? 'too-few-values' : 'no-variance' };
+    return {
+      seasons,
+      n,
+      s,
+      varianceS,
+      z: n < 3 ? Number.NaN : 0,
+      p: n < 3 ? Number.NaN : 1,
+      covariance,
+      slope,
+      reason: n < 3 ? 'too-few-values' : 'no-variance',
+    };
   }
   const z = (s - Math.sign(s)) / Math.sqrt(varianceS);
   return { seasons, n, s, varianceS, z, p: Math.min(1, 2 * normalSurvival(Math.abs(z))), covariance, slope, reason: null };

@@ -39,12 +39,18 @@ export interface SensSlopeResult {
  * and the four ranks selected among them (selectRanks), O(n²). Either way the result is the same
  * double as from sorting all slopes. O(N) work memory at most, reused between calls.
  */
-export function sensSlope(times: ArrayLike<number | null | undefined>, values: ArrayLike<number | null | undefined>, { confidence = 0.95 } = {}): SensSlopeResult {
+export function sensSlope(
+  times: ArrayLike<number | null | undefined>,
+  values: ArrayLike<number | null | undefined>,
+  { confidence = 0.95 } = {},
+): SensSlopeResult {
   if (!(confidence > 0 && confidence < 1)) throw new RangeError('sensSlope requires a confidence between 0 and 1');
   const t = scratch('sen-times', times.length);
   const y = scratch('sen-values', values.length);
   const n = copyFinitePairs(times, values, t, y);
-  const timeTies = increasing(t, n) ? { tiedPairs: 0, varianceTerm: 0, median: (t[Math.floor((n - 1) / 2)]! + t[Math.ceil((n - 1) / 2)]!) / 2 } : kendallScore(t, n);
+  const timeTies = increasing(t, n)
+    ? { tiedPairs: 0, varianceTerm: 0, median: (t[Math.floor((n - 1) / 2)]! + t[Math.ceil((n - 1) / 2)]!) / 2 }
+    : kendallScore(t, n);
   const valueTies = kendallScore(y, n);
   // Pairs tied in time have no slope.
   const count = (n * (n - 1)) / 2 - timeTies.tiedPairs;
@@ -65,7 +71,14 @@ export function sensSlope(times: ArrayLike<number | null | undefined>, values: A
   const result = (found: number[]) => {
     const slope = (at(found, middleLow) + at(found, middleHigh)) / 2;
     const intercept = valueTies.median - slope * timeTies.median;
-    return { ...none, slope, intercept, lower: at(found, lowerIndex), upper: at(found, upperIndex), reason: n < 3 ? ('too-few-values' as const) : null };
+    return {
+      ...none,
+      slope,
+      intercept,
+      lower: at(found, lowerIndex),
+      upper: at(found, upperIndex),
+      reason: n < 3 ? ('too-few-values' as const) : null,
+    };
   };
   // Times in order, the usual case: select without making every slope; null means it could not vouch.
   const selected = timeTies.tiedPairs === 0 && count >= SELECT_FROM ? pairSlopeRanks(t, y, n, ranks) : null;

@@ -22,7 +22,9 @@ export function sortedPositions(values: Float64Array, n: number): Int32Array {
       let i = left;
       let j = middle;
       let k = left;
-      while (i < middle && j < right) to[k++] = (values[from[j] as number] as number) < (values[from[i] as number] as number) ? (from[j++] as number) : (from[i++] as number);
+      while (i < middle && j < right)
+        to[k++] =
+          (values[from[j] as number] as number) < (values[from[i] as number] as number) ? (from[j++] as number) : (from[i++] as number);
       while (i < middle) to[k++] = from[i++] as number;
       while (j < right) to[k++] = from[j++] as number;
     }

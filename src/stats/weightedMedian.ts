@@ -27,7 +27,8 @@ export function weightedMedian(values: ArrayLike<number | null | undefined>, wei
   for (let k = 0; k < n; k++) {
     const value = kept[order[k] as number] as number;
     cumulative += keptWeights[order[k] as number] as number;
-    if (Math.abs(cumulative - total / 2) <= 1e-12 * total) return (value + (k + 1 < n ? (kept[order[k + 1] as number] as number) : value)) / 2;
+    if (Math.abs(cumulative - total / 2) <= 1e-12 * total)
+      return (value + (k + 1 < n ? (kept[order[k + 1] as number] as number) : value)) / 2;
     if (cumulative > total / 2) return value;
   }
   return kept[order[n - 1] as number] as number;

@@ -6,7 +6,11 @@ function numberFormat(locale: string, digits: number, percent: boolean): Intl.Nu
   const key = `${locale} ${digits} ${percent}`;
   let format = numberFormats.get(key);
   if (!format) {
-    format = new Intl.NumberFormat(locale, { ...(percent ? { style: 'percent' as const } : {}), maximumFractionDigits: digits, minimumFractionDigits: digits });
+    format = new Intl.NumberFormat(locale, {
+      ...(percent ? { style: 'percent' as const } : {}),
+      maximumFractionDigits: digits,
+      minimumFractionDigits: digits,
+    });
     numberFormats.set(key, format);
   }
   return format;
@@ -36,5 +40,10 @@ export function formatCalendarMonth(locale: string, calendarMonth: number): stri
  * British English, so its dates are too, rather than Intl's American default for plain "en").
  */
 export function formatDate(locale: string, isoDate: string): string {
-  return new Intl.DateTimeFormat(locale === 'en' ? 'en-GB' : locale, { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${isoDate}T00:00:00Z`));
+  return new Intl.DateTimeFormat(locale === 'en' ? 'en-GB' : locale, {
+    day: 'numeric',
+    month: 'long',
+    year: 'numeric',
+    timeZone: 'UTC',
+  }).format(new Date(`${isoDate}T00:00:00Z`));
 }

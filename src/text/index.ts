@@ -31,7 +31,13 @@ export function formatMessage(messages: Messages, key: string, params: Record<st
  * the count's plural category in the locale (Intl.PluralRules: "one", "other", …), else `<key>`.
  * French puts 0 and 1 in "one", English only 1.
  */
-export function formatCount(messages: Messages, locale: string, key: string, count: number, params: Record<string, string | number> = {}): string {
+export function formatCount(
+  messages: Messages,
+  locale: string,
+  key: string,
+  count: number,
+  params: Record<string, string | number> = {},
+): string {
   const variant = `${key}.${new Intl.PluralRules(locale).select(count)}`;
   return formatMessage(messages, messages[variant] === undefined ? key : variant, params);
 }

@@ -10,7 +10,10 @@
  */
 export function fleschKincaidGrade(text: string): number {
   const sentences = Math.max(1, text.split(/[.!?](?:\s|$)/).filter((part) => part.trim() !== '').length);
-  const words = text.split(/\s+/).map((word) => word.replace(/^[^\p{L}\p{N}]+|[^\p{L}\p{N}%]+$/gu, '')).filter((word) => word !== '');
+  const words = text
+    .split(/\s+/)
+    .map((word) => word.replace(/^[^\p{L}\p{N}]+|[^\p{L}\p{N}%]+$/gu, ''))
+    .filter((word) => word !== '');
   if (words.length === 0) return 0;
   const syllables = words.reduce((sum, word) => sum + syllablesOf(word), 0);
   return 0.39 * (words.length / sentences) + 11.8 * (syllables / words.length) - 15.59;

@@ -16,7 +16,9 @@ const LEAVES = new Set(['common', 'text', 'parallel']);
 const STAGES = ['ingest', 'stats', 'model', 'charts', 'render', 'site', '.', 'cli'];
 
 function sourceFiles(dir: string): string[] {
-  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => (entry.isDirectory() ? sourceFiles(join(dir, entry.name)) : /\.(ts|js)$/.test(entry.name) ? [join(dir, entry.name)] : []));
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) =>
+    entry.isDirectory() ? sourceFiles(join(dir, entry.name)) : /\.(ts|js)$/.test(entry.name) ? [join(dir, entry.name)] : [],
+  );
 }
 
 /** Relative module specifiers of a file: static imports and re-exports, side-effect imports, dynamic imports with a literal. */
@@ -82,12 +84,19 @@ describe('the one-way flow of the source', () => {
   const graph = new Map<string, string[]>();
   for (const file of files) {
     const targets = importsOf(readFileSync(file, 'utf8')).map((specifier) => normalize(join(dirname(file), specifier)));
-    graph.set(relative(SRC, file), targets.map((target) => relative(SRC, target)));
+    graph.set(
+      relative(SRC, file),
+      targets.map((target) => relative(SRC, target)),
+    );
   }
 
   it('reads the imports of every source file, including multi-line and type-only ones', () => {
     expect(files.length).toBeGreaterThan(50);
-    expect(importsOf("import type {\n  A,\n  B,\n} from '../model/index.ts';\nexport { c } from './c.ts';\nimport './side.js';\nawait import('../x.ts');\nimport x from 'node:fs';")).toEqual(['../model/index.ts', './c.ts', './side.js', '../x.ts']);
+    expect(
+      importsOf(
+        "import type {\n  A,\n  B,\n} from '../model/index.ts';\nexport { c } from './c.ts';\nimport './side.js';\nawait import('../x.ts');\nimport x from 'node:fs';",
+      ),
+    ).toEqual(['../model/index.ts', './c.ts', './side.js', '../x.ts']);
   });
 
   it('no folder imports from a folder to its right, and the leaves import only leaves', () => {
@@ -115,7 +124,16 @@ describe('the one-way flow of the source', () => {
   it('no files import each other in a circle', () => {
     expect(circles(graph)).toEqual([]);
     // The detector finds a circle when there is one.
-    expect(circles(new Map([['a', ['b']], ['b', ['c']], ['c', ['a']], ['d', ['a']]]))).toEqual([['a', 'b', 'c']]);
+    expect(
+      circles(
+        new Map([
+          ['a', ['b']],
+          ['b', ['c']],
+          ['c', ['a']],
+          ['d', ['a']],
+        ]),
+      ),
+    ).toEqual([['a', 'b', 'c']]);
     expect(circles(new Map([['a', ['a']]]))).toEqual([['a']]);
   });
 });

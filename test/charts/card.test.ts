@@ -32,7 +32,10 @@ function renderWithoutFonts(source: string): Buffer {
   writeFileSync(join(folder, 'fonts.conf'), '<?xml version="1.0"?>\n<fontconfig><cachedir>' + folder + '</cachedir></fontconfig>\n');
   writeFileSync(join(folder, 'card.svg'), source);
   const script = `require('sharp')(${JSON.stringify(join(folder, 'card.svg'))}).png().toFile(${JSON.stringify(join(folder, 'card.png'))}).then(() => process.exit(0), (e) => { console.error(e); process.exit(1); })`;
-  const result = spawnSync(process.execPath, ['-e', script], { env: { ...process.env, FONTCONFIG_FILE: join(folder, 'fonts.conf') }, encoding: 'utf8' });
+  const result = spawnSync(process.execPath, ['-e', script], {
+    env: { ...process.env, FONTCONFIG_FILE: join(folder, 'fonts.conf') },
+    encoding: 'utf8',
+  });
   if (result.status !== 0) throw new Error(result.stderr);
   return readFileSync(join(folder, 'card.png'));
 }
@@ -56,9 +59,13 @@ describe('preview card', () => {
     expect(frenchSvg).toContain('>de la surface en eau habituelle\u00a0: bien plus bas</text>');
     expect(frenchSvg).toContain(">que d'habitude</text>");
     // Rendered: the right margin (x ≥ 1150, below the top bar) stays white, so no line runs off the card.
-    const { data, info } = await sharp(await svgToPng(frenchSvg)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(await svgToPng(frenchSvg))
+      .removeAlpha()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     let inked = 0;
-    for (let y = 20; y < info.height; y++) for (let x = 1150; x < info.width; x++) if ((data[(y * info.width + x) * 3] as number) < 200) inked++;
+    for (let y = 20; y < info.height; y++)
+      for (let x = 1150; x < info.width; x++) if ((data[(y * info.width + x) * 3] as number) < 200) inked++;
     expect(inked).toBe(0);
   });
 

@@ -30,9 +30,24 @@ beforeAll(async () => {
 });
 
 const EXPECTED = [
-  'regional-series', 'same-month', 'anomaly-bars', 'sub-regions', 'size-classes', 'rainfall', 'grid-map', 'sub-region-map', 'bodies-map',
-  'chlorophyll-distribution', 'chlorophyll-medians', 'chlorophyll-size-classes', 'turbidity-distribution', 'turbidity-medians', 'turbidity-size-classes',
-  'trophic-classes', 'validation-chlorophyll', 'validation-turbidity',
+  'regional-series',
+  'same-month',
+  'anomaly-bars',
+  'sub-regions',
+  'size-classes',
+  'rainfall',
+  'grid-map',
+  'sub-region-map',
+  'bodies-map',
+  'chlorophyll-distribution',
+  'chlorophyll-medians',
+  'chlorophyll-size-classes',
+  'turbidity-distribution',
+  'turbidity-medians',
+  'turbidity-size-classes',
+  'trophic-classes',
+  'validation-chlorophyll',
+  'validation-turbidity',
 ];
 
 describe('charts of the example bulletin', () => {
@@ -43,7 +58,9 @@ describe('charts of the example bulletin', () => {
   for (const id of EXPECTED) {
     it(`${id}: spec matches its snapshot and the Vega-Lite schema; SVG is accessible and stable`, async () => {
       const definition = definitions.find((chart) => chart.id === id) as ChartDefinition;
-      await expect(`${JSON.stringify(definition.spec, null, 2)}\n`).toMatchFileSnapshot(join(import.meta.dirname, 'specs', `${id}.vl.json`));
+      await expect(`${JSON.stringify(definition.spec, null, 2)}\n`).toMatchFileSnapshot(
+        join(import.meta.dirname, 'specs', `${id}.vl.json`),
+      );
       const valid = validate(definition.spec);
       expect(validate.errors ?? [], JSON.stringify(validate.errors?.slice(0, 3))).toEqual([]);
       expect(valid).toBe(true);

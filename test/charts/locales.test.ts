@@ -7,12 +7,26 @@ const spec = {
   $schema: VEGA_LITE_SCHEMA,
   width: 200,
   height: 100,
-  data: { values: [{ month: '2026-01', value: 1234.5 }, { month: '2026-06', value: 0.25 }] },
+  data: {
+    values: [
+      { month: '2026-01', value: 1234.5 },
+      { month: '2026-06', value: 0.25 },
+    ],
+  },
   mark: 'line',
-  encoding: { x: { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%b %Y' } }, y: { field: 'value', type: 'quantitative', title: null } },
+  encoding: {
+    x: { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%b %Y' } },
+    y: { field: 'value', type: 'quantitative', title: null },
+  },
 } as TopLevelSpec;
 const labels = async (locale: string) => {
-  const chart = await renderChart({ id: 'probe', title: 'probe', description: 'probe', spec: withChartLocale(spec, locale), table: { caption: 'probe', columns: [], rows: [] } });
+  const chart = await renderChart({
+    id: 'probe',
+    title: 'probe',
+    description: 'probe',
+    spec: withChartLocale(spec, locale),
+    table: { caption: 'probe', columns: [], rows: [] },
+  });
   return [...chart.svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((match) => match[1]);
 };
 

@@ -5,15 +5,33 @@ const chart = (id: string): ChartDefinition => ({
   id,
   title: 'Bars <of> "water"',
   description: 'Two bars & a point',
-  spec: { data: { values: [{ a: 'x', b: 1 }, { a: 'y', b: 2 }] }, mark: { type: 'bar', clip: true }, encoding: { x: { field: 'a', type: 'nominal' }, y: { field: 'b', type: 'quantitative' } } },
-  table: { caption: 'c', columns: ['a', 'b'], rows: [['x', 1], ['y, "z"', 2]] },
+  spec: {
+    data: {
+      values: [
+        { a: 'x', b: 1 },
+        { a: 'y', b: 2 },
+      ],
+    },
+    mark: { type: 'bar', clip: true },
+    encoding: { x: { field: 'a', type: 'nominal' }, y: { field: 'b', type: 'quantitative' } },
+  },
+  table: {
+    caption: 'c',
+    columns: ['a', 'b'],
+    rows: [
+      ['x', 1],
+      ['y, "z"', 2],
+    ],
+  },
 });
 
 describe('renderChart', () => {
   it('renderChart(chart) gives the root svg a role, an escaped title and desc, and no inner roles', async () => {
     const { svg } = await renderChart(chart('one'));
     expect(svg).toMatch(/^<svg[^>]* role="img" aria-labelledby="one-title" aria-describedby="one-desc"/);
-    expect(svg).toContain('<title id="one-title">Bars &lt;of&gt; &quot;water&quot;</title><desc id="one-desc">Two bars &amp; a point</desc>');
+    expect(svg).toContain(
+      '<title id="one-title">Bars &lt;of&gt; &quot;water&quot;</title><desc id="one-desc">Two bars &amp; a point</desc>',
+    );
     expect(svg.match(/role="/g)).toHaveLength(1);
   });
 

@@ -17,7 +17,9 @@ describe('limnopress check', () => {
 
   it('limnopress check groups problems by file in line order, counts them, and exits 1', () => {
     const base = miniFiles();
-    const area = base['area.csv'].replace('A,2018-02,9.0,0.95,3', 'A,2018-02,9.0,1.95,3').replace('B,2018-01,180.0,0.9,2', 'B,2018-01,many,0.9,2');
+    const area = base['area.csv']
+      .replace('A,2018-02,9.0,0.95,3', 'A,2018-02,9.0,1.95,3')
+      .replace('B,2018-01,180.0,0.9,2', 'B,2018-01,many,0.9,2');
     const folder = writeMini({ 'area.csv': area, 'rain.csv': base['rain.csv'].replace('rainfall_mm', 'rain_mm') });
     const result = run(folder);
     expect(result.status).toBe(1);

@@ -17,7 +17,12 @@ const LITTLE = [12.9, 14.8, 13.2, 15.7, 13.8, 15.6, 12.9, 11.0, 17.3, 15.9, 19.0
 
 describe('limnopress trend', () => {
   it('limnopress trend --by prints one row per series with BH-adjusted p', () => {
-    const rows = ['site,year,value', ...LITTLE.map((value, k) => `up,${2000 + k},${value}`), ...LITTLE.map((value, k) => `down,${2000 + k},${-value}`), ...LITTLE.map((value, k) => `gappy,${2000 + k},${k % 4 === 1 ? '' : value}`)];
+    const rows = [
+      'site,year,value',
+      ...LITTLE.map((value, k) => `up,${2000 + k},${value}`),
+      ...LITTLE.map((value, k) => `down,${2000 + k},${-value}`),
+      ...LITTLE.map((value, k) => `gappy,${2000 + k},${k % 4 === 1 ? '' : value}`),
+    ];
     const result = run(table(rows.join('\n')), '--time', 'year', '--value', 'value', '--by', 'site', '--format', 'json');
     expect(result.stderr).toBe('');
     expect(result.status).toBe(0);

@@ -24,8 +24,14 @@ async function bothPaths(changes: Parameters<typeof writeMini>[0]) {
     folder,
     bodies,
     fastContext: fast,
-    area: { fast: await readSurfaceArea(join(folder, 'area.csv'), 'area.csv', bodies, fast), general: await readSurfaceArea(join(folder, 'area.csv'), 'area.csv', bodies, general) },
-    quality: { fast: await readQuality(join(folder, 'quality.csv'), 'quality.csv', bodies, fast), general: await readQuality(join(folder, 'quality.csv'), 'quality.csv', bodies, general) },
+    area: {
+      fast: await readSurfaceArea(join(folder, 'area.csv'), 'area.csv', bodies, fast),
+      general: await readSurfaceArea(join(folder, 'area.csv'), 'area.csv', bodies, general),
+    },
+    quality: {
+      fast: await readQuality(join(folder, 'quality.csv'), 'quality.csv', bodies, fast),
+      general: await readQuality(join(folder, 'quality.csv'), 'quality.csv', bodies, general),
+    },
     problems: { fast: fast.problems.sorted(), general: general.problems.sorted() },
   };
 }
@@ -36,9 +42,18 @@ const variants: Record<string, Parameters<typeof writeMini>[0]> = {
   'CRLF line ends': { 'area.csv': base['area.csv'].replaceAll('\n', '\r\n'), 'quality.csv': base['quality.csv'].replaceAll('\n', '\r\n') },
   'a byte-order mark': { 'area.csv': `\uFEFF${base['area.csv']}` },
   'no newline at the end': { 'area.csv': base['area.csv'].trimEnd() },
-  'columns in another order, an optional one left out': { 'area.csv': lines(base['area.csv']).map((row) => row.split(',').slice(0, 4).reverse().join(',')).join('\n') },
-  'exponents and long decimals': { 'area.csv': base['area.csv'].replace('A,2018-01,8.0', 'A,2018-01,8e0').replace('B,2018-02,181.0', 'B,2018-02,181.00000000000000012') },
-  'empty optional cells': { 'area.csv': base['area.csv'].replace('A,2018-01,8.0,0.95,3', 'A,2018-01,8.0,0.95,'), 'quality.csv': base['quality.csv'].replace('A,2018-01,chlorophyll_a,ug/L,2,3,4,5,6,80', 'A,2018-01,chlorophyll_a,ug/L,,3,4,5,,') },
+  'columns in another order, an optional one left out': {
+    'area.csv': lines(base['area.csv'])
+      .map((row) => row.split(',').slice(0, 4).reverse().join(','))
+      .join('\n'),
+  },
+  'exponents and long decimals': {
+    'area.csv': base['area.csv'].replace('A,2018-01,8.0', 'A,2018-01,8e0').replace('B,2018-02,181.0', 'B,2018-02,181.00000000000000012'),
+  },
+  'empty optional cells': {
+    'area.csv': base['area.csv'].replace('A,2018-01,8.0,0.95,3', 'A,2018-01,8.0,0.95,'),
+    'quality.csv': base['quality.csv'].replace('A,2018-01,chlorophyll_a,ug/L,2,3,4,5,6,80', 'A,2018-01,chlorophyll_a,ug/L,,3,4,5,,'),
+  },
   // Each of these makes the fast path give up; the general reader then reports or accepts it.
   'a quoted cell': { 'area.csv': base['area.csv'].replace('A,2018-01,', '"A",2018-01,') },
   'a blank line': { 'area.csv': base['area.csv'].replace('\nA,2018-03', '\n\nA,2018-03') },
@@ -71,10 +86,26 @@ describe('large tables: fast path against the general reader', () => {
       expect(context.problems.items).toEqual([]); // the fast path never reports
       return [area !== null, quality !== null];
     };
-    for (const name of ['clean files', 'CRLF line ends', 'a byte-order mark', 'no newline at the end', 'exponents and long decimals', 'empty optional cells']) {
+    for (const name of [
+      'clean files',
+      'CRLF line ends',
+      'a byte-order mark',
+      'no newline at the end',
+      'exponents and long decimals',
+      'empty optional cells',
+    ]) {
       expect(await verdict(variants[name]), name).toEqual([true, true]);
     }
-    for (const name of ['a quoted cell', 'a blank line', 'a later month', 'an unknown body', 'a repeated row', 'a negative number', 'a cell with blanks around it', 'a water area far above the reference']) {
+    for (const name of [
+      'a quoted cell',
+      'a blank line',
+      'a later month',
+      'an unknown body',
+      'a repeated row',
+      'a negative number',
+      'a cell with blanks around it',
+      'a water area far above the reference',
+    ]) {
       expect((await verdict(variants[name]))[0], name).toBe(false);
     }
     for (const name of ['quantiles out of order', 'a non-ASCII unit']) expect((await verdict(variants[name]))[1], name).toBe(false);
@@ -87,9 +118,18 @@ describe('large tables: fast path against the general reader', () => {
     const header = lines(text)[0]?.split(',') as string[];
     const dataStart = text.indexOf('\n') + 1;
     const middle = text.indexOf('\n', Math.floor(text.length / 2)) + 1;
-    const inventory = { key: 'mini', ids: bodies.map((body) => body.id), referenceHa: Float64Array.from(bodies, (body) => body.referenceHa) };
+    const inventory = {
+      key: 'mini',
+      ids: bodies.map((body) => body.id),
+      referenceHa: Float64Array.from(bodies, (body) => body.referenceHa),
+    };
     // A read buffer of 64 bytes makes every few lines cross a buffer boundary.
-    const parts = [[dataStart, middle], [middle, text.length]].map(([start, end]) => scanRange({ kind: 'area', path, start: start as number, end: end as number, header, bulletinMonth: JUNE_2020 }, inventory, 64));
+    const parts = [
+      [dataStart, middle],
+      [middle, text.length],
+    ].map(([start, end]) =>
+      scanRange({ kind: 'area', path, start: start as number, end: end as number, header, bulletinMonth: JUNE_2020 }, inventory, 64),
+    );
     const rows = parts.map((part) => (part.ok ? part.rows : -1));
     expect(rows[0]! + rows[1]!).toBe(area.general.length);
     const first = parts[0];

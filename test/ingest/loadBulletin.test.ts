@@ -15,7 +15,11 @@ async function problemsOf(changes: Partial<Record<keyof MiniFiles, string | Buff
 }
 
 const base = miniFiles();
-const replaceLine = (text: string, line: number, content: string) => text.split('\n').map((row, k) => (k === line - 1 ? content : row)).join('\n');
+const replaceLine = (text: string, line: number, content: string) =>
+  text
+    .split('\n')
+    .map((row, k) => (k === line - 1 ? content : row))
+    .join('\n');
 const config = (change: (c: typeof MINI_CONFIG & Record<string, unknown>) => void) => {
   const copy = structuredClone(MINI_CONFIG) as typeof MINI_CONFIG & Record<string, unknown>;
   change(copy);
@@ -32,7 +36,16 @@ describe('loadBulletin', () => {
     expect(inputs?.rainfall).toHaveLength(30);
     expect(inputs?.field).toHaveLength(2);
     expect(inputs?.distribution).toHaveLength(2);
-    expect(inputs?.files.map((file) => file.path)).toEqual(['area.csv', 'bins.csv', 'bodies.csv', 'bulletin.json', 'field.csv', 'quality.csv', 'rain.csv', 'regions.geojson']);
+    expect(inputs?.files.map((file) => file.path)).toEqual([
+      'area.csv',
+      'bins.csv',
+      'bodies.csv',
+      'bulletin.json',
+      'field.csv',
+      'quality.csv',
+      'rain.csv',
+      'regions.geojson',
+    ]);
   });
 
   it('reports a missing required column, and an unknown one as a warning', async () => {
@@ -48,14 +61,21 @@ describe('loadBulletin', () => {
   });
 
   it('reports a row with the wrong number of fields', async () => {
-    expect(await problemsOf({ 'area.csv': replaceLine(base['area.csv'], 4, 'A,2018-02,9.0,0.95') })).toEqual(['error field-count area.csv:4']);
+    expect(await problemsOf({ 'area.csv': replaceLine(base['area.csv'], 4, 'A,2018-02,9.0,0.95') })).toEqual([
+      'error field-count area.csv:4',
+    ]);
   });
 
   it('reports a duplicate (id, month) naming the first line, and an id not in the inventory', async () => {
     const area = `${base['area.csv']}B,2018-01,181,0.9,2\nZ,2018-01,5,0.9,1\n`;
     const { problems } = await loadBulletin(writeMini({ 'area.csv': area }));
     const [duplicate, unknown] = problems.sorted();
-    expect(duplicate).toMatchObject({ code: 'duplicate-row', line: 62, column: 'month', message: 'the same water body and month already appear on line 3' });
+    expect(duplicate).toMatchObject({
+      code: 'duplicate-row',
+      line: 62,
+      column: 'month',
+      message: 'the same water body and month already appear on line 3',
+    });
     expect(unknown).toMatchObject({ code: 'unknown-body', line: 63, column: 'body_id', value: 'Z' });
   });
 
@@ -82,7 +102,9 @@ describe('loadBulletin', () => {
   });
 
   it('warns about an area above 1.5 × the reference area', async () => {
-    expect(await problemsOf({ 'area.csv': replaceLine(base['area.csv'], 2, 'A,2018-01,16,0.95,3') })).toEqual(['warning area-above-reference area.csv:2 water_area_ha']);
+    expect(await problemsOf({ 'area.csv': replaceLine(base['area.csv'], 2, 'A,2018-01,16,0.95,3') })).toEqual([
+      'warning area-above-reference area.csv:2 water_area_ha',
+    ]);
   });
 
   it('names the line of the file after blank lines (they are skipped but counted)', async () => {
@@ -116,15 +138,43 @@ describe('loadBulletin', () => {
   });
 
   it('reports invalid GeoJSON: bad JSON, an unclosed ring, missing properties, and a sub-region without boundary', async () => {
-    expect(await problemsOf({ 'regions.geojson': '{"type": "FeatureCollection",' })).toContain('error geojson-unreadable regions.geojson:0');
-    const open = JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1', name: 'One' }, geometry: { type: 'Polygon', coordinates: [[[10, 50], [11, 50], [11, 51], [10, 51]]] } }] });
+    expect(await problemsOf({ 'regions.geojson': '{"type": "FeatureCollection",' })).toContain(
+      'error geojson-unreadable regions.geojson:0',
+    );
+    const open = JSON.stringify({
+      type: 'FeatureCollection',
+      features: [
+        {
+          type: 'Feature',
+          properties: { subregion_id: 'R1', name: 'One' },
+          geometry: {
+            type: 'Polygon',
+            coordinates: [
+              [
+                [10, 50],
+                [11, 50],
+                [11, 51],
+                [10, 51],
+              ],
+            ],
+          },
+        },
+      ],
+    });
     expect(await problemsOf({ 'regions.geojson': open })).toContain('error geojson-ring regions.geojson:0 features[0].geometry');
-    const unnamed = JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1' }, geometry: { type: 'Polygon', coordinates: [] } }] });
+    const unnamed = JSON.stringify({
+      type: 'FeatureCollection',
+      features: [{ type: 'Feature', properties: { subregion_id: 'R1' }, geometry: { type: 'Polygon', coordinates: [] } }],
+    });
     expect(await problemsOf({ 'regions.geojson': unnamed })).toContain('error geojson-properties regions.geojson:0 features[0].properties');
     const other = base['regions.geojson'].replace('"R1"', '"R2"');
-    expect(await problemsOf({ 'regions.geojson': other, 'rain.csv': 'subregion_id,month,rainfall_mm\nR2,2020-06,3\n', 'bins.csv': 'subregion_id,month,parameter,bin_lower,bin_upper,pixel_count\nR2,2020-06,turbidity,1,2,3\n' })).toEqual([
-      'error subregion-without-boundary bodies.csv:2 subregion_id',
-    ]);
+    expect(
+      await problemsOf({
+        'regions.geojson': other,
+        'rain.csv': 'subregion_id,month,rainfall_mm\nR2,2020-06,3\n',
+        'bins.csv': 'subregion_id,month,parameter,bin_lower,bin_upper,pixel_count\nR2,2020-06,turbidity,1,2,3\n',
+      }),
+    ).toEqual(['error subregion-without-boundary bodies.csv:2 subregion_id']);
   });
 
   it('reports bytes that are not UTF-8, with the line and a guess at the encoding', async () => {
@@ -135,7 +185,10 @@ describe('loadBulletin', () => {
   });
 
   it('accepts a BOM, CRLF line ends, and semicolons with decimal commas (with a warning when not declared)', async () => {
-    const area = `\uFEFF${base['area.csv'].replace(/,/g, ';').replace(/(\d)\.(\d)/g, '$1,$2').replace(/\n/g, '\r\n')}`;
+    const area = `\uFEFF${base['area.csv']
+      .replace(/,/g, ';')
+      .replace(/(\d)\.(\d)/g, '$1,$2')
+      .replace(/\n/g, '\r\n')}`;
     const { inputs, problems } = await loadBulletin(writeMini({ 'area.csv': area }));
     expect(problems.sorted().map((p) => p.code)).toEqual(['decimal-comma-detected']);
     expect(inputs?.area.waterHa[0]).toBe(8);
@@ -145,18 +198,27 @@ describe('loadBulletin', () => {
   });
 
   it('reports a baseline outside the data, a bulletin month without data, and unknown keys with a suggestion', async () => {
-    expect(await problemsOf({ 'bulletin.json': config((c) => (c.baseline = { firstYear: 2010, lastYear: 2019, minYears: 2 })) })).toEqual(['error baseline-outside-data bulletin.json:0 baseline']);
+    expect(await problemsOf({ 'bulletin.json': config((c) => (c.baseline = { firstYear: 2010, lastYear: 2019, minYears: 2 })) })).toEqual([
+      'error baseline-outside-data bulletin.json:0 baseline',
+    ]);
     expect(await problemsOf({ 'bulletin.json': config((c) => (c.issue = { month: '2020-05', published: '2020-06-02' })) })).toEqual([
       'warning month-after-bulletin area.csv:60 month',
       'warning month-after-bulletin bins.csv:2 month',
       'warning month-after-bulletin quality.csv:60 month',
       'warning month-after-bulletin rain.csv:31 month',
     ]);
-    const noData = base['area.csv'].split('\n').filter((row) => !row.includes('2020-06')).join('\n');
+    const noData = base['area.csv']
+      .split('\n')
+      .filter((row) => !row.includes('2020-06'))
+      .join('\n');
     expect(await problemsOf({ 'area.csv': noData })).toEqual(['error bulletin-month-without-data bulletin.json:0 issue.month']);
     // The misspelt key is written on line 15 of the two-space-indented configuration.
-    const { problems } = await loadBulletin(writeMini({ 'bulletin.json': config((c) => ((c.baseline as Record<string, unknown>).lastYaer = 2019)) }));
-    expect(problems.sorted()).toEqual([expect.objectContaining({ code: 'config-unknown-key', column: 'baseline.lastYaer', expected: 'did you mean "lastYear"?', line: 15 })]);
+    const { problems } = await loadBulletin(
+      writeMini({ 'bulletin.json': config((c) => ((c.baseline as Record<string, unknown>).lastYaer = 2019)) }),
+    );
+    expect(problems.sorted()).toEqual([
+      expect.objectContaining({ code: 'config-unknown-key', column: 'baseline.lastYaer', expected: 'did you mean "lastYear"?', line: 15 }),
+    ]);
   });
 
   it('keeps the first 50 problems of a kind in a file and counts the rest', async () => {
@@ -178,6 +240,8 @@ describe('loadBulletin and translations', () => {
     writeFileSync(join(folder, 'content', 'notes.fr.md'), 'Les notes.\n');
     const { inputs, problems } = await loadBulletin(folder);
     expect(inputs).not.toBeNull();
-    expect(problems.sorted().map((p) => `${p.severity} ${p.code} ${p.file} ${p.value} ${p.expected}`)).toEqual(['warning content-untranslated content/foreword.md fr content/foreword.fr.md']);
+    expect(problems.sorted().map((p) => `${p.severity} ${p.code} ${p.file} ${p.value} ${p.expected}`)).toEqual([
+      'warning content-untranslated content/foreword.md fr content/foreword.fr.md',
+    ]);
   });
 });

@@ -8,7 +8,11 @@ import { MINI_CONFIG, miniFiles, writeMini } from '../support/miniBulletin.ts';
 
 /** The mini bulletin's surface-area CSV written as Parquet (hyparquet-writer), column for column. */
 function areaParquet(change?: (rows: string[][]) => void): Buffer {
-  const rows = miniFiles()['area.csv'].trim().split('\n').slice(1).map((line) => line.split(','));
+  const rows = miniFiles()
+    ['area.csv'].trim()
+    .split('\n')
+    .slice(1)
+    .map((line) => line.split(','));
   change?.(rows);
   const buffer = parquetWriteBuffer({
     columnData: [
@@ -25,7 +29,9 @@ function areaParquet(change?: (rows: string[][]) => void): Buffer {
 describe('Parquet tables', () => {
   it('loadBulletin reads a Parquet surface-area table to the same values as the CSV', async () => {
     const csv = await loadBulletin(writeMini());
-    const folder = writeMini({ 'bulletin.json': JSON.stringify({ ...MINI_CONFIG, inputs: { ...MINI_CONFIG.inputs, surfaceArea: 'area.parquet' } }) });
+    const folder = writeMini({
+      'bulletin.json': JSON.stringify({ ...MINI_CONFIG, inputs: { ...MINI_CONFIG.inputs, surfaceArea: 'area.parquet' } }),
+    });
     writeFileSync(join(folder, 'area.parquet'), areaParquet());
     const parquet = await loadBulletin(folder);
     expect(parquet.problems.items).toEqual([]);
@@ -34,8 +40,13 @@ describe('Parquet tables', () => {
   });
 
   it('loadBulletin reports a bad Parquet cell with its row as the line (row 1 is line 2)', async () => {
-    const folder = writeMini({ 'bulletin.json': JSON.stringify({ ...MINI_CONFIG, inputs: { ...MINI_CONFIG.inputs, surfaceArea: 'area.parquet' } }) });
-    writeFileSync(join(folder, 'area.parquet'), areaParquet((rows) => ((rows[2] as string[])[1] = '2018-13')));
+    const folder = writeMini({
+      'bulletin.json': JSON.stringify({ ...MINI_CONFIG, inputs: { ...MINI_CONFIG.inputs, surfaceArea: 'area.parquet' } }),
+    });
+    writeFileSync(
+      join(folder, 'area.parquet'),
+      areaParquet((rows) => ((rows[2] as string[])[1] = '2018-13')),
+    );
     const { problems } = await loadBulletin(folder);
     expect(problems.sorted()).toEqual([expect.objectContaining({ code: 'month-invalid', file: 'area.parquet', line: 4, column: 'month' })]);
   });
@@ -49,8 +60,14 @@ describe('Parquet partitions', () => {
     // Two partitions by year as a distributed engine writes them, plus a marker file that is not data.
     mkdirSync(join(folder, 'area', 'year=2018'), { recursive: true });
     mkdirSync(join(folder, 'area', 'year=2019-2020'), { recursive: true });
-    writeFileSync(join(folder, 'area', 'year=2018', 'part-0.parquet'), areaParquet((all) => all.splice(0, all.length, ...all.filter((row) => row[1]?.startsWith('2018')))));
-    writeFileSync(join(folder, 'area', 'year=2019-2020', 'part-0.parquet'), areaParquet((all) => all.splice(0, all.length, ...all.filter((row) => !row[1]?.startsWith('2018')))));
+    writeFileSync(
+      join(folder, 'area', 'year=2018', 'part-0.parquet'),
+      areaParquet((all) => all.splice(0, all.length, ...all.filter((row) => row[1]?.startsWith('2018')))),
+    );
+    writeFileSync(
+      join(folder, 'area', 'year=2019-2020', 'part-0.parquet'),
+      areaParquet((all) => all.splice(0, all.length, ...all.filter((row) => !row[1]?.startsWith('2018')))),
+    );
     writeFileSync(join(folder, 'area', '_SUCCESS'), '');
     const csv = await loadBulletin(writeMini());
     const parts = await loadBulletin(folder);
@@ -61,14 +78,26 @@ describe('Parquet partitions', () => {
     const entry = parts.inputs?.files.find((file) => file.path === 'area');
     expect(entry?.parts?.map((part) => part.path)).toEqual(['year=2018/part-0.parquet', 'year=2019-2020/part-0.parquet']);
     // The folder's hash is that of the sha256sum listing of its partitions (computed here with node:crypto).
-    const listing = (entry?.parts ?? []).map((part) => `${createHash('sha256').update(readFileSync(join(folder, 'area', part.path))).digest('hex')}  ${part.path}\n`).join('');
+    const listing = (entry?.parts ?? [])
+      .map(
+        (part) =>
+          `${createHash('sha256')
+            .update(readFileSync(join(folder, 'area', part.path)))
+            .digest('hex')}  ${part.path}\n`,
+      )
+      .join('');
     expect(entry?.sha256).toBe(createHash('sha256').update(listing).digest('hex'));
 
-    writeFileSync(join(folder, 'area', 'year=2019-2020', 'part-0.parquet'), areaParquet((all) => {
-      all.splice(0, all.length, ...all.filter((row) => !row[1]?.startsWith('2018')));
-      (all[1] as string[])[1] = '2019-13';
-    }));
+    writeFileSync(
+      join(folder, 'area', 'year=2019-2020', 'part-0.parquet'),
+      areaParquet((all) => {
+        all.splice(0, all.length, ...all.filter((row) => !row[1]?.startsWith('2018')));
+        (all[1] as string[])[1] = '2019-13';
+      }),
+    );
     const bad = await loadBulletin(folder);
-    expect(bad.problems.sorted()).toEqual([expect.objectContaining({ code: 'month-invalid', file: 'area/year=2019-2020/part-0.parquet', line: 3, column: 'month' })]);
+    expect(bad.problems.sorted()).toEqual([
+      expect.objectContaining({ code: 'month-invalid', file: 'area/year=2019-2020/part-0.parquet', line: 3, column: 'month' }),
+    ]);
   });
 });

@@ -8,7 +8,14 @@ describe('methods', () => {
     const { inputs, problems } = await loadBulletin(EXAMPLE);
     if (!inputs) throw new Error('example does not load');
     const model = buildModel(inputs, problems.warnings, 'test');
-    const named = [...model.surfaceWater.methods, model.grid.method, ...(model.quality?.methods ?? []), ...model.trends.methods, ...model.keyMessages.map((message) => message.figure.method), 'validation'];
+    const named = [
+      ...model.surfaceWater.methods,
+      model.grid.method,
+      ...(model.quality?.methods ?? []),
+      ...model.trends.methods,
+      ...model.keyMessages.map((message) => message.figure.method),
+      'validation',
+    ];
     for (const id of named) expect(Object.keys(model.methods), id).toContain(id);
   });
 });

@@ -7,7 +7,13 @@ import { miniFiles, writeMini, type MiniFiles } from '../support/miniBulletin.ts
 
 async function modelOf(changes: Partial<Record<keyof MiniFiles, string>> = {}) {
   const { inputs, problems } = await loadBulletin(writeMini(changes));
-  if (!inputs) throw new Error(problems.sorted().map((p) => `${p.file}:${p.line} ${p.message}`).join('\n'));
+  if (!inputs)
+    throw new Error(
+      problems
+        .sorted()
+        .map((p) => `${p.file}:${p.line} ${p.message}`)
+        .join('\n'),
+    );
   return buildModel(inputs, problems.warnings, 'test');
 }
 
@@ -15,11 +21,15 @@ const base = miniFiles();
 
 describe('buildModel on the small bulletin', () => {
   it('a region mostly under cloud in the bulletin month gets caveats, not figures', async () => {
-    const area = base['area.csv'].replace(/A,2020-06,([\d.]+),0\.95,3/, 'A,2020-06,$1,0.2,3').replace(/B,2020-06,([\d.]+),0\.9,2/, 'B,2020-06,$1,0.1,2');
+    const area = base['area.csv']
+      .replace(/A,2020-06,([\d.]+),0\.95,3/, 'A,2020-06,$1,0.2,3')
+      .replace(/B,2020-06,([\d.]+),0\.9,2/, 'B,2020-06,$1,0.1,2');
     const model = await modelOf({ 'area.csv': area });
     expect(model.surfaceWater.region.status).toEqual({ kind: 'low-coverage', coveragePercent: 0, thresholdPercent: 50 });
     expect(model.keyMessages.map((message) => message.id)).not.toContain('region');
-    expect(model.headline).toBe('No regional figure is given for June 2020: clouds hid too much of the region (0% seen, at least 50% needed).');
+    expect(model.headline).toBe(
+      'No regional figure is given for June 2020: clouds hid too much of the region (0% seen, at least 50% needed).',
+    );
     expect(model.notices[0]).toEqual({ kind: 'notice', text: model.headline });
   });
 
@@ -28,7 +38,9 @@ describe('buildModel on the small bulletin', () => {
     // Both bodies (10.1° E 50.1° N and 10.2° E 50.2° N) fall in the 0.25° cell with corner 10° E, 50° N.
     expect(model.grid.cells).toHaveLength(1);
     expect(model.grid.cells[0]).toMatchObject({ west: 10, south: 50, size: 0.25, bodies: 2, state: 'stated' });
-    const lonely = await modelOf({ 'bodies.csv': base['bodies.csv'].replace('B,Two Reservoir,R1,10.2,50.2', 'B,Two Reservoir,R1,10.6,50.2') });
+    const lonely = await modelOf({
+      'bodies.csv': base['bodies.csv'].replace('B,Two Reservoir,R1,10.2,50.2', 'B,Two Reservoir,R1,10.6,50.2'),
+    });
     expect(lonely.grid.cells.map((cell) => cell.state)).toEqual(['too-few-bodies', 'too-few-bodies']);
   });
 
@@ -37,7 +49,13 @@ describe('buildModel on the small bulletin', () => {
     // Only A (10 ha) has quality rows; its chlorophyll-a median is 4 µg/L every month.
     // Carlson: 10·(6 − (2.04 − 0.68·ln 4)/ln 2) = 10·(6 − 1.58310) = 44.169; OECD: 2.5 < 4 ≤ 8 → mesotrophic.
     expect(quality?.trophic.bodies).toEqual([{ id: 'A', chlorophyll: 4, index: expect.closeTo(44.169, 3), trophicClass: 'mesotrophic' }]);
-    expect(quality?.who).toEqual({ bodiesWithValue: 1, levels: [{ level: 10, bodiesAbove: 0, sharePercent: 0 }, { level: 50, bodiesAbove: 0, sharePercent: 0 }] });
+    expect(quality?.who).toEqual({
+      bodiesWithValue: 1,
+      levels: [
+        { level: 10, bodiesAbove: 0, sharePercent: 0 },
+        { level: 50, bodiesAbove: 0, sharePercent: 0 },
+      ],
+    });
     const chlorophyll = quality?.parameters.find((entry) => entry.parameter === 'chlorophyll_a');
     // A is 10 ha: the 10–100 ha class ([10, 100)); one body, so every percentile is 4.
     expect(chlorophyll?.bySizeClass.find((entry) => entry.label === '10–100 ha')).toMatchObject({ bodies: 1, p10: 4, p50: 4, p90: 4 });
@@ -47,13 +65,19 @@ describe('buildModel on the small bulletin', () => {
   });
 
   it('validation matches field samples to their month, or to the neighbouring month within the window', async () => {
-    const quality = base['quality.csv'].split('\n').filter((row) => !row.startsWith('A,2019-08,chlorophyll_a')).join('\n');
+    const quality = base['quality.csv']
+      .split('\n')
+      .filter((row) => !row.startsWith('A,2019-08,chlorophyll_a'))
+      .join('\n');
     const field = `${base['field.csv']}A,2019-08-03,chlorophyll_a,5.0,ug/L\nA,2019-08-20,chlorophyll_a,9.0,ug/L\n`;
     const model = await modelOf({ 'quality.csv': quality, 'field.csv': field });
     const chlorophyll = model.validation.find((entry) => entry.parameter === 'chlorophyll_a');
     // 2019-05-14 → May (satellite 4); 2019-08-03 is 2 days into August, which has no value → July (4);
     // 2019-08-20 is 11 days from August's end and 19 from its start: no match.
-    expect(chlorophyll?.pairs.map((pair) => [pair.date, pair.field, pair.satellite])).toEqual([['2019-05-14', 4.2, 4], ['2019-08-03', 5, 4]]);
+    expect(chlorophyll?.pairs.map((pair) => [pair.date, pair.field, pair.satellite])).toEqual([
+      ['2019-05-14', 4.2, 4],
+      ['2019-08-03', 5, 4],
+    ]);
     // Bias = mean(4 − 4.2, 4 − 5) = −0.6; RMSE = √((0.04 + 1)/2) = 0.72111.
     expect(chlorophyll?.agreement.bias).toBeCloseTo(-0.6, 12);
     expect(chlorophyll?.agreement.rootMeanSquareError).toBeCloseTo(0.72111, 5);
@@ -68,7 +92,9 @@ describe('pages of their own', () => {
     const model = await modelOf({ 'bodies.csv': bodies, 'bulletin.json': JSON.stringify(config) });
     // A (10 ha) and B (200 ha) are both flagged; with a cap of 1 only B, the larger, gets a page.
     expect(model.monitored.map((entry) => entry.id)).toEqual(['B']);
-    expect(model.notices.map((notice) => notice.text)).toContain('2 water bodies are flagged for a page of their own; the 1 largest have one. All of them are in the tables.');
+    expect(model.notices.map((notice) => notice.text)).toContain(
+      '2 water bodies are flagged for a page of their own; the 1 largest have one. All of them are in the tables.',
+    );
   });
 });
 

@@ -7,7 +7,11 @@ import { trendTable, type TrendSeries } from '../../src/model/seriesTrends.ts';
 function series(count: number, years: number): TrendSeries[] {
   return Array.from({ length: count }, (_, index) => {
     const months = Float64Array.from({ length: years * 12 }, (_, k) => 2015 * 12 + k);
-    const values = Float64Array.from(months, (month, k) => ((k * 7 + index * 13) % 11 === 0 ? Number.NaN : Math.round(10 * (Math.sin(month + index) + 0.01 * (index % 5 - 2) * k + Math.cos((2 * Math.PI * month) / 12))) / 10));
+    const values = Float64Array.from(months, (month, k) =>
+      (k * 7 + index * 13) % 11 === 0
+        ? Number.NaN
+        : Math.round(10 * (Math.sin(month + index) + 0.01 * ((index % 5) - 2) * k + Math.cos((2 * Math.PI * month) / 12))) / 10,
+    );
     return { key: `s${index}`, times: Float64Array.from(months, (month) => month / 12), months, values };
   });
 }

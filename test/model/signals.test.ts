@@ -14,7 +14,13 @@ let model: BulletinModel;
 
 beforeAll(async () => {
   const { inputs, problems } = await loadBulletin(EXAMPLE);
-  if (!inputs) throw new Error(problems.sorted().map((p) => p.message).join('\n'));
+  if (!inputs)
+    throw new Error(
+      problems
+        .sorted()
+        .map((p) => p.message)
+        .join('\n'),
+    );
   model = buildModel(inputs, problems.warnings, 'test');
 });
 
@@ -50,7 +56,12 @@ describe('the example region', () => {
 
   it('finds turbidity higher in the rainy months November–March than in June–September', () => {
     const turbidity = model.quality?.parameters.find((entry) => entry.parameter === 'turbidity');
-    const byMonths = (months: number[]) => median((turbidity?.monthly ?? []).filter((row) => months.includes((row.month % 12) + 1) && row.median !== null).map((row) => row.median as number));
+    const byMonths = (months: number[]) =>
+      median(
+        (turbidity?.monthly ?? [])
+          .filter((row) => months.includes((row.month % 12) + 1) && row.median !== null)
+          .map((row) => row.median as number),
+      );
     expect(byMonths([11, 12, 1, 2, 3]) / byMonths([6, 7, 8, 9])).toBeGreaterThan(1.5);
   });
 

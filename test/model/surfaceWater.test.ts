@@ -8,11 +8,17 @@ import { surfaceWater } from '../../src/model/surfaceWater.ts';
 import { areaTable, body } from '../support/inputs.ts';
 
 const config = configSchema.parse({
-  title: 'T', publisher: 'P', region: { name: 'R' },
+  title: 'T',
+  publisher: 'P',
+  region: { name: 'R' },
   issue: { month: '2023-05', published: '2023-06-02' },
   baseline: { firstYear: 2020, lastYear: 2022, minYears: 3 },
   coverage: { minObservedShare: 0.6, minRegionCoverage: 0.5, maxFilledGap: 2 },
-  statusBands: [{ key: 'lower', fromPercent: null }, { key: 'near', fromPercent: 90 }, { key: 'higher', fromPercent: 110 }],
+  statusBands: [
+    { key: 'lower', fromPercent: null },
+    { key: 'near', fromPercent: 90 },
+    { key: 'higher', fromPercent: 110 },
+  ],
   site: { baseUrl: 'https://example.org/' },
   inputs: { inventory: 'a', surfaceArea: 'b', boundaries: 'c' },
 });
@@ -22,13 +28,29 @@ const may = (year: number) => year * 12 + 4;
 /** Two bodies of 100 and 300 ha. */
 function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
   const bodies = [body('A', 100), body('B', 300)];
-  return { config, bulletinMonth: may(2023), bodies, area: areaTable(bodies, area), quality: null, distribution: [], rainfall: [], field: [], subRegions: [], files: [], content: {}, sources: {} };
+  return {
+    config,
+    bulletinMonth: may(2023),
+    bodies,
+    area: areaTable(bodies, area),
+    quality: null,
+    distribution: [],
+    rainfall: [],
+    field: [],
+    subRegions: [],
+    files: [],
+    content: {},
+    sources: {},
+  };
 }
 
 const MAY_ROWS: Array<[string, number, number, number]> = [
-  ['A', may(2020), 80, 1], ['B', may(2020), 240, 1], // (80 + 240) / 400 = 80 %
-  ['A', may(2021), 60, 1], ['B', may(2021), 240, 1], // 300 / 400 = 75 %
-  ['A', may(2022), 90, 1], ['B', may(2022), 270, 1], // 360 / 400 = 90 %
+  ['A', may(2020), 80, 1],
+  ['B', may(2020), 240, 1], // (80 + 240) / 400 = 80 %
+  ['A', may(2021), 60, 1],
+  ['B', may(2021), 240, 1], // 300 / 400 = 75 %
+  ['A', may(2022), 90, 1],
+  ['B', may(2022), 270, 1], // 360 / 400 = 90 %
 ];
 
 describe('surface water', () => {
@@ -37,7 +59,15 @@ describe('surface water', () => {
     const status = surfaceWater(data, bodySeries(data)).region.status;
     // Baseline fillings 80, 75, 90 → median 80, mean 81.667, sd √((1.667² + 6.667² + 8.333²)/2) = 7.638;
     // 50 / 80 = 62.5 % of usual → lowest band; z = (50 − 81.667)/7.638 = −4.146; below all three → rank 0.
-    expect(status).toMatchObject({ kind: 'stated', fillingPercent: 50, coveragePercent: 100, percentOfBaseline: 62.5, anomalyPoints: -30, bandKey: 'lower', percentileRank: 0 });
+    expect(status).toMatchObject({
+      kind: 'stated',
+      fillingPercent: 50,
+      coveragePercent: 100,
+      percentOfBaseline: 62.5,
+      anomalyPoints: -30,
+      bandKey: 'lower',
+      percentileRank: 0,
+    });
     if (status.kind !== 'stated') return;
     expect(status.baseline.median).toBe(80);
     expect(status.standardized).toBeCloseTo(-4.146, 3);
@@ -53,8 +83,19 @@ describe('surface water', () => {
   });
 
   it('statusOf(region) refuses a comparison with fewer baseline years than minYears', () => {
-    const data = inputs([['A', may(2021), 60, 1], ['B', may(2021), 240, 1], ['A', may(2023), 50, 1], ['B', may(2023), 150, 1]]);
-    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({ kind: 'short-baseline', fillingPercent: 50, coveragePercent: 100, usableYears: 1, neededYears: 3 });
+    const data = inputs([
+      ['A', may(2021), 60, 1],
+      ['B', may(2021), 240, 1],
+      ['A', may(2023), 50, 1],
+      ['B', may(2023), 150, 1],
+    ]);
+    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({
+      kind: 'short-baseline',
+      fillingPercent: 50,
+      coveragePercent: 100,
+      usableYears: 1,
+      neededYears: 3,
+    });
   });
 
   it('fillShortGaps fills gaps up to the limit linearly and flags them; longer gaps stay missing', () => {
@@ -68,7 +109,11 @@ describe('surface water', () => {
   });
 
   it('aggregate counts filled months in the filling but not in the coverage', () => {
-    const data = inputs([['A', may(2023) - 2, 40, 1], ['A', may(2023), 60, 1], ['B', may(2023) - 1, 150, 1]]);
+    const data = inputs([
+      ['A', may(2023) - 2, 40, 1],
+      ['A', may(2023), 60, 1],
+      ['B', may(2023) - 1, 150, 1],
+    ]);
     const series = bodySeries(data);
     const april = aggregate(series, [0, 1], [100, 300], 0).find((row) => row.month === may(2023) - 1);
     // April: A filled at 50 %, B seen at 50 % → (50·100 + 50·300)/400 = 50 %; seen 300 of 400 = 75 %; filled 25 %.
@@ -77,7 +122,14 @@ describe('surface water', () => {
 
   it('bandFor(percent, bands) takes the highest band whose lower bound is reached', () => {
     const bands = config.statusBands;
-    expect([50, 89.99, 90, 109, 110, 300].map((value) => bandFor(value, bands))).toEqual(['lower', 'lower', 'near', 'near', 'higher', 'higher']);
+    expect([50, 89.99, 90, 109, 110, 300].map((value) => bandFor(value, bands))).toEqual([
+      'lower',
+      'lower',
+      'near',
+      'near',
+      'higher',
+      'higher',
+    ]);
   });
 
   it('statusOf ignores months outside the baseline for the climatology', () => {

@@ -38,7 +38,8 @@ describe('renderSite', () => {
       expect(bodyPage).toContain('&lt;/title&gt;&lt;i&gt;Flats&lt;/i&gt; &quot;&amp;&quot;');
       const surface = read(...prefix, 'issues', '2026-11', 'surface-water', 'index.html');
       expect(surface).not.toMatch(/<b onmouseover|<i>Flats/);
-      const ld = /<script type="application\/ld\+json">(.*?)<\/script>/s.exec(read(...prefix, 'issues', '2026-11', 'index.html'))?.[1] ?? '';
+      const ld =
+        /<script type="application\/ld\+json">(.*?)<\/script>/s.exec(read(...prefix, 'issues', '2026-11', 'index.html'))?.[1] ?? '';
       expect(ld).not.toMatch(/[<>]/);
       expect(JSON.parse(ld).spatialCoverage.name).toBe('<img src=x onerror=alert(1)>');
       const atom = read(...prefix, 'feed.xml');

@@ -5,7 +5,17 @@
  * published site compares its tree before and after.
  */
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, readlinkSync, symlinkSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  lstatSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  readlinkSync,
+  symlinkSync,
+  writeFileSync,
+} from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -44,13 +54,18 @@ describe('confinement: input paths stay inside the bulletin folder', () => {
   it('refuses ../ paths, absolute paths and links out, and reads none of them', async () => {
     const outside = mkdtempSync(join(tmpdir(), 'limnopress-outside-'));
     writeFileSync(join(outside, 'rain.csv'), 'subregion_id,month,rainfall_mm\nR1,2020-06,50\n');
-    const up = writeMini({ 'bulletin.json': config((c) => (c.inputs.rainfall = '../../../../../../../../../../' + join(outside, 'rain.csv').slice(1))) });
+    const up = writeMini({
+      'bulletin.json': config((c) => (c.inputs.rainfall = '../../../../../../../../../../' + join(outside, 'rain.csv').slice(1))),
+    });
     expect(await errorsOf(up)).toEqual(['path-outside']);
     const absolute = writeMini({ 'bulletin.json': config((c) => (c.inputs.rainfall = join(outside, 'rain.csv'))) });
     expect(await errorsOf(absolute)).toEqual(['path-outside']);
     const linked = writeMini();
     symlinkSync(join(outside, 'rain.csv'), join(linked, 'linked.csv'));
-    writeFileSync(join(linked, 'bulletin.json'), config((c) => (c.inputs.rainfall = 'linked.csv')));
+    writeFileSync(
+      join(linked, 'bulletin.json'),
+      config((c) => (c.inputs.rainfall = 'linked.csv')),
+    );
     expect(await errorsOf(linked)).toEqual(['path-outside']);
     // The system's password file through an inventory path: refused before a byte is read or echoed.
     const passwd = writeMini({ 'bulletin.json': config((c) => (c.inputs.inventory = '../../../../../../../../etc/passwd')) });
@@ -62,7 +77,10 @@ describe('confinement: input paths stay inside the bulletin folder', () => {
   it('a link inside the folder to a file inside it is read as that file', async () => {
     const folder = writeMini();
     symlinkSync(join(folder, 'rain.csv'), join(folder, 'rain-link.csv'));
-    writeFileSync(join(folder, 'bulletin.json'), config((c) => (c.inputs.rainfall = 'rain-link.csv')));
+    writeFileSync(
+      join(folder, 'bulletin.json'),
+      config((c) => (c.inputs.rainfall = 'rain-link.csv')),
+    );
     expect(await errorsOf(folder)).toEqual([]);
   });
 
@@ -77,7 +95,10 @@ describe('confinement: input paths stay inside the bulletin folder', () => {
     expect(await errorsOf(fifo)).toEqual(['not-regular-file']);
     const device = writeMini();
     symlinkSync('/dev/zero', join(device, 'zero.geojson'));
-    writeFileSync(join(device, 'bulletin.json'), config((c) => (c.inputs.boundaries = 'zero.geojson')));
+    writeFileSync(
+      join(device, 'bulletin.json'),
+      config((c) => (c.inputs.boundaries = 'zero.geojson')),
+    );
     expect(await errorsOf(device)).toEqual(['path-outside']);
   });
 
@@ -92,7 +113,10 @@ describe('confinement: input paths stay inside the bulletin folder', () => {
     const loop = writeMini();
     mkdirSync(join(loop, 'parts'));
     symlinkSync(join(loop, 'parts'), join(loop, 'parts', 'again'));
-    writeFileSync(join(loop, 'bulletin.json'), config((c) => (c.inputs.rainfall = 'parts')));
+    writeFileSync(
+      join(loop, 'bulletin.json'),
+      config((c) => (c.inputs.rainfall = 'parts')),
+    );
     expect(await errorsOf(loop)).toEqual(['partition-link']);
     const archive = writeMini();
     const elsewhere = writeMini();
@@ -107,11 +131,23 @@ describe('published inputs keep a safe name and type', () => {
     const folder = writeMini();
     const csv = readFileSync(join(folder, 'bodies.csv'), 'utf8').replace('Lake One', '<script>alert(1)</script>');
     writeFileSync(join(folder, 'bodies.html'), csv);
-    writeFileSync(join(folder, 'bulletin.json'), config((c) => (c.inputs.inventory = 'bodies.html')));
+    writeFileSync(
+      join(folder, 'bulletin.json'),
+      config((c) => (c.inputs.inventory = 'bodies.html')),
+    );
     const site = join(folder, '..', 'site');
     await build({ bulletinFolder: folder, outDir: site });
     const inputs = join(site, 'issues', '2020-06', 'data', 'inputs');
-    expect(readdirSync(inputs).sort()).toEqual(['bulletin.json', 'distribution.csv', 'field-measurements.csv', 'rainfall.csv', 'subregions.geojson', 'surface-area.csv', 'water-bodies.csv', 'water-quality.csv']);
+    expect(readdirSync(inputs).sort()).toEqual([
+      'bulletin.json',
+      'distribution.csv',
+      'field-measurements.csv',
+      'rainfall.csv',
+      'subregions.geojson',
+      'surface-area.csv',
+      'water-bodies.csv',
+      'water-quality.csv',
+    ]);
     const server = await serveFolder(site);
     try {
       const response = await fetch(`${server.origin}/issues/2020-06/data/inputs/water-bodies.csv`);
@@ -171,11 +207,15 @@ describe('locked, crash-proof publishing', () => {
     let release = () => {};
     let paused = () => {};
     const reached = new Promise<void>((resolve) => (paused = resolve));
-    const first = build({ bulletinFolder: folder, outDir: site, pause: async (point) => {
-      if (point !== 'pages') return;
-      paused();
-      await new Promise<void>((resolve) => (release = resolve));
-    } });
+    const first = build({
+      bulletinFolder: folder,
+      outDir: site,
+      pause: async (point) => {
+        if (point !== 'pages') return;
+        paused();
+        await new Promise<void>((resolve) => (release = resolve));
+      },
+    });
     await reached;
     await expect(build({ bulletinFolder: folder, outDir: site })).rejects.toThrow(/another build is publishing/);
     release();
@@ -187,7 +227,10 @@ describe('locked, crash-proof publishing', () => {
   for (const point of ['locked', 'inputs', 'model', 'charts', 'pages', 'renamed', 'linked', 'swapped'] as const) {
     it(`kill -9 at "${point}" leaves a complete site, and the next build succeeds`, async () => {
       const { folder, site, before } = await publishedMini();
-      const child = spawn(process.execPath, [cli, 'build', folder, '--out', site, '--quiet'], { stdio: ['ignore', 'ignore', 'pipe'], env: { ...process.env, LIMNOPRESS_TEST_PAUSE: point } });
+      const child = spawn(process.execPath, [cli, 'build', folder, '--out', site, '--quiet'], {
+        stdio: ['ignore', 'ignore', 'pipe'],
+        env: { ...process.env, LIMNOPRESS_TEST_PAUSE: point },
+      });
       let err = '';
       await new Promise<void>((resolve) => {
         child.stderr.on('data', (chunk: Buffer) => {
@@ -208,7 +251,10 @@ describe('locked, crash-proof publishing', () => {
 
   it('SIGTERM during a build removes its staging folder and lock and leaves the old site', async () => {
     const { folder, site, before } = await publishedMini();
-    const child = spawn(process.execPath, [cli, 'build', folder, '--out', site, '--quiet'], { stdio: ['ignore', 'ignore', 'pipe'], env: { ...process.env, LIMNOPRESS_TEST_PAUSE: 'pages' } });
+    const child = spawn(process.execPath, [cli, 'build', folder, '--out', site, '--quiet'], {
+      stdio: ['ignore', 'ignore', 'pipe'],
+      env: { ...process.env, LIMNOPRESS_TEST_PAUSE: 'pages' },
+    });
     let err = '';
     const code = await new Promise<number | null>((resolve) => {
       child.stderr.on('data', (chunk: Buffer) => {
@@ -233,14 +279,101 @@ describe('locked, crash-proof publishing', () => {
 
 describe('crash inputs are caught by check, in one line each, with no stack', () => {
   const cases: Array<[string, () => string, string]> = [
-    ['a javascript: base URL', () => writeMini({ 'bulletin.json': config((c) => (c.site.baseUrl = 'javascript:alert(1)')) }), 'config-invalid'],
-    ['a status band without wording', () => writeMini({ 'bulletin.json': config((c) => (c.statusBands[1]!.key = 'below-normal')) }), 'config-band-words'],
-    ['a 302-character id', () => writeMini({ 'bodies.csv': `body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\n${'A'.repeat(302)},Lake,R1,10.1,50.1,10,lake,no\nB,Two,R1,10.2,50.2,200,reservoir,yes\n` }), 'value-too-long'],
-    ['ids S1 and s1 on one page path', () => writeMini({ 'bodies.csv': 'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake,R1,10.1,50.1,10,lake,no\nB,Two,R1,10.2,50.2,200,reservoir,yes\nb,Three,R1,10.3,50.3,20,lake,no\n' }), 'id-path-collision'],
-    ['polygon coordinates of ±1e300', () => writeMini({ 'regions.geojson': JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1', name: 'R' }, geometry: { type: 'Polygon', coordinates: [[[-1e300, -1e300], [1e300, -1e300], [1e300, 1e300], [-1e300, -1e300]]] } }] }) }), 'geojson-position'],
+    [
+      'a javascript: base URL',
+      () => writeMini({ 'bulletin.json': config((c) => (c.site.baseUrl = 'javascript:alert(1)')) }),
+      'config-invalid',
+    ],
+    [
+      'a status band without wording',
+      () => writeMini({ 'bulletin.json': config((c) => (c.statusBands[1]!.key = 'below-normal')) }),
+      'config-band-words',
+    ],
+    [
+      'a 302-character id',
+      () =>
+        writeMini({
+          'bodies.csv': `body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\n${'A'.repeat(302)},Lake,R1,10.1,50.1,10,lake,no\nB,Two,R1,10.2,50.2,200,reservoir,yes\n`,
+        }),
+      'value-too-long',
+    ],
+    [
+      'ids S1 and s1 on one page path',
+      () =>
+        writeMini({
+          'bodies.csv':
+            'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake,R1,10.1,50.1,10,lake,no\nB,Two,R1,10.2,50.2,200,reservoir,yes\nb,Three,R1,10.3,50.3,20,lake,no\n',
+        }),
+      'id-path-collision',
+    ],
+    [
+      'polygon coordinates of ±1e300',
+      () =>
+        writeMini({
+          'regions.geojson': JSON.stringify({
+            type: 'FeatureCollection',
+            features: [
+              {
+                type: 'Feature',
+                properties: { subregion_id: 'R1', name: 'R' },
+                geometry: {
+                  type: 'Polygon',
+                  coordinates: [
+                    [
+                      [-1e300, -1e300],
+                      [1e300, -1e300],
+                      [1e300, 1e300],
+                      [-1e300, -1e300],
+                    ],
+                  ],
+                },
+              },
+            ],
+          }),
+        }),
+      'geojson-position',
+    ],
     ['a null GeoJSON feature', () => writeMini({ 'regions.geojson': '{"type":"FeatureCollection","features":[null]}' }), 'geojson-feature'],
-    ['latitudes of 95-100', () => writeMini({ 'regions.geojson': JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1', name: 'R' }, geometry: { type: 'Polygon', coordinates: [[[10, 95], [11, 95], [11, 100], [10, 95]]] } }] }) }), 'geojson-position'],
-    ['an empty ring list', () => writeMini({ 'regions.geojson': JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1', name: 'R' }, geometry: { type: 'Polygon', coordinates: [[]] } }] }) }), 'geojson-ring'],
+    [
+      'latitudes of 95-100',
+      () =>
+        writeMini({
+          'regions.geojson': JSON.stringify({
+            type: 'FeatureCollection',
+            features: [
+              {
+                type: 'Feature',
+                properties: { subregion_id: 'R1', name: 'R' },
+                geometry: {
+                  type: 'Polygon',
+                  coordinates: [
+                    [
+                      [10, 95],
+                      [11, 95],
+                      [11, 100],
+                      [10, 95],
+                    ],
+                  ],
+                },
+              },
+            ],
+          }),
+        }),
+      'geojson-position',
+    ],
+    [
+      'an empty ring list',
+      () =>
+        writeMini({
+          'regions.geojson': JSON.stringify({
+            type: 'FeatureCollection',
+            features: [
+              { type: 'Feature', properties: { subregion_id: 'R1', name: 'R' }, geometry: { type: 'Polygon', coordinates: [[]] } },
+            ],
+          }),
+        }),
+      'geojson-ring',
+    ],
     ['issue.month 1900-01', () => writeMini({ 'bulletin.json': config((c) => (c.issue.month = '1900-01')) }), 'config-invalid'],
     ['published 2026-02-30', () => writeMini({ 'bulletin.json': config((c) => (c.issue.published = '2026-02-30')) }), 'config-invalid'],
     ['an empty input path', () => writeMini({ 'bulletin.json': config((c) => (c.inputs.rainfall = '')) }), 'config-invalid'],
@@ -267,7 +400,9 @@ describe('crash inputs are caught by check, in one line each, with no stack', ()
     const folder = writeMini({ 'bulletin.json': config((c) => (c.site.baseUrl = 'https://example.org/water')) });
     const site = join(folder, '..', 'site');
     await build({ bulletinFolder: folder, outDir: site });
-    expect(readFileSync(join(site, 'issues', '2020-06', 'index.html'), 'utf8')).toContain('href="https://example.org/water/issues/2020-06/"');
+    expect(readFileSync(join(site, 'issues', '2020-06', 'index.html'), 'utf8')).toContain(
+      'href="https://example.org/water/issues/2020-06/"',
+    );
   });
 });
 
@@ -300,7 +435,17 @@ describe('new-issue', () => {
 
 describe('lesser items', () => {
   it('CSV cells that a spreadsheet would run are neutralized; numbers stay numbers (OWASP CSV injection guidance)', () => {
-    expect(['=1+1', '+cmd', '-x', '@SUM(A1)', '\tx', 'plain', '-0.5', '+3', '1e-3'].map(csvField)).toEqual(["'=1+1", "'+cmd", "'-x", "'@SUM(A1)", "'\tx", 'plain', '-0.5', '+3', '1e-3']);
+    expect(['=1+1', '+cmd', '-x', '@SUM(A1)', '\tx', 'plain', '-0.5', '+3', '1e-3'].map(csvField)).toEqual([
+      "'=1+1",
+      "'+cmd",
+      "'-x",
+      "'@SUM(A1)",
+      "'\tx",
+      'plain',
+      '-0.5',
+      '+3',
+      '1e-3',
+    ]);
   });
 
   it('names with right-to-left overrides are isolated (Unicode Standard Annex #9, FSI … PDI)', () => {
@@ -309,14 +454,19 @@ describe('lesser items', () => {
   });
 
   it('a 10 MB value is echoed as its first 200 characters', async () => {
-    const folder = writeMini({ 'area.csv': `body_id,month,water_area_ha,observed_share,scenes\nA,2020-06,${'9'.repeat(10_000_000)}x,0.95,3\n` });
+    const folder = writeMini({
+      'area.csv': `body_id,month,water_area_ha,observed_share,scenes\nA,2020-06,${'9'.repeat(10_000_000)}x,0.95,3\n`,
+    });
     const { problems } = await loadIssues(folder);
     const longest = Math.max(...problems.map((problem) => problem.value.length));
     expect(longest).toBeLessThanOrEqual(201);
   });
 
   it('markup in a body name is escaped once in <title>', async () => {
-    const folder = writeMini({ 'bodies.csv': 'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake One,R1,10.1,50.1,10,lake,no\nB,Tom & <b>Jerry</b>,R1,10.2,50.2,200,reservoir,yes\n' });
+    const folder = writeMini({
+      'bodies.csv':
+        'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake One,R1,10.1,50.1,10,lake,no\nB,Tom & <b>Jerry</b>,R1,10.2,50.2,200,reservoir,yes\n',
+    });
     const site = join(folder, '..', 'site');
     await build({ bulletinFolder: folder, outDir: site });
     const page = readFileSync(join(site, 'issues', '2020-06', 'water-bodies', 'b', 'index.html'), 'utf8');

@@ -50,12 +50,18 @@ describe('the archive', () => {
     for (const element of ['<id>', '<title>', '<updated>', '<author><name>']) expect(feedHead).toContain(element);
     const entries = atom.split('<entry>').slice(1);
     expect(entries).toHaveLength(3);
-    for (const entry of entries) for (const element of ['<id>https://bulletin.example.org/issues/', '<title>', '<updated>2026-', '<link rel="alternate"']) expect(entry).toContain(element);
+    for (const entry of entries)
+      for (const element of ['<id>https://bulletin.example.org/issues/', '<title>', '<updated>2026-', '<link rel="alternate"'])
+        expect(entry).toContain(element);
     expect(entries[0]).toContain('2026-11');
   });
 
   it('writes a JSON Feed 1.1 with the required fields', () => {
-    const feed = JSON.parse(read('feed.json')) as { version: string; title: string; items: Array<{ id: string; content_text?: string; url: string }> };
+    const feed = JSON.parse(read('feed.json')) as {
+      version: string;
+      title: string;
+      items: Array<{ id: string; content_text?: string; url: string }>;
+    };
     expect(feed.version).toBe('https://jsonfeed.org/version/1.1');
     expect(feed.title).toBe('Velduran Lakeland Water Bulletin');
     expect(feed.items).toHaveLength(3);
@@ -84,7 +90,12 @@ describe('verify', () => {
   });
 
   it('verifySite(copy) reports one changed byte in any kind of file, a missing file and an extra one', () => {
-    for (const path of ['issues/2026-09/trends/index.html', 'issues/2026-11/card.png', 'feed.xml', 'issues/2026-10/revisions/1/data/bulletin-model.json']) {
+    for (const path of [
+      'issues/2026-09/trends/index.html',
+      'issues/2026-11/card.png',
+      'feed.xml',
+      'issues/2026-10/revisions/1/data/bulletin-model.json',
+    ]) {
       const copy = `${site}-verify-${path.replace(/\W/g, '-')}`;
       cpSync(site, copy, { recursive: true, dereference: true });
       const bytes = readFileSync(join(copy, path));
@@ -137,7 +148,12 @@ describe('the overview on narrow and wide screens', () => {
       }
       // The charts still fit their column: the width rule comes from the stylesheet, not a style attribute.
       await page.goto(`${server.origin}/issues/2026-11/surface-water/`);
-      const maxWidth = await page.locator('svg[role="img"]').first().evaluate((svg) => (globalThis as unknown as { getComputedStyle(element: unknown): { maxWidth: string } }).getComputedStyle(svg).maxWidth);
+      const maxWidth = await page
+        .locator('svg[role="img"]')
+        .first()
+        .evaluate(
+          (svg) => (globalThis as unknown as { getComputedStyle(element: unknown): { maxWidth: string } }).getComputedStyle(svg).maxWidth,
+        );
       expect(maxWidth).toBe('100%');
       expect(refused).toEqual([]);
       await context.close();
@@ -151,18 +167,23 @@ describe('the overview on narrow and wide screens', () => {
     const shots = join(import.meta.dirname, '..', '..', '.tmp', 'screenshots');
     mkdirSync(shots, { recursive: true });
     try {
-      for (const [language, path] of [['en', '/issues/2026-11/'], ['fr', '/fr/issues/2026-11/']] as const) for (const width of [320, 1280]) {
-        const context = await browser.newContext({ viewport: { width, height: 900 } });
-        const page = await context.newPage();
-        await page.goto(`${server.origin}${path}`);
-        const { scrollWidth, clientWidth } = await page.evaluate(() => {
-          const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
-          return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
-        });
-        await page.screenshot({ path: join(shots, `overview-${language}-${width}.png`), fullPage: true });
-        expect(scrollWidth, `${language} at width ${width}`).toBeLessThanOrEqual(clientWidth);
-        await context.close();
-      }
+      for (const [language, path] of [
+        ['en', '/issues/2026-11/'],
+        ['fr', '/fr/issues/2026-11/'],
+      ] as const)
+        for (const width of [320, 1280]) {
+          const context = await browser.newContext({ viewport: { width, height: 900 } });
+          const page = await context.newPage();
+          await page.goto(`${server.origin}${path}`);
+          const { scrollWidth, clientWidth } = await page.evaluate(() => {
+            const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document
+              .documentElement;
+            return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
+          });
+          await page.screenshot({ path: join(shots, `overview-${language}-${width}.png`), fullPage: true });
+          expect(scrollWidth, `${language} at width ${width}`).toBeLessThanOrEqual(clientWidth);
+          await context.close();
+        }
     } finally {
       await server.close();
     }
@@ -170,8 +191,26 @@ describe('the overview on narrow and wide screens', () => {
 
   it('reflows every kind of page at 320 px in both languages (tables scroll inside their own box)', async () => {
     const server = await serveFolder(site);
-    const kinds = ['', 'surface-water/', 'water-quality/', 'trends/', 'data-and-methods/', 'water-bodies/', 'sub-regions/cor/', 'sub-regions/cor/water-bodies/page-2/', 'water-bodies/wb079/'];
-    const paths = [...['/issues/2026-11/', '/fr/issues/2026-11/', '/fr/issues/2026-10/revisions/1/'].flatMap((issue) => kinds.map((kind) => `${issue}${kind}`)), '/', '/fr/archive/', '/latest/', '/404.html'];
+    const kinds = [
+      '',
+      'surface-water/',
+      'water-quality/',
+      'trends/',
+      'data-and-methods/',
+      'water-bodies/',
+      'sub-regions/cor/',
+      'sub-regions/cor/water-bodies/page-2/',
+      'water-bodies/wb079/',
+    ];
+    const paths = [
+      ...['/issues/2026-11/', '/fr/issues/2026-11/', '/fr/issues/2026-10/revisions/1/'].flatMap((issue) =>
+        kinds.map((kind) => `${issue}${kind}`),
+      ),
+      '/',
+      '/fr/archive/',
+      '/latest/',
+      '/404.html',
+    ];
     try {
       const context = await browser.newContext({ viewport: { width: 320, height: 900 } });
       const page = await context.newPage();
@@ -179,7 +218,8 @@ describe('the overview on narrow and wide screens', () => {
       for (const path of paths) {
         await page.goto(`${server.origin}${path}`);
         const { scrollWidth, clientWidth } = await page.evaluate(() => {
-          const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
+          const root = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document
+            .documentElement;
           return { scrollWidth: root.scrollWidth, clientWidth: root.clientWidth };
         });
         if (scrollWidth > clientWidth) overflowing.push(`${path} ${scrollWidth} > ${clientWidth}`);

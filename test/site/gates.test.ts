@@ -37,9 +37,39 @@ describe('example site', () => {
     // Each sub-region has 26 or 27 water bodies: two list pages of at most 20 (site.bodiesPerListPage).
     // English at the root with the 404 page, French under fr/ with its own home, archive and latest page.
     expect(pages).toHaveLength(4 + 3 + 2 * 4 * (6 + 3 + 3 * 2 + 22));
-    for (const page of ['index.html', '404.html', 'archive/index.html', 'latest/index.html', 'fr/index.html', 'fr/archive/index.html', 'fr/latest/index.html']) expect(pages).toContain(page);
-    for (const issue of ['issues/2026-09/', 'issues/2026-10/', 'issues/2026-10/revisions/1/', 'issues/2026-11/', 'fr/issues/2026-09/', 'fr/issues/2026-10/', 'fr/issues/2026-10/revisions/1/', 'fr/issues/2026-11/']) {
-      for (const page of ['', 'surface-water/', 'water-quality/', 'trends/', 'data-and-methods/', 'water-bodies/', 'sub-regions/cor/', 'sub-regions/cor/water-bodies/', 'sub-regions/cor/water-bodies/page-2/', 'water-bodies/wb079/']) expect(pages).toContain(`${issue}${page}index.html`);
+    for (const page of [
+      'index.html',
+      '404.html',
+      'archive/index.html',
+      'latest/index.html',
+      'fr/index.html',
+      'fr/archive/index.html',
+      'fr/latest/index.html',
+    ])
+      expect(pages).toContain(page);
+    for (const issue of [
+      'issues/2026-09/',
+      'issues/2026-10/',
+      'issues/2026-10/revisions/1/',
+      'issues/2026-11/',
+      'fr/issues/2026-09/',
+      'fr/issues/2026-10/',
+      'fr/issues/2026-10/revisions/1/',
+      'fr/issues/2026-11/',
+    ]) {
+      for (const page of [
+        '',
+        'surface-water/',
+        'water-quality/',
+        'trends/',
+        'data-and-methods/',
+        'water-bodies/',
+        'sub-regions/cor/',
+        'sub-regions/cor/water-bodies/',
+        'sub-regions/cor/water-bodies/page-2/',
+        'water-bodies/wb079/',
+      ])
+        expect(pages).toContain(`${issue}${page}index.html`);
     }
   });
 
@@ -79,7 +109,9 @@ describe('example site', () => {
 
 describe('each gate fails on a broken page', () => {
   it('checkLinks reports a missing page and a missing fragment', async () => {
-    const copy = brokenCopy('links', (html) => html.replace('</main>', '<p><a href="/issues/2026-11/no-such-page/">gone</a> <a href="#no-such-fragment">nowhere</a></p></main>'));
+    const copy = brokenCopy('links', (html) =>
+      html.replace('</main>', '<p><a href="/issues/2026-11/no-such-page/">gone</a> <a href="#no-such-fragment">nowhere</a></p></main>'),
+    );
     const { broken } = await checkLinks(copy, BASE_URL);
     const urls = broken.map((link) => link.url);
     expect(urls.some((url) => url.includes('/no-such-page/'))).toBe(true);
@@ -98,7 +130,12 @@ describe('each gate fails on a broken page', () => {
   });
 
   it('auditAccessibility reports an image without a text alternative and low contrast', async () => {
-    const copy = brokenCopy('axe', (html) => html.replace('</main>', '<svg role="img" width="10" height="10"><rect width="10" height="10"/></svg><p style="color:#bbbbbb;background:#ffffff">faint</p></main>'));
+    const copy = brokenCopy('axe', (html) =>
+      html.replace(
+        '</main>',
+        '<svg role="img" width="10" height="10"><rect width="10" height="10"/></svg><p style="color:#bbbbbb;background:#ffffff">faint</p></main>',
+      ),
+    );
     const { violations } = await auditAccessibility(copy, browser, ['issues/2026-11/index.html']);
     const ids = violations.map((violation) => violation.id);
     expect(ids).toContain('svg-img-alt');

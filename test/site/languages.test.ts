@@ -23,7 +23,10 @@ beforeAll(() => {
 describe('the French edition', () => {
   it('has a French page for every English page and the other way round (the 404 page apart)', () => {
     const pages = listFiles(site).filter((path) => path.endsWith('.html') && path !== '404.html');
-    const french = pages.filter((path) => path.startsWith('fr/')).map((path) => path.slice(3)).sort();
+    const french = pages
+      .filter((path) => path.startsWith('fr/'))
+      .map((path) => path.slice(3))
+      .sort();
     const english = pages.filter((path) => !path.startsWith('fr/')).sort();
     expect(french.length).toBeGreaterThan(100);
     expect(french).toEqual(english);
@@ -33,7 +36,9 @@ describe('the French edition', () => {
     const page = read('fr/issues/2026-11/trends/index.html');
     expect(page).toContain('<html lang="fr">');
     expect(page).toContain('<meta property="og:locale" content="fr_FR">\n<meta property="og:locale:alternate" content="en_GB">');
-    expect(page).toMatch(/<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, les lacs/);
+    expect(page).toMatch(
+      /<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, les lacs/,
+    );
     expect(page).toContain('<link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/">');
     expect(page).toContain('<link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/">');
     expect(page).toContain('<a href="/issues/2026-11/trends/" hreflang="en" lang="en">English</a>');
@@ -45,8 +50,18 @@ describe('the French edition', () => {
 
   it('speaks French in headings, navigation, key messages, tables and charts, with French numbers and dates', () => {
     const overview = read('fr/issues/2026-11/index.html');
-    for (const text of ['Messages clés', 'Chiffres principaux', 'Réserves et précautions', 'Qualité de l&#39;eau', 'novembre 2026', '3 décembre 2026', 'Aller au contenu principal']) expect(overview).toContain(text);
-    for (const text of ['Key messages', 'Headline figures', 'Skip to main content', 'See the figures']) expect(overview).not.toContain(text);
+    for (const text of [
+      'Messages clés',
+      'Chiffres principaux',
+      'Réserves et précautions',
+      'Qualité de l&#39;eau',
+      'novembre 2026',
+      '3 décembre 2026',
+      'Aller au contenu principal',
+    ])
+      expect(overview).toContain(text);
+    for (const text of ['Key messages', 'Headline figures', 'Skip to main content', 'See the figures'])
+      expect(overview).not.toContain(text);
     // Intl's French percent: a no-break space before the sign (U+00A0 in Node 20's ICU data).
     expect(overview).toMatch(/\d\u00a0%/);
     expect(overview).not.toMatch(/\d%/);
@@ -70,7 +85,9 @@ describe('the French edition', () => {
 
   it('words the input check warnings in French, marked as French', () => {
     const methods = read('fr/issues/2026-10/revisions/1/data-and-methods/index.html');
-    expect(methods).toContain('<code lang="fr">avertissement archive/2026-10-r1/data/surface-area.csv:8046 [water_area_ha]\u00a0: la surface en eau dépasse de loin la surface de référence');
+    expect(methods).toContain(
+      '<code lang="fr">avertissement archive/2026-10-r1/data/surface-area.csv:8046 [water_area_ha]\u00a0: la surface en eau dépasse de loin la surface de référence',
+    );
     expect(methods).not.toContain('Certains avertissements sont en anglais');
   });
 
@@ -82,8 +99,12 @@ describe('the French edition', () => {
   it('shows the correction note in French where the configuration gives its translation', () => {
     const corrected = read('fr/issues/2026-10/index.html');
     expect(corrected).toContain('<h2 id="corrections-heading">Corrections de cette révision</h2>');
-    expect(corrected).toContain('<time datetime="2026-11-10">10 novembre 2026</time>\u00a0: <span>La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande.');
-    expect(read('issues/2026-10/index.html')).toContain('<time datetime="2026-11-10">10 November 2026</time>: <span>The October 2026 water area of water body WB079');
+    expect(corrected).toContain(
+      '<time datetime="2026-11-10">10 novembre 2026</time>\u00a0: <span>La surface en eau d’octobre 2026 du plan d’eau WB079 avait été saisie dix fois trop grande.',
+    );
+    expect(read('issues/2026-10/index.html')).toContain(
+      '<time datetime="2026-11-10">10 November 2026</time>: <span>The October 2026 water area of water body WB079',
+    );
   });
 
   it('shows the health cautions in French too', () => {
@@ -95,13 +116,18 @@ describe('the French edition', () => {
   it('lists each page with its other-language version in the sitemap', () => {
     const sitemap = read('sitemap.xml');
     expect(sitemap).toContain('xmlns:xhtml="http://www.w3.org/1999/xhtml"');
-    const both = '<xhtml:link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/"/><xhtml:link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/"/>';
+    const both =
+      '<xhtml:link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/"/><xhtml:link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/"/>';
     expect(sitemap).toContain(`<url><loc>https://bulletin.example.org/issues/2026-11/trends/</loc>${both}</url>`);
     expect(sitemap).toContain(`<url><loc>https://bulletin.example.org/fr/issues/2026-11/trends/</loc>${both}</url>`);
   });
 
   it('says its language in the schema.org Dataset metadata', () => {
-    const ld = (path: string) => JSON.parse(/<script type="application\/ld\+json">(.*?)<\/script>/.exec(read(path))?.[1] ?? '{}') as { inLanguage: string; url: string };
+    const ld = (path: string) =>
+      JSON.parse(/<script type="application\/ld\+json">(.*?)<\/script>/.exec(read(path))?.[1] ?? '{}') as {
+        inLanguage: string;
+        url: string;
+      };
     expect(ld('fr/issues/2026-11/index.html')).toMatchObject({ inLanguage: 'fr', url: 'https://bulletin.example.org/fr/issues/2026-11/' });
     expect(ld('issues/2026-11/index.html')).toMatchObject({ inLanguage: 'en', url: 'https://bulletin.example.org/issues/2026-11/' });
   });
@@ -143,7 +169,9 @@ describe('page weight', () => {
       const html = read(path);
       expect(Buffer.byteLength(html) + css, path).toBeLessThanOrEqual(300 * 1024);
       // Resources a browser would fetch: stylesheets, scripts, images, fonts. Only site paths.
-      const fetched = [...html.matchAll(/<(?:link rel="stylesheet"|script|img|source)[^>]*(?:href|src)="([^"]+)"/g)].map((match) => match[1]);
+      const fetched = [...html.matchAll(/<(?:link rel="stylesheet"|script|img|source)[^>]*(?:href|src)="([^"]+)"/g)].map(
+        (match) => match[1],
+      );
       for (const url of fetched) expect(url, path).toMatch(/^\/(?!\/)/);
     }
   });

@@ -35,10 +35,12 @@ describe('publishAtomically', () => {
     const root = scratch();
     const site = publishedSite(root);
     const before = treeHashes(site);
-    await expect(publishAtomically(site, async (staging) => {
-      writeFileSync(join(staging, 'index.html'), 'half');
-      throw new Error('disk full');
-    })).rejects.toThrow('disk full');
+    await expect(
+      publishAtomically(site, async (staging) => {
+        writeFileSync(join(staging, 'index.html'), 'half');
+        throw new Error('disk full');
+      }),
+    ).rejects.toThrow('disk full');
     expect(treeHashes(site)).toEqual(before);
     expect(readdirSync(root).sort()).toEqual(['.site.limnopress', 'site']);
     expect(readdirSync(join(root, '.site.limnopress'))).toEqual([]);

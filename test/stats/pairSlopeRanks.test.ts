@@ -16,7 +16,8 @@ function generator(seed: number) {
 /** The definition: every slope made and sorted. */
 function sortedSlopes(t: Float64Array, y: Float64Array): number[] {
   const all: number[] = [];
-  for (let i = 0; i < t.length; i++) for (let j = i + 1; j < t.length; j++) all.push(((y[j] as number) - (y[i] as number)) / ((t[j] as number) - (t[i] as number)));
+  for (let i = 0; i < t.length; i++)
+    for (let j = i + 1; j < t.length; j++) all.push(((y[j] as number) - (y[i] as number)) / ((t[j] as number) - (t[i] as number)));
   return all.sort((a, b) => a - b);
 }
 
@@ -24,7 +25,7 @@ const kinds: Record<string, (k: number, random: () => number, slope: number) => 
   'rounded to one decimal (many ties)': (k, random, slope) => Math.round(10 * (slope * k + random())) / 10,
   'three levels only': (_k, random) => Math.round(random() * 2),
   'all equal': () => 5,
-  'continuous': (k, random, slope) => slope * k + random(),
+  continuous: (k, random, slope) => slope * k + random(),
   'a trend far larger than the noise': (k, random) => 1000 * k + random() * 1e-6,
   'large values with tiny differences': (k, random) => 1e9 + Math.round(random() * 4) * 1e-6 + k * 1e-7,
 };
@@ -42,7 +43,9 @@ describe('pairSlopeRanks', () => {
         const y = Float64Array.from({ length: n }, (_, k) => make(k, random, slope));
         const all = sortedSlopes(t, y);
         const count = all.length;
-        const ranks = [...new Set([Math.floor(count * 0.3), Math.floor((count - 1) / 2), Math.ceil((count - 1) / 2), Math.floor(count * 0.7)])].sort((a, b) => a - b);
+        const ranks = [
+          ...new Set([Math.floor(count * 0.3), Math.floor((count - 1) / 2), Math.ceil((count - 1) / 2), Math.floor(count * 0.7)]),
+        ].sort((a, b) => a - b);
         const found = pairSlopeRanks(t, y, n, ranks);
         if (found === null) continue;
         answered++;

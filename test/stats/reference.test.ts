@@ -8,8 +8,21 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  agreement, benjaminiHochberg, chiSquareSurvival, hamedRao, kruskalWallis, weightedMedian, mannKendall, normalQuantile, normalSurvival, percentileRank, pettitt, quantile,
-  sampleStandardDeviation, seasonalKendall, sensSlope,
+  agreement,
+  benjaminiHochberg,
+  chiSquareSurvival,
+  hamedRao,
+  kruskalWallis,
+  weightedMedian,
+  mannKendall,
+  normalQuantile,
+  normalSurvival,
+  percentileRank,
+  pettitt,
+  quantile,
+  sampleStandardDeviation,
+  seasonalKendall,
+  sensSlope,
 } from '../../src/stats/index.ts';
 
 type Numbers = Array<number | null>;
@@ -133,7 +146,10 @@ describe('statistics against the scipy and numpy reference', () => {
 
   for (const c of reference.cases.filter((entry) => entry.kruskalWallis && entry.months)) {
     it(`kruskalWallis(${c.name}) by calendar month matches scipy kruskal`, () => {
-      const result = kruskalWallis((c.months as number[]).map((month) => month % 12), values(c.y));
+      const result = kruskalWallis(
+        (c.months as number[]).map((month) => month % 12),
+        values(c.y),
+      );
       close(result.h, c.kruskalWallis?.h, 'H');
       close(result.p, c.kruskalWallis?.p, 'p');
     });
@@ -166,7 +182,8 @@ describe('statistics against the scipy and numpy reference', () => {
   it('agreement(field, satellite) matches numpy and scipy linregress', () => {
     const a = reference.agreement;
     const result = agreement(a.reference, a.estimate);
-    for (const key of ['bias', 'meanAbsoluteError', 'rootMeanSquareError', 'slope', 'intercept', 'rSquared'] as const) close(result[key], a[key] as number, key);
+    for (const key of ['bias', 'meanAbsoluteError', 'rootMeanSquareError', 'slope', 'intercept', 'rSquared'] as const)
+      close(result[key], a[key] as number, key);
   });
 
   it('normalSurvival and normalQuantile match scipy.stats.norm', () => {

@@ -35,7 +35,9 @@ describe('selectKth and selectRanks', () => {
       const order = sorted(values);
       const n = values.length;
       // Close middle ranks (as Sen's slope asks: its limits and median) and the extremes.
-      const middle = [...new Set([Math.floor(n * 0.44), Math.floor((n - 1) / 2), Math.ceil((n - 1) / 2), Math.floor(n * 0.56)])].sort((a, b) => a - b);
+      const middle = [...new Set([Math.floor(n * 0.44), Math.floor((n - 1) / 2), Math.ceil((n - 1) / 2), Math.floor(n * 0.56)])].sort(
+        (a, b) => a - b,
+      );
       for (const ranks of [middle, [0, n - 1], [0, ...middle, n - 1]]) {
         expect(selectRanks(Float64Array.from(values), n, ranks)).toEqual(ranks.map((rank) => order[rank]));
         for (const rank of ranks) expect(selectKth(Float64Array.from(values), rank)).toBe(order[rank]);
@@ -52,13 +54,16 @@ describe('selectKth and selectRanks', () => {
     expect(() => selectRanks(new Float64Array(3), 3, [3])).toThrow(RangeError);
   });
 
-  it("sensSlope does not depend on the order of the pairs (tied and unordered times too)", () => {
+  it('sensSlope does not depend on the order of the pairs (tied and unordered times too)', () => {
     const random = mulberry32(7);
     const times = Array.from({ length: 150 }, (_, k) => 2010 + Math.floor(k / 2) / 12); // two values per month
     const values = times.map((time) => Math.round(10 * (0.3 * (time - 2010) + random())) / 10);
     const order = times.map((_, k) => k).sort((a, b) => ((a * 7919) % 151) - ((b * 7919) % 151));
     const straight = sensSlope(times, values);
-    const shuffled = sensSlope(order.map((k) => times[k] as number), order.map((k) => values[k] as number));
+    const shuffled = sensSlope(
+      order.map((k) => times[k] as number),
+      order.map((k) => values[k] as number),
+    );
     expect(shuffled).toEqual(straight);
     // 75 pairs tied in time have no slope: 150·149/2 − 75.
     expect(straight.slopes).toBe(11100);
@@ -80,7 +85,9 @@ describe('sortValues and sortedPositions on many values (radix sort)', () => {
   it('sortValues gives what Float64Array.prototype.sort gives, −0 before +0 included', () => {
     const expected = Float64Array.from(values).sort();
     const actual = sortValues(Float64Array.from(values));
-    expect(Array.from(actual, (value) => (Object.is(value, -0) ? '-0' : String(value)))).toEqual(Array.from(expected, (value) => (Object.is(value, -0) ? '-0' : String(value))));
+    expect(Array.from(actual, (value) => (Object.is(value, -0) ? '-0' : String(value)))).toEqual(
+      Array.from(expected, (value) => (Object.is(value, -0) ? '-0' : String(value))),
+    );
   });
 
   it('sortedPositions is the stable order by value (as a stable sort by `<` of the positions)', () => {

@@ -5,7 +5,10 @@ describe('sensSlope', () => {
   it('sensSlope(t, a + b·t) is exactly b with a zero-width interval', () => {
     // By hand: every pairwise slope of a straight line equals b = 0.25 (exact in binary).
     const t = [2018, 2018.5, 2019, 2020.25, 2021, 2023];
-    const result = sensSlope(t, t.map((time) => 3 + 0.25 * (time - 2018)));
+    const result = sensSlope(
+      t,
+      t.map((time) => 3 + 0.25 * (time - 2018)),
+    );
     expect(result.slope).toBe(0.25);
     expect(result.lower).toBe(0.25);
     expect(result.upper).toBe(0.25);

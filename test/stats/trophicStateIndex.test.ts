@@ -20,7 +20,15 @@ describe('trophicStateIndex', () => {
 
   it('trophicClass(chl) follows the OECD (1982) fixed boundaries 1, 2.5, 8 and 25 µg/L', () => {
     expect([0.5, 1, 2, 2.5, 5, 8, 10, 25, 60].map(trophicClass)).toEqual([
-      'ultra-oligotrophic', 'ultra-oligotrophic', 'oligotrophic', 'oligotrophic', 'mesotrophic', 'mesotrophic', 'eutrophic', 'eutrophic', 'hypertrophic',
+      'ultra-oligotrophic',
+      'ultra-oligotrophic',
+      'oligotrophic',
+      'oligotrophic',
+      'mesotrophic',
+      'mesotrophic',
+      'eutrophic',
+      'eutrophic',
+      'hypertrophic',
     ]);
     expect(trophicClass(Number.NaN)).toBeNull();
   });

@@ -56,7 +56,9 @@ export async function checkLinks(dir: string, baseUrl?: string): Promise<{ check
     concurrency: 8,
     ...(escaped ? { urlRewriteExpressions: [{ pattern: new RegExp(`^${escaped}`), replacement: `http://localhost:${port}/` }] } : {}),
   });
-  const broken = result.links.filter((link) => link.state === 'BROKEN').map((link) => ({ url: link.url, parent: link.parent ?? '', status: link.status }));
+  const broken = result.links
+    .filter((link) => link.state === 'BROKEN')
+    .map((link) => ({ url: link.url, parent: link.parent ?? '', status: link.status }));
   return { checked: result.links.length, broken };
 }
 
@@ -75,7 +77,8 @@ export async function validateHtml(dir: string): Promise<{ pages: number; errors
   for (const page of pages) {
     const report = await validator.validateFile(join(dir, page));
     for (const result of report.results) {
-      for (const message of result.messages) if (message.severity === 2) errors.push(`${page}:${message.line}:${message.column} ${message.ruleId} ${message.message}`);
+      for (const message of result.messages)
+        if (message.severity === 2) errors.push(`${page}:${message.line}:${message.column} ${message.ruleId} ${message.message}`);
     }
   }
   return { pages: pages.length, errors };
@@ -86,11 +89,21 @@ import { serveFolder } from '../../src/site/serve.ts';
 
 export async function launchChromium(): Promise<Browser> {
   if (!existsSync(CHROMIUM_PATH)) {
-    throw new Error(`Chromium not found at ${CHROMIUM_PATH}. Install it with "apt-get install -y chromium fonts-dejavu-core" (or set LIMNOPRESS_CHROMIUM to a Chromium binary); the browser tests need it and are never skipped.`);
+    throw new Error(
+      `Chromium not found at ${CHROMIUM_PATH}. Install it with "apt-get install -y chromium fonts-dejavu-core" (or set LIMNOPRESS_CHROMIUM to a Chromium binary); the browser tests need it and are never skipped.`,
+    );
   }
   return chromium.launch({
     executablePath: CHROMIUM_PATH,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
 }
 
@@ -111,7 +124,11 @@ export interface AxeViolation {
  * in ARIA, and the chart's name, description and data table are what assistive technology gets;
  * the <svg> element itself is still audited.
  */
-export async function auditAccessibility(dir: string, browser: Browser, only?: string[]): Promise<{ pages: number; violations: AxeViolation[] }> {
+export async function auditAccessibility(
+  dir: string,
+  browser: Browser,
+  only?: string[],
+): Promise<{ pages: number; violations: AxeViolation[] }> {
   const server = await serveFolder(dir);
   const violations: AxeViolation[] = [];
   const pages = only ?? htmlPages(dir);
@@ -131,10 +148,21 @@ export async function auditAccessibility(dir: string, browser: Browser, only?: s
             const result = (await page.evaluate(async (tags) => {
               // Runs in the page; typed loosely so the project needs no DOM library types.
               const scope = globalThis as unknown as { axe: { run: (context: unknown, options: object) => Promise<unknown> } };
-              return scope.axe.run({ exclude: [['svg[role="img"] > *']] }, { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] });
-            }, WCAG_TAGS)) as { violations: Array<{ id: string; impact: string | null; help: string; nodes: Array<{ target: string[] }> }> };
+              return scope.axe.run(
+                { exclude: [['svg[role="img"] > *']] },
+                { runOnly: { type: 'tag', values: tags }, resultTypes: ['violations'] },
+              );
+            }, WCAG_TAGS)) as {
+              violations: Array<{ id: string; impact: string | null; help: string; nodes: Array<{ target: string[] }> }>;
+            };
             for (const violation of result.violations) {
-              violations.push({ page: pagePath, id: violation.id, impact: violation.impact, help: violation.help, targets: violation.nodes.flatMap((node) => node.target.map(String)) });
+              violations.push({
+                page: pagePath,
+                id: violation.id,
+                impact: violation.impact,
+                help: violation.help,
+                targets: violation.nodes.flatMap((node) => node.target.map(String)),
+              });
             }
             await page.close();
           }

@@ -1,7 +1,18 @@
 /** Small in-memory inputs for model tests. */
 import type { AreaTable, WaterBody } from '../../src/ingest/index.ts';
 
-export const body = (id: string, referenceHa: number, subRegionId = 'S', extra: Partial<WaterBody> = {}): WaterBody => ({ id, name: id, subRegionId, lon: 0, lat: 0, referenceHa, kind: 'lake', ownPage: false, line: 0, ...extra });
+export const body = (id: string, referenceHa: number, subRegionId = 'S', extra: Partial<WaterBody> = {}): WaterBody => ({
+  id,
+  name: id,
+  subRegionId,
+  lon: 0,
+  lat: 0,
+  referenceHa,
+  kind: 'lake',
+  ownPage: false,
+  line: 0,
+  ...extra,
+});
 
 /** Rows [body id, month index, water ha, observed share] as an AreaTable. */
 export function areaTable(bodies: WaterBody[], rows: Array<[string, number, number, number]>): AreaTable {

@@ -25,14 +25,27 @@ export const MINI_CONFIG = {
   issue: { month: '2020-06', published: '2020-07-02' },
   baseline: { firstYear: 2018, lastYear: 2019, minYears: 2 },
   coverage: { minObservedShare: 0.6, minRegionCoverage: 0.5 },
-  statusBands: [{ key: 'lower', fromPercent: null }, { key: 'near', fromPercent: 90 }, { key: 'higher', fromPercent: 110 }],
+  statusBands: [
+    { key: 'lower', fromPercent: null },
+    { key: 'near', fromPercent: 90 },
+    { key: 'higher', fromPercent: 110 },
+  ],
   site: { baseUrl: 'https://example.org/' },
-  inputs: { inventory: 'bodies.csv', surfaceArea: 'area.csv', quality: 'quality.csv', rainfall: 'rain.csv', field: 'field.csv', distribution: 'bins.csv', boundaries: 'regions.geojson' },
+  inputs: {
+    inventory: 'bodies.csv',
+    surfaceArea: 'area.csv',
+    quality: 'quality.csv',
+    rainfall: 'rain.csv',
+    field: 'field.csv',
+    distribution: 'bins.csv',
+    boundaries: 'regions.geojson',
+  },
 };
 
 export function miniFiles(): MiniFiles {
   const months: string[] = [];
-  for (let year = 2018; year <= 2020; year++) for (let month = 1; month <= 12; month++) if (year < 2020 || month <= 6) months.push(`${year}-${String(month).padStart(2, '0')}`);
+  for (let year = 2018; year <= 2020; year++)
+    for (let month = 1; month <= 12; month++) if (year < 2020 || month <= 6) months.push(`${year}-${String(month).padStart(2, '0')}`);
   const area = ['body_id,month,water_area_ha,observed_share,scenes'];
   const quality = ['body_id,month,parameter,unit,p10,p25,median,p75,p90,valid_pixels'];
   months.forEach((month, k) => {
@@ -41,13 +54,35 @@ export function miniFiles(): MiniFiles {
   });
   return {
     'bulletin.json': JSON.stringify(MINI_CONFIG, null, 2),
-    'bodies.csv': 'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake One,R1,10.1,50.1,10,lake,no\nB,Two Reservoir,R1,10.2,50.2,200,reservoir,yes\n',
+    'bodies.csv':
+      'body_id,name,subregion_id,lon,lat,reference_area_ha,kind,own_page\nA,Lake One,R1,10.1,50.1,10,lake,no\nB,Two Reservoir,R1,10.2,50.2,200,reservoir,yes\n',
     'area.csv': `${area.join('\n')}\n`,
     'quality.csv': `${quality.join('\n')}\n`,
     'rain.csv': `subregion_id,month,rainfall_mm\n${months.map((month) => `R1,${month},50`).join('\n')}\n`,
     'field.csv': 'body_id,date,parameter,value,unit\nA,2019-05-14,chlorophyll_a,4.2,ug/L\nB,2019-06-02,turbidity,3.1,FNU\n',
-    'bins.csv': 'subregion_id,month,parameter,bin_lower,bin_upper,pixel_count\nR1,2020-06,chlorophyll_a,1,2,40\nR1,2020-06,chlorophyll_a,2,4,60\n',
-    'regions.geojson': JSON.stringify({ type: 'FeatureCollection', features: [{ type: 'Feature', properties: { subregion_id: 'R1', name: 'Region one' }, geometry: { type: 'Polygon', coordinates: [[[10, 50], [11, 50], [11, 51], [10, 51], [10, 50]]] } }] }),
+    'bins.csv':
+      'subregion_id,month,parameter,bin_lower,bin_upper,pixel_count\nR1,2020-06,chlorophyll_a,1,2,40\nR1,2020-06,chlorophyll_a,2,4,60\n',
+    'regions.geojson': JSON.stringify({
+      type: 'FeatureCollection',
+      features: [
+        {
+          type: 'Feature',
+          properties: { subregion_id: 'R1', name: 'Region one' },
+          geometry: {
+            type: 'Polygon',
+            coordinates: [
+              [
+                [10, 50],
+                [11, 50],
+                [11, 51],
+                [10, 51],
+                [10, 50],
+              ],
+            ],
+          },
+        },
+      ],
+    }),
   };
 }
 

@@ -5,7 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { fillMessage, formatCount, formatMessage, loadMessages, sizeClassLabel } from '../../src/text/index.ts';
 
 const folder = join(import.meta.dirname, '..', '..', 'content', 'locales');
-const locales = readdirSync(folder).filter((name) => name.endsWith('.json')).map((name) => name.slice(0, -5));
+const locales = readdirSync(folder)
+  .filter((name) => name.endsWith('.json'))
+  .map((name) => name.slice(0, -5));
 const placeholders = (text: string) => [...new Set(text.match(/\{\w+\}/g) ?? [])].sort();
 
 describe('locale catalogues', () => {
@@ -57,7 +59,9 @@ describe('formatCount', () => {
   it('formatCount(messages, locale, key, count) takes the plural variant of the count in each language', () => {
     const params = (declining: number) => ({ declining, tested: 80, firstYear: 2018 });
     // French: one plan d'eau (singular verb); English: "1 of 80 … has", "2 of 80 … have".
-    expect(formatCount(loadMessages('fr'), 'fr', 'key.trendCount', 1, params(1))).toBe("1 plan d'eau sur 80 a perdu de l'eau depuis 2018. Ce résultat tient compte du grand nombre de plans d'eau testés à la fois.");
+    expect(formatCount(loadMessages('fr'), 'fr', 'key.trendCount', 1, params(1))).toBe(
+      "1 plan d'eau sur 80 a perdu de l'eau depuis 2018. Ce résultat tient compte du grand nombre de plans d'eau testés à la fois.",
+    );
     expect(formatCount(loadMessages('fr'), 'fr', 'key.trendCount', 2, params(2))).toMatch(/^2 plans d'eau sur 80 ont perdu/);
     expect(formatCount(loadMessages('en'), 'en', 'key.trendCount', 1, params(1))).toMatch(/^1 of 80 water bodies has lost/);
     expect(formatCount(loadMessages('en'), 'en', 'key.trendCount', 79, params(79))).toMatch(/^79 of 80 water bodies have lost/);

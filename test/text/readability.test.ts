@@ -10,6 +10,8 @@ describe('fleschKincaidGrade', () => {
   });
 
   it('syllablesOf(word) counts vowel groups, drops a silent final e, and counts numbers as two', () => {
-    expect(['water', 'reservoir', 'lake', 'table', 'the', 'algae', '63%', 'chlorophyll-a'].map(syllablesOf)).toEqual([2, 3, 1, 2, 1, 2, 2, 4]);
+    expect(['water', 'reservoir', 'lake', 'table', 'the', 'algae', '63%', 'chlorophyll-a'].map(syllablesOf)).toEqual([
+      2, 3, 1, 2, 1, 2, 2, 4,
+    ]);
   });
 });
