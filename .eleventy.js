@@ -6,7 +6,6 @@ const templates = fileURLToPath(new URL('./templates/', import.meta.url));
 
 export default function (eleventyConfig) {
   eleventyConfig.addPassthroughCopy({ [`${templates}assets`]: 'assets' });
-  eleventyConfig.addFilter('fixed', (value, digits = 1) => (typeof value === 'number' ? value.toFixed(digits) : value));
   eleventyConfig.setQuietMode(true);
 }
 

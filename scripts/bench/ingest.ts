@@ -11,7 +11,8 @@ import { createWriteStream, existsSync, mkdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { once } from 'node:events';
 import { ProblemList } from '../../src/ingest/problems.ts';
-import { readSurfaceArea, type WaterBody } from '../../src/ingest/tables.ts';
+import { readSurfaceArea } from '../../src/ingest/tables.ts';
+import type { WaterBody } from '../../src/ingest/tableTypes.ts';
 
 const rowsArg = process.argv.indexOf('--rows');
 const ROWS = rowsArg > 0 ? Number(process.argv[rowsArg + 1]) : 10_000_000;

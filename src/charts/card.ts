@@ -3,7 +3,7 @@
  * headline figure with its status words, drawn as SVG in the chart font and turned into PNG.
  */
 import type { BulletinModel } from '../model/index.ts';
-import { translator } from '../text/index.ts';
+import { translator, bandKey } from '../text/index.ts';
 import { escapeXml } from '../text/escape.ts';
 import { formatPercent } from '../text/format.ts';
 import { CHART_FONT, OKABE_ITO } from './palettes.ts';
@@ -31,7 +31,7 @@ export function cardSvg(model: BulletinModel): string {
   const t = translator(model.meta.locale);
   const status = model.surfaceWater.region.status;
   const figure = status.kind === 'stated' ? formatPercent(model.meta.locale, status.percentOfBaseline) : '–';
-  const words = status.kind === 'stated' ? t('card.stated', { band: t(`band.${status.bandKey}`) }) : t('card.none');
+  const words = status.kind === 'stated' ? t('card.stated', { band: t(bandKey(status.bandKey)) }) : t('card.none');
   const title = wrap(model.meta.title, 54, 1080).slice(0, 2);
   // The status words on up to two lines (French ones are longer); the figure moves up to make room.
   const wordLines = wrap(words, 40, 1080).slice(0, 2);

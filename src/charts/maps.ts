@@ -6,8 +6,8 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
-import { translator } from '../text/index.ts';
-import { formatNumber } from '../text/format.ts';
+import { translator, bandKey } from '../text/index.ts';
+import { formatDegrees, formatNumber } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';
 import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
@@ -39,9 +39,6 @@ function subRegionFeatures<T extends object>(model: BulletinModel, properties: (
 function graticule(bounds: Bounds, locale: string, step = 0.5) {
   const lines: unknown[] = [];
   const labels: Array<{ lon: number; lat: number; text: string; align: string }> = [];
-  const t = translator(locale);
-  const degrees = (value: number, positive: string, negative: string) =>
-    `${formatNumber(locale, Math.abs(value), 1)}° ${t(value < 0 ? negative : positive)}`;
   for (let lon = Math.ceil(bounds.west / step) * step; lon <= bounds.east + 1e-9; lon += step) {
     lines.push({
       type: 'Feature',
@@ -54,7 +51,7 @@ function graticule(bounds: Bounds, locale: string, step = 0.5) {
         ],
       },
     });
-    labels.push({ lon, lat: bounds.south, text: degrees(lon, 'view.east', 'view.west'), align: 'center' });
+    labels.push({ lon, lat: bounds.south, text: formatDegrees(locale, lon, 'lon', 1), align: 'center' });
   }
   for (let lat = Math.ceil(bounds.south / step) * step; lat <= bounds.north + 1e-9; lat += step) {
     lines.push({
@@ -68,7 +65,7 @@ function graticule(bounds: Bounds, locale: string, step = 0.5) {
         ],
       },
     });
-    labels.push({ lon: bounds.west, lat, text: degrees(lat, 'view.north', 'view.south'), align: 'right' });
+    labels.push({ lon: bounds.west, lat, text: formatDegrees(locale, lat, 'lat', 1), align: 'right' });
   }
   return { lines, labels };
 }
@@ -111,7 +108,8 @@ function mapSpec(model: BulletinModel, layers: unknown[]): TopLevelSpec {
 }
 
 /** Anomaly classes on the standardized anomaly; their words are `map.anomaly.<key>` in the catalogue. */
-const ANOMALY_CLASSES: Array<{ below: number; key: string }> = [
+type AnomalyClass = 'farBelow' | 'below' | 'near' | 'above' | 'farAbove';
+const ANOMALY_CLASSES: Array<{ below: number; key: AnomalyClass }> = [
   { below: -1.5, key: 'farBelow' },
   { below: -0.5, key: 'below' },
   { below: 0.5, key: 'near' },
@@ -125,10 +123,10 @@ const expressionString = (text: string) => `'${text.replace(/\\/g, '\\\\').repla
 export function gridMapChart(model: BulletinModel): ChartDefinition {
   const t = translator(model.meta.locale);
   const notEnough = t('map.notEnough');
-  const classLabel = (key: string) => t(`map.anomaly.${key}`);
+  const classLabel = (key: AnomalyClass) => t(`map.anomaly.${key}`);
   const cells = model.grid.cells.map((cell) => {
     const z = cell.standardized;
-    const label = z === null ? notEnough : classLabel((ANOMALY_CLASSES.find((entry) => z < entry.below) as { key: string }).key);
+    const label = z === null ? notEnough : classLabel((ANOMALY_CLASSES.find((entry) => z < entry.below) as { key: AnomalyClass }).key);
     const e = cell.west + cell.size;
     const n = cell.south + cell.size;
     return {
@@ -194,7 +192,7 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
 function bandStyle(model: BulletinModel) {
   const t = translator(model.meta.locale);
   const keys = model.meta.statusBands;
-  const labels = keys.map((key) => t(`band.${key}`));
+  const labels = keys.map((key) => t(bandKey(key)));
   const colours = keys.map(
     (_, k) => BROWN_BLUE_GREEN_5[Math.round((k * (BROWN_BLUE_GREEN_5.length - 1)) / Math.max(1, keys.length - 1))] as string,
   );
@@ -205,7 +203,7 @@ function bandStyle(model: BulletinModel) {
       ] as string,
   );
   const notStated = t('chart.notStated');
-  return { keys, labels, colours, shapes, notStated, t, label: (key: string | null) => (key === null ? notStated : t(`band.${key}`)) };
+  return { keys, labels, colours, shapes, notStated, t, label: (key: string | null) => (key === null ? notStated : t(bandKey(key))) };
 }
 
 export function subRegionMapChart(model: BulletinModel): ChartDefinition {

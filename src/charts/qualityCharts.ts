@@ -2,6 +2,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
 import type { QualityParameterSummary } from '../model/quality.ts';
+import type { QualityParameter } from '../ingest/index.ts';
 import { formatNumber } from '../text/format.ts';
 import { translator } from '../text/index.ts';
 import { GREY, OKABE_ITO, OUTLINE, YELLOW_GREEN_BLUE_5 } from './palettes.ts';
@@ -9,7 +10,7 @@ import { monthLabel } from '../common/months.ts';
 import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const round = (value: number | null | undefined, digits = 2) => roundOrNull(value, digits);
-const nameOf = (model: BulletinModel, parameter: { parameter: string }) =>
+const nameOf = (model: BulletinModel, parameter: { parameter: QualityParameter }) =>
   translator(model.meta.locale)(`parameter.${parameter.parameter}`);
 const slug = (parameter: QualityParameterSummary) => (parameter.parameter === 'chlorophyll_a' ? 'chlorophyll' : 'turbidity');
 

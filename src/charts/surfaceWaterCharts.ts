@@ -1,7 +1,7 @@
 /** Chart definitions for surface water, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../model/index.ts';
-import { translator } from '../text/index.ts';
+import { translator, bandKey } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
 import { monthLabel } from '../common/months.ts';
@@ -204,7 +204,7 @@ export function subRegionChart(model: BulletinModel): ChartDefinition {
     return {
       name: group.name,
       percent: round(stated?.percentOfBaseline ?? null, 0),
-      label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(`band.${stated.bandKey}`)}` : t('chart.notStated'),
+      label: stated ? `${formatPercent(locale, stated.percentOfBaseline)} · ${t(bandKey(stated.bandKey))}` : t('chart.notStated'),
     };
   });
   const lowest = [...values].filter((row) => row.percent !== null).sort((a, b) => (a.percent as number) - (b.percent as number))[0];

@@ -4,6 +4,7 @@
  * marker (NaN, null) that the table reader uses to drop the row; the row's other cells are still
  * checked, so one pass reports everything.
  */
+import type { ProblemCode } from '../common/problemCodes.ts';
 import { parseMonth } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
 
@@ -25,7 +26,7 @@ export class CellReader {
     this.rowOk = true;
   }
 
-  fail(line: number, column: string, value: string, code: string, expected: string, message: string): void {
+  fail(line: number, column: string, value: string, code: ProblemCode, expected: string, message: string): void {
     this.rowOk = false;
     this.problems.error({ code, file: this.file, line, column, value, expected, message });
   }

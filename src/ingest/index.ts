@@ -13,26 +13,13 @@ import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
-import {
-  readDistributionBins,
-  readField,
-  readInventory,
-  readQuality,
-  readRainfall,
-  readSurfaceArea,
-  type AreaTable,
-  type DistributionBin,
-  type FieldRecord,
-  type QualityTable,
-  type RainfallRecord,
-  type ReadContext,
-  type WaterBody,
-} from './tables.ts';
+import { readDistributionBins, readField, readInventory, readQuality, readRainfall, readSurfaceArea } from './tables.ts';
+import type { AreaTable, DistributionBin, FieldRecord, QualityTable, RainfallRecord, ReadContext, WaterBody } from './tableTypes.ts';
 
 export type { BulletinConfig } from './config.ts';
 export type { SubRegion } from './geojson.ts';
-export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tables.ts';
-export { QUALITY_PARAMETERS } from './tables.ts';
+export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tableTypes.ts';
+export { QUALITY_PARAMETERS } from './tableTypes.ts';
 export { describeFound, InputError, formatProblem, problemPlace, ProblemList, type Problem } from './problems.ts';
 
 export const CONFIG_FILE = 'bulletin.json';

@@ -3,11 +3,13 @@
  * stops before writing anything when the list holds an error, and warnings travel on into the
  * data & methods page.
  */
+import type { ProblemCode } from '../common/problemCodes.ts';
+
 export type Severity = 'error' | 'warning';
 
 export interface Problem {
   severity: Severity;
-  code: string;
+  code: ProblemCode;
   file: string;
   /** 1-based line in the file, counting the header as line 1; 0 when the problem is the whole file. */
   line: number;

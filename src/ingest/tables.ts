@@ -11,18 +11,6 @@ import { GrowableFloat64, GrowableInt32, SeenBits } from './columns.ts';
 import { readTable } from './csv.ts';
 import { readAreaFast, readQualityFast } from './largeTables.ts';
 
-export {
-  QUALITY_PARAMETERS,
-  QUALITY_UNITS,
-  type AreaTable,
-  type DistributionBin,
-  type FieldRecord,
-  type QualityParameter,
-  type QualityTable,
-  type RainfallRecord,
-  type ReadContext,
-  type WaterBody,
-} from './tableTypes.ts';
 import { FIRST_MONTH, monthLabel } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
 import {

@@ -6,7 +6,7 @@
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { calendarMonthOf, monthLabel } from '../common/months.ts';
-import { formatMessage, loadMessages } from '../text/index.ts';
+import { translator } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
 import { aggregate, statusMonths } from './aggregate.ts';
 import { bodySeries, type BodySeries } from './bodySeries.ts';
@@ -24,6 +24,7 @@ import {
   groupTrends,
   regionalChangePoint,
   type ChangePoint,
+  type TrendEntry,
   type TrendSummary,
   type TrendTest,
 } from './trends.ts';
@@ -89,7 +90,7 @@ export interface BulletinModel {
     name: string;
     firstMonth: number;
     filling: Array<number | null>;
-    direction: string;
+    direction: TrendEntry['direction'];
     slopePerYear: number | null;
   }>;
   grid: Grid;
@@ -226,7 +227,7 @@ function figuresOf(
 export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
   const { config, bulletinMonth } = inputs;
   const locale = options.locale ?? config.locales[0] ?? 'en';
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
+  const t = translator(locale);
   const pct = (value: number) => formatPercent(locale, value);
 
   const base = options.base;

@@ -14,7 +14,7 @@
  * 6. chlorophyll-a: bodies above the WHO 10 µg/L level (when any);
  * 7. change from a year ago (when rules 2–6 left room; at most six messages in all).
  */
-import { formatCount, formatMessage, loadMessages } from '../text/index.ts';
+import { formatCount, formatMessage, loadMessages, type MessageKey, bandKey } from '../text/index.ts';
 import { formatCalendarMonth, formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { evidenceFor, type EvidenceKey } from './evidence.ts';
 import type { Quality } from './quality.ts';
@@ -45,8 +45,8 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   const messages: KeyMessage[] = [];
   const caveats: string[] = [];
   const catalogue = loadMessages(input.locale);
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(catalogue, key, params);
-  const tCount = (key: string, count: number, params: Record<string, string | number>) =>
+  const t = (key: MessageKey, params?: Record<string, string | number>) => formatMessage(catalogue, key, params);
+  const tCount = (key: MessageKey, count: number, params: Record<string, string | number>) =>
     formatCount(catalogue, input.locale, key, count, params);
   const pct = (value: number) => formatPercent(input.locale, value);
   const month = formatMonth(input.locale, input.bulletinMonth);
@@ -56,7 +56,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   if (region.kind === 'stated') {
     messages.push({
       id: 'region',
-      text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(`band.${region.bandKey}`) }),
+      text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(bandKey(region.bandKey)) }),
       figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' },
       link: 'surface-water/#status',
     });

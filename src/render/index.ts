@@ -11,7 +11,7 @@ import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
 
 import type { BulletinModel } from '../model/index.ts';
-import { fillMessage, formatMessage, loadMessages } from '../text/index.ts';
+import { fillMessage, formatMessage, loadMessages, type MessageKey } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
 
@@ -55,7 +55,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
   const siteLocale = bundle.siteLocale ?? locale;
   const prefix = prefixOf(locale, siteLocale);
   const messages = loadMessages(locale);
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(messages, key, params);
+  const t = (key: MessageKey, params?: Record<string, string | number>) => formatMessage(messages, key, params);
   const issue = model.meta.issuePath;
   const sameLanguage = all.filter((other) => other.model.meta.locale === locale);
   const current = sameLanguage.filter((other) => !other.model.meta.issuePath.includes('/revisions/'));

@@ -7,8 +7,8 @@ import { parseMonth } from '../common/months.ts';
 import type { BulletinModel, GroupSurface, Status } from '../model/index.ts';
 import { evidenceFor } from '../model/evidence.ts';
 import type { TrendEntry } from '../model/trends.ts';
-import { formatMessage, loadMessages } from '../text/index.ts';
-import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
+import { bandKey, translator, type MessageKey } from '../text/index.ts';
+import { formatMonth, formatNumber, formatPercent, formatPosition } from '../text/format.ts';
 
 export interface TableView {
   id: string;
@@ -23,19 +23,19 @@ export interface TableView {
 function formatters(locale: string) {
   const missing = (value: number | null | undefined): value is null | undefined =>
     value === null || value === undefined || !Number.isFinite(value);
-  const t = (key: string, params?: Record<string, string | number>) => formatMessage(loadMessages(locale), key, params);
+  const t = translator(locale);
   return {
     t,
     /** A group's status in words: its band, or why none is stated. */
     statusWords: (status: Status | undefined) =>
       status?.kind === 'stated'
-        ? t(`band.${status.bandKey}`)
+        ? t(bandKey(status.bandKey))
         : status?.kind === 'low-coverage'
           ? t('view.notStated.lowCoverage')
           : t('view.notStated.shortBaseline'),
     /** One water body's own status in words; `lowCoverage` names the words for a body not seen well enough. */
-    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage = 'view.body.lowCoverage') =>
-      own?.bandKey ? t(`band.${own.bandKey}`) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline'),
+    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage: MessageKey = 'view.body.lowCoverage') =>
+      own?.bandKey ? t(bandKey(own.bandKey)) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline'),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
     signed: (value: number | null | undefined, digits = 1) =>
@@ -139,7 +139,7 @@ export function views(model: BulletinModel) {
       caption: t('view.grid.caption', { degrees: formatNumber(locale, model.grid.cellDegrees, 2), month: model.meta.monthName }),
       columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('view.standardized'), t('view.grid.state')],
       rows: model.grid.cells.map((cell) => [
-        `${formatNumber(locale, Math.abs(cell.south), 2)}° ${t(cell.south < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(cell.west), 2)}° ${t(cell.west < 0 ? 'view.west' : 'view.east')}`,
+        formatPosition(locale, cell.south, cell.west, 2),
         String(cell.bodies),
         pct(cell.fillingPercent),
         pct(cell.baselineMean),
@@ -425,10 +425,7 @@ export function bodyView(model: BulletinModel, index: number) {
     summary: [
       [t('ui.kind'), body.kind],
       [t('view.referenceArea'), `${formatNumber(locale, body.referenceHa, 1)} ha`],
-      [
-        t('view.location'),
-        `${formatNumber(locale, Math.abs(body.lat), 3)}° ${t(body.lat < 0 ? 'view.south' : 'view.north')}, ${formatNumber(locale, Math.abs(body.lon), 3)}° ${t(body.lon < 0 ? 'view.west' : 'view.east')}`,
-      ],
+      [t('view.location'), formatPosition(locale, body.lat, body.lon, 3)],
       [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
       [t('ui.status'), bodyStatusWords(own, 'view.body.lowCoverageMonth')],
       [

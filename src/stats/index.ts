@@ -18,7 +18,6 @@ export { sampleStandardDeviation } from './sampleStandardDeviation.ts';
 export { seasonalKendall, type SeasonalKendallResult, type SeasonResult } from './seasonalKendall.ts';
 export { selectKth } from './selectKth.ts';
 export { sensSlope, type SensSlopeResult } from './sensSlope.ts';
-export { tieCorrection } from './tieCorrection.ts';
 export { trophicClass, TROPHIC_BOUNDS, type TrophicClass } from './trophicClass.ts';
 export { trophicStateIndex } from './trophicStateIndex.ts';
 export { chiSquareSurvival } from './chiSquareSurvival.ts';

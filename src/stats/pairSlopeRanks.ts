@@ -52,7 +52,7 @@ export function pairSlopeRanks(t: Float64Array, y: Float64Array, n: number, rank
   if (!(minStep > 0) || !Number.isFinite(maxAbsY + maxAbsT)) return null;
   const tolerance = (theta: number) => (16 * ROUNDOFF * (maxAbsY + Math.abs(theta) * maxAbsT)) / minStep + 4 * ROUNDOFF * Math.abs(theta);
 
-  // 1. The bracket from a sample of pairs, drawn uniformly by a fixed xorshift generator.
+  // 1. The bracket from a sample of pairs, drawn uniformly by an xorshift generator seeded from the data.
   const size = Math.min(4096, Math.max(128, Math.round(pairs ** (2 / 3))));
   const sample = scratch('slope-sample', size);
   // Seeded from the data, so that the samples of different series are independent draws (a

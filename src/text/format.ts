@@ -1,4 +1,5 @@
 /** Numbers and dates for people, through Intl; UTC everywhere so output never depends on the machine. */
+import { translator } from './index.ts';
 /** Intl formatters are costly to make (tens of microseconds) and pages format hundreds of thousands of numbers: one per style. */
 const numberFormats = new Map<string, Intl.NumberFormat>();
 
@@ -46,4 +47,16 @@ export function formatDate(locale: string, isoDate: string): string {
     year: 'numeric',
     timeZone: 'UTC',
   }).format(new Date(`${isoDate}T00:00:00Z`));
+}
+
+/** A latitude or longitude as "12.50° S" (its hemisphere in the language's words), to `digits` decimals. */
+export function formatDegrees(locale: string, value: number, axis: 'lat' | 'lon', digits: number): string {
+  const t = translator(locale);
+  const hemisphere = axis === 'lat' ? (value < 0 ? 'view.south' : 'view.north') : value < 0 ? 'view.west' : 'view.east';
+  return `${formatNumber(locale, Math.abs(value), digits)}° ${t(hemisphere)}`;
+}
+
+/** A point as "latitude, longitude", each with its hemisphere. */
+export function formatPosition(locale: string, lat: number, lon: number, digits: number): string {
+  return `${formatDegrees(locale, lat, 'lat', digits)}, ${formatDegrees(locale, lon, 'lon', digits)}`;
 }

@@ -4,8 +4,22 @@
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import type english from '../../content/locales/en.json';
 
 export type Messages = Record<string, string>;
+
+/**
+ * A key of the catalogues (the English one is the reference; every other has the same keys, which
+ * test/text/locales.test.ts checks): a misspelt key is a compile error, not a failed build.
+ * Keys made from configuration (a status band's name) go through `configuredKey`.
+ */
+export type MessageKey = keyof typeof english;
+
+/** A key built from configuration, such as `band.<key>`: checked when the configuration is read (config-band-words), not here. */
+export const configuredKey = (key: string) => key as MessageKey;
+
+/** The catalogue key of a configured status band's name. */
+export const bandKey = (band: string) => configuredKey(`band.${band}`);
 
 const cache = new Map<string, Messages>();
 
@@ -20,7 +34,7 @@ export function loadMessages(locale: string): Messages {
 }
 
 /** Fills `{name}` placeholders; a missing key or placeholder is a programming error and throws. */
-export function formatMessage(messages: Messages, key: string, params: Record<string, string | number> = {}): string {
+export function formatMessage(messages: Messages, key: MessageKey, params: Record<string, string | number> = {}): string {
   const template = messages[key];
   if (template === undefined) throw new RangeError(`no message ${key}`);
   return fillMessage(template, params, key);
@@ -34,12 +48,12 @@ export function formatMessage(messages: Messages, key: string, params: Record<st
 export function formatCount(
   messages: Messages,
   locale: string,
-  key: string,
+  key: MessageKey,
   count: number,
   params: Record<string, string | number> = {},
 ): string {
   const variant = `${key}.${new Intl.PluralRules(locale).select(count)}`;
-  return formatMessage(messages, messages[variant] === undefined ? key : variant, params);
+  return formatMessage(messages, messages[variant] === undefined ? key : (variant as MessageKey), params);
 }
 
 /** Fills the `{name}` placeholders of a message already looked up (templates look messages up themselves). */
@@ -65,7 +79,7 @@ export function sizeClassLabel(locale: string, fromHa: number, toHa: number | nu
 }
 
 /** `t(key, params)` for one locale: the catalogue looked up once. */
-export function translator(locale: string): (key: string, params?: Record<string, string | number>) => string {
+export function translator(locale: string): (key: MessageKey, params?: Record<string, string | number>) => string {
   const messages = loadMessages(locale);
   return (key, params) => formatMessage(messages, key, params);
 }

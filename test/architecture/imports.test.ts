@@ -103,6 +103,11 @@ describe('the one-way flow of the source', () => {
     const wrong: string[] = [];
     for (const [file, targets] of graph) {
       for (const target of targets) {
+        // Data outside src/ (the catalogues' JSON, for their key type) is no stage.
+        if (target.startsWith('..')) {
+          if (!target.endsWith('.json')) wrong.push(`${file} → ${target}: imports code from outside src/`);
+          continue;
+        }
         const problem = arrowProblem(folderOf(join(SRC, file)), folderOf(join(SRC, target)));
         if (problem) wrong.push(`${file} → ${target}: ${problem}`);
       }

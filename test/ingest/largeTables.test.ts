@@ -6,7 +6,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readAreaFast, readQualityFast } from '../../src/ingest/largeTables.ts';
 import { ProblemList } from '../../src/ingest/problems.ts';
-import { readInventory, readQuality, readSurfaceArea, type ReadContext } from '../../src/ingest/tables.ts';
+import { readInventory, readQuality, readSurfaceArea } from '../../src/ingest/tables.ts';
+import type { ReadContext } from '../../src/ingest/tableTypes.ts';
 import { scanRange } from '../../src/ingest/plainScan.ts';
 import { miniFiles, writeMini } from '../support/miniBulletin.ts';
 

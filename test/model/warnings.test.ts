@@ -30,7 +30,7 @@ describe('warningText', () => {
   it('warningText keeps the input check English line, marked en, for a warning the catalogue has no sentence for', () => {
     const other: Problem = {
       severity: 'warning',
-      code: 'not-in-the-catalogue',
+      code: 'value-out-of-range', // a code whose warning has no sentence in the catalogue
       file: 'bulletin.json',
       line: 0,
       column: 'x',
