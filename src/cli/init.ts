@@ -13,15 +13,10 @@ import { isCalendarDate, LOCALES } from '../ingest/config.ts';
 import { ARCHIVE_FOLDER } from '../ingest/issues.ts';
 import { isLink } from '../common/paths.ts';
 import { HELP, UsageError } from './usage.ts';
+import { placeholderForeword } from '../text/index.ts';
 
-const FOREWORD = `Write the foreword of this issue here, in Markdown. It appears at the top of the overview.
-`;
-
-/** Foreword stubs for the other languages, each in its own language (content/foreword.<locale>.md). */
-const FOREWORD_IN: Record<string, string> = {
-  fr: `Écrivez ici l'avant-propos de ce numéro en français, en Markdown. Il apparaît en haut de la synthèse.
-`,
-};
+/** content/foreword.md starts as the English placeholder; content/foreword.<locale>.md in its own language. */
+const FOREWORD = placeholderForeword('en');
 
 /** Sample tables: deterministic, invented, just enough for every page to have content. */
 function sampleFiles(month: string, locales: string[]): Record<string, string> {
@@ -103,7 +98,7 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
     'data/rainfall.csv': `${rain.join('\n')}\n`,
     'data/subregions.geojson': `${JSON.stringify(geojson)}\n`,
     'content/foreword.md': FOREWORD,
-    ...Object.fromEntries(locales.slice(1).map((locale) => [`content/foreword.${locale}.md`, FOREWORD_IN[locale] ?? FOREWORD])),
+    ...Object.fromEntries(locales.slice(1).map((locale) => [`content/foreword.${locale}.md`, placeholderForeword(locale)])),
     'README.md': `# ${config.title}\n\nA bulletin folder made by \`limnopress init\`. The tables in \`data/\` are invented samples: replace them with your own (formats in limnopress's docs/input-format.md), edit \`bulletin.json\`, then run \`limnopress check .\` and \`limnopress build . --out _site\`. The issue is marked as a draft until you set \`issue.draft\` to false.\n`,
   };
 }
@@ -210,7 +205,7 @@ export async function runNewIssue(args: string[]): Promise<number> {
   // Last month's translated forewords are archived with it; the new issue gets fresh stubs.
   for (const name of readdirSync(join(folder, 'content'))) {
     const locale = /^foreword\.([a-z]{2})\.md$/.exec(name)?.[1];
-    if (locale) writeFileSync(join(folder, 'content', name), FOREWORD_IN[locale] ?? FOREWORD);
+    if (locale) writeFileSync(join(folder, 'content', name), placeholderForeword(locale));
   }
   process.stdout.write(
     `Archived ${monthLabel(current)} in ${archived}. The folder now holds the ${next} issue (a draft): add the ${next} rows to the tables, then run limnopress check ${folder}.\n`,

@@ -21,6 +21,7 @@ export const PROBLEM_CODES = {
   'config-not-json': 'bulletin.json is not JSON',
   'config-status-bands': 'the status bands overlap, leave gaps or are out of order',
   'config-unknown-key': 'bulletin.json holds a key the tool does not know',
+  'content-placeholder': 'a published issue still holds the placeholder foreword of init',
   'content-untranslated': 'an editorial text has no version in a configured language',
   'date-invalid': 'a date that is not YYYY-MM-DD',
   'decimal-comma-detected': 'a decimal comma read as a decimal point',

@@ -10,7 +10,10 @@ import { loadMessages } from '../text/index.ts';
 import { isolateBidi } from '../text/bidi.ts';
 
 /** The languages with a catalogue in content/locales/. */
-export const LOCALES = ['en', 'fr'] as const;
+import { LOCALE_CODES } from '../text/locales.ts';
+
+/** The configurable languages (src/text/locales.ts). */
+export const LOCALES = LOCALE_CODES;
 
 /** The years a bulletin month may fall in: the satellite era, and no further ahead than a plan reaches. */
 export const MONTH_YEARS = { first: 1972, last: 2100 } as const;

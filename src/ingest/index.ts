@@ -4,6 +4,8 @@
  */
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
+import { placeholderForeword } from '../text/index.ts';
+import { LOCALE_CODES } from '../text/locales.ts';
 import { ConfinementError, resolveInside } from './confine.ts';
 import { isLink } from '../common/paths.ts';
 import { HashCache, sha256File } from '../common/files.ts';
@@ -233,6 +235,22 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
           });
         else throw error;
       }
+    }
+  }
+  // A published issue must not carry the placeholder that init or new-issue wrote.
+  if (!config.issue.draft) {
+    const placeholders = new Set(LOCALE_CODES.map((locale) => placeholderForeword(locale).trim()));
+    for (const [name, text] of Object.entries(content)) {
+      if (!name.startsWith('foreword') || !placeholders.has(text.trim())) continue;
+      problems.error({
+        code: 'content-placeholder',
+        file: label(`content/${name}.md`),
+        line: 1,
+        column: '',
+        value: text.trim(),
+        expected: 'the foreword of this issue, or "draft": true in issue of bulletin.json',
+        message: 'the foreword is still the placeholder that limnopress init wrote; write the foreword, or keep the issue a draft',
+      });
     }
   }
   return content;

@@ -11,6 +11,7 @@ import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
 
 import type { BulletinModel } from '../model/index.ts';
+import { localeEntry } from '../text/locales.ts';
 import { fillMessage, formatMessage, loadMessages, type MessageKey } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
@@ -36,14 +37,13 @@ export interface IssueBundle {
 }
 
 /** Each language's own name, for the language switch (in that language, as readers look for it). */
-const LANGUAGE_NAMES: Record<string, string> = { en: 'English', fr: 'Français' };
 
 /** A language as the switch, hreflang and Open Graph links need it. */
 function languageOf(locale: string, siteLocale: string) {
   return {
     locale,
     prefix: prefixOf(locale, siteLocale),
-    name: LANGUAGE_NAMES[locale] ?? locale,
+    name: localeEntry(locale)?.name ?? locale,
     ogLocale: loadMessages(locale)['site.ogLocale'],
   };
 }

@@ -83,3 +83,6 @@ export function translator(locale: string): (key: MessageKey, params?: Record<st
   const messages = loadMessages(locale);
   return (key, params) => formatMessage(messages, key, params);
 }
+
+/** The placeholder foreword `limnopress init` and `new-issue` write, in one language (ingest refuses it in an issue that is not a draft). */
+export const placeholderForeword = (locale: string) => `${formatMessage(loadMessages(locale), 'init.foreword')}\n`;

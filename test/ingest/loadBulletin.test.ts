@@ -6,6 +6,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
+import { placeholderForeword } from '../../src/text/index.ts';
 import { MINI_CONFIG, miniFiles, writeMini, type MiniFiles } from '../support/miniBulletin.ts';
 
 /** `severity code file:line column` for each problem, sorted. */
@@ -243,5 +244,33 @@ describe('loadBulletin and translations', () => {
     expect(problems.sorted().map((p) => `${p.severity} ${p.code} ${p.file} ${p.value} ${p.expected}`)).toEqual([
       'warning content-untranslated content/foreword.md fr content/foreword.fr.md',
     ]);
+  });
+});
+
+describe('loadBulletin and the placeholder foreword', () => {
+  const placeholderFolder = (draft: boolean) => {
+    const folder = writeMini({
+      'bulletin.json': config((c) => Object.assign(c, { locales: ['en', 'fr'], issue: { ...c.issue, draft } })),
+    });
+    mkdirSync(join(folder, 'content'));
+    // The bytes init writes (src/cli/init.ts), with the line ending an editor on another system might add.
+    writeFileSync(join(folder, 'content', 'foreword.md'), placeholderForeword('en'));
+    writeFileSync(join(folder, 'content', 'foreword.fr.md'), placeholderForeword('fr').replace('\n', '\r\n'));
+    return folder;
+  };
+
+  it('refuses a published issue whose foreword is still the placeholder, in each language, naming the file and the fix', async () => {
+    const { inputs, problems } = await loadBulletin(placeholderFolder(false));
+    expect(inputs).toBeNull();
+    expect(problems.sorted().map((p) => `${p.severity} ${p.code} ${p.file}:${p.line} ${p.expected}`)).toEqual([
+      'error content-placeholder content/foreword.fr.md:1 the foreword of this issue, or "draft": true in issue of bulletin.json',
+      'error content-placeholder content/foreword.md:1 the foreword of this issue, or "draft": true in issue of bulletin.json',
+    ]);
+  });
+
+  it('lets a draft keep the placeholder', async () => {
+    const { inputs, problems } = await loadBulletin(placeholderFolder(true));
+    expect(inputs).not.toBeNull();
+    expect(problems.errors).toEqual([]);
   });
 });

@@ -2,6 +2,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { LOCALE_CODES } from '../../src/text/locales.ts';
 import { configuredKey, fillMessage, formatCount, formatMessage, loadMessages, sizeClassLabel } from '../../src/text/index.ts';
 
 const folder = join(import.meta.dirname, '..', '..', 'content', 'locales');
@@ -11,7 +12,8 @@ const locales = readdirSync(folder)
 const placeholders = (text: string) => [...new Set(text.match(/\{\w+\}/g) ?? [])].sort();
 
 describe('locale catalogues', () => {
-  it('include English and French', () => {
+  it('are exactly the languages of the registry (src/text/locales.ts), English and French among them', () => {
+    expect([...locales].sort()).toEqual([...LOCALE_CODES].sort());
     expect(locales).toEqual(expect.arrayContaining(['en', 'fr']));
   });
 
