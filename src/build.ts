@@ -9,7 +9,8 @@ import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
 import { InputError, type BulletinInputs, type Problem } from './ingest/index.ts';
 import { monthLabel } from './common/months.ts';
 import { loadIssues } from './ingest/issues.ts';
-import { buildModel, prepareModel, trendSeriesCount, type BulletinModel } from './model/index.ts';
+import { issueFigures, prepareModel, trendSeriesCount } from './model/index.ts';
+import { wordModel, type BulletinModel } from './wording/index.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
@@ -160,18 +161,15 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
         progress.advance((seriesDone += done), `trend tests, ${monthLabel(inputs.bulletinMonth)}`),
       );
       progress.advance(seriesDone, `the rest of ${monthLabel(inputs.bulletinMonth)}`);
-      // The statistics are shared: the first language's model carries the figures, every other
-      // language reuses them and gets its own words, dates and numbers.
-      let first: BulletinModel | undefined;
-      for (const locale of inputs.config.locales) {
-        const model = buildModel(inputs, own, toolVersion(), {
+      // The figures once per issue; each language's model holds them by reference with its own words.
+      const figures = issueFigures(inputs, prepared);
+      for (const [l, locale] of inputs.config.locales.entries()) {
+        const model = wordModel(inputs, figures, own, toolVersion(), {
           issuePath: `${prefixOf(locale, siteLocale)}${paths[k] as string}`,
-          prepared,
           locale,
-          base: first,
         });
         localized.push({ model, issue: k, inputsPath: paths[k] as string, firstLocale: inputs.config.locales[0] as string });
-        if (first === undefined) models.push((first = model));
+        if (l === 0) models.push(model);
       }
       // The model holds everything later stages need: the tables can go (a national inventory's are gigabytes).
       loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };

@@ -2,7 +2,7 @@
  * The issue's preview card (1200 × 630, the size link previews expect): title, month, and the
  * headline figure with its status words, drawn as SVG in the chart font and turned into PNG.
  */
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
 import { escapeXml } from '../text/escape.ts';
 import { formatPercent } from '../text/format.ts';

@@ -1,5 +1,5 @@
 /** Stage 3, charts: chart definitions from the model, rendered to accessible SVG and PNG. */
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { cardSvg } from './card.ts';
 import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
 import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';

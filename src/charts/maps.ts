@@ -5,7 +5,7 @@
  * as d3-geo wants).
  */
 import type { TopLevelSpec } from 'vega-lite';
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
 import { formatDegrees, formatNumber } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';

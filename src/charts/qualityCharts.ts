@@ -1,6 +1,6 @@
 /** Chart definitions for water quality and its field checks, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import type { QualityParameterSummary } from '../model/quality.ts';
 import type { QualityParameter } from '../ingest/index.ts';
 import { formatNumber } from '../text/format.ts';

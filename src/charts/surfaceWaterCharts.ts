@@ -1,6 +1,6 @@
 /** Chart definitions for surface water, built from the model alone. */
 import type { TopLevelSpec } from 'vega-lite';
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';

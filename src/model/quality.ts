@@ -84,6 +84,15 @@ export interface QualityParameterSummary {
   }>;
 }
 
+/** A parameter's figures alone: the size-class labels and season names are the wording stage's (wordQuality). */
+export type QualityParameterFigures = Omit<QualityParameterSummary, 'bySizeClass' | 'seasonal'> & {
+  bySizeClass: Array<Omit<QualityParameterSummary['bySizeClass'][number], 'label'>>;
+  seasonal: Array<Omit<QualityParameterSummary['seasonal'][number], 'seasonName' | 'sizeClass'>>;
+};
+
+/** Water quality as figures, the same in every language. */
+export type QualityFigures = Omit<Quality, 'parameters'> & { parameters: QualityParameterFigures[] };
+
 export interface Quality {
   methods: string[];
   parameters: QualityParameterSummary[];
@@ -131,8 +140,7 @@ function parameterSummary(
   parameter: QualityParameter,
   data: ParameterMonths,
   prepared: Array<TrendTest | null> | undefined,
-  locale: string,
-): QualityParameterSummary {
+): QualityParameterFigures {
   const { bodies, config, bulletinMonth } = inputs;
   const reference = referenceAreasOf(inputs);
   // Month-major copy of the body values: each month's values are then one contiguous view.
@@ -173,8 +181,7 @@ function parameterSummary(
       (value, k) => Number.isFinite(value) && (reference[k] as number) >= fromHa && (toHa === null || (reference[k] as number) < toHa),
     );
     const q = (p: number) => (values.length > 0 ? quantile(values, p) : null);
-    const label = sizeClassLabel(locale, fromHa, toHa);
-    return { label, fromHa, toHa, bodies: values.length, p10: q(0.1), p25: q(0.25), p50: q(0.5), p75: q(0.75), p90: q(0.9) };
+    return { fromHa, toHa, bodies: values.length, p10: q(0.1), p25: q(0.25), p50: q(0.5), p75: q(0.75), p90: q(0.9) };
   });
 
   const months = Int32Array.from({ length: data.months }, (_, k) => data.firstMonth + k);
@@ -214,7 +221,7 @@ function parameterSummary(
       falseDiscoveryRate: config.trends.falseDiscoveryRate,
       entries,
     },
-    seasonal: seasonalClassTrends(inputs, data, config, locale),
+    seasonal: seasonalClassTrends(inputs, data, config),
   };
 }
 
@@ -235,13 +242,8 @@ function medianTrend(monthly: Array<{ month: number; median: number | null }>): 
  * seasonal mean, year by year, tested with Mann-Kendall and Sen's slope per year (years with no
  * value are left out).
  */
-function seasonalClassTrends(
-  inputs: BulletinInputs,
-  data: ParameterMonths,
-  config: BulletinConfig,
-  locale: string,
-): QualityParameterSummary['seasonal'] {
-  const out: QualityParameterSummary['seasonal'] = [];
+function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig): QualityParameterFigures['seasonal'] {
+  const out: QualityParameterFigures['seasonal'] = [];
   const reference = Array.from(referenceAreasOf(inputs));
   const firstYear = Math.floor(data.firstMonth / 12);
   const lastYear = Math.floor(inputs.bulletinMonth / 12);
@@ -276,12 +278,9 @@ function seasonalClassTrends(
           values.push(value);
         }
       }
-      const label = sizeClassLabel(locale, fromHa, toHa);
       const test = mannKendall(values);
       out.push({
         season: season.key,
-        seasonName: seasonName(config, season.key, locale),
-        sizeClass: label,
         fromHa,
         toHa,
         years: years.length,
@@ -326,24 +325,25 @@ function seasonName(config: BulletinConfig, key: string, locale: string): string
   return names?.[locale as keyof typeof names] ?? key;
 }
 
-/** The same figures with the words of another language: size-class labels and season names. */
-export function relabelQuality(base: Quality | null, config: BulletinConfig, locale: string): Quality | null {
-  if (!base) return null;
+/** The wording stage's part: the figures with the size-class labels and season names of one language. */
+export function wordQuality(figures: QualityFigures | null, config: BulletinConfig, locale: string): Quality | null {
+  if (!figures) return null;
   return {
-    ...base,
-    parameters: base.parameters.map((parameter) => ({
+    ...figures,
+    parameters: figures.parameters.map((parameter) => ({
       ...parameter,
-      bySizeClass: parameter.bySizeClass.map((entry) => ({ ...entry, label: sizeClassLabel(locale, entry.fromHa, entry.toHa) })),
-      seasonal: parameter.seasonal.map((entry) => ({
-        ...entry,
-        seasonName: seasonName(config, entry.season, locale),
+      bySizeClass: parameter.bySizeClass.map((entry) => ({ label: sizeClassLabel(locale, entry.fromHa, entry.toHa), ...entry })),
+      seasonal: parameter.seasonal.map(({ season, ...entry }) => ({
+        season,
+        seasonName: seasonName(config, season, locale),
         sizeClass: sizeClassLabel(locale, entry.fromHa, entry.toHa),
+        ...entry,
       })),
     })),
   };
 }
 
-export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null, locale = 'en'): Quality | null {
+export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | null): QualityFigures | null {
   if (!inputs.quality || inputs.quality.length === 0) return null;
   const byParameter =
     prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
@@ -359,7 +359,7 @@ export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | nul
   const withValue = now.filter(Number.isFinite);
   return {
     methods: ['quality-medians', 'quality-classes', 'trend-bodies', 'trophic', 'who-levels'],
-    parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests, locale)),
+    parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests)),
     trophic: {
       bodies: trophicBodies,
       counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({

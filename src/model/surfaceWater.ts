@@ -30,6 +30,9 @@ export interface SizeClassSurface extends GroupSurface {
   baselineLossPercent: number | null;
 }
 
+/** Surface water as figures, the same in every language: size classes without their names (wordSurface adds them). */
+export type SurfaceFigures = Omit<SurfaceWater, 'sizeClasses'> & { sizeClasses: Array<Omit<SizeClassSurface, 'name'>> };
+
 export interface SurfaceWater {
   /** Ids in METHODS of the methods behind these figures. */
   methods: string[];
@@ -87,15 +90,19 @@ export function sizeClassBounds(boundaries: number[], openBottom: boolean): Arra
   return edges.map((fromHa, k) => ({ fromHa, toHa: edges[k + 1] ?? null }));
 }
 
-/** The same figures with the words of another language: the size-class names. */
-export function relabelSurface(base: SurfaceWater, locale: string): SurfaceWater {
+/** The wording stage's part: the figures with the size-class names of one language. */
+export function wordSurface(figures: SurfaceFigures, locale: string): SurfaceWater {
   return {
-    ...base,
-    sizeClasses: base.sizeClasses.map((entry) => ({ ...entry, name: sizeClassLabel(locale, entry.fromHa, entry.toHa, true) })),
+    ...figures,
+    sizeClasses: figures.sizeClasses.map(({ id, ...entry }) => ({
+      id,
+      name: sizeClassLabel(locale, entry.fromHa, entry.toHa, true),
+      ...entry,
+    })),
   };
 }
 
-export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale = 'en'): SurfaceWater {
+export function surfaceWater(inputs: BulletinInputs, series: BodySeries): SurfaceFigures {
   const all = inputs.bodies.map((_, k) => k);
   const region = group(inputs, series, 'region', inputs.config.region.name, all);
   const subRegions = inputs.subRegions.map((subRegion) =>
@@ -112,8 +119,7 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries, locale 
       const ha = inputs.bodies[k]?.referenceHa ?? 0;
       return ha >= fromHa && (toHa === null || ha < toHa);
     });
-    const label = sizeClassLabel(locale, fromHa, toHa, true);
-    const base = group(inputs, series, `size-${fromHa}`, label, members);
+    const { name: _name, ...base } = group(inputs, series, `size-${fromHa}`, '', members);
     const status = base.status;
     return {
       ...base,

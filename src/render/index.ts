@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
 
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { localeEntry } from '../text/locales.ts';
 import { fillMessage, formatMessage, loadMessages, type MessageKey } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';

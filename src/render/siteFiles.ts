@@ -7,7 +7,7 @@
 import { join } from 'node:path';
 import { listFiles, sha256, sha256File } from '../common/files.ts';
 import { escapeXml } from '../text/escape.ts';
-import type { BulletinModel } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 
 export const MANIFEST = 'manifest.json';
 

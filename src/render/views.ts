@@ -4,7 +4,8 @@
  */
 import { slugOf } from '../text/slug.ts';
 import { parseMonth } from '../common/months.ts';
-import type { BulletinModel, GroupSurface, Status } from '../model/index.ts';
+import type { GroupSurface, Status } from '../model/index.ts';
+import type { BulletinModel } from '../wording/index.ts';
 import { evidenceFor } from '../model/evidence.ts';
 import type { TrendEntry } from '../model/trends.ts';
 import { bandKey, translator, type MessageKey } from '../text/index.ts';

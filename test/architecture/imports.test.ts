@@ -13,7 +13,7 @@ const SRC = join(import.meta.dirname, '..', '..', 'src');
 /** Leaves: every stage may import them; they import only leaves. */
 const LEAVES = new Set(['common', 'text', 'parallel']);
 /** The stages, left to right; files directly in src/ (build.ts, progress.ts) and cli/ come last. */
-const STAGES = ['ingest', 'stats', 'model', 'charts', 'render', 'site', '.', 'cli'];
+const STAGES = ['ingest', 'stats', 'model', 'wording', 'charts', 'render', 'site', '.', 'cli'];
 
 function sourceFiles(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((entry) =>

@@ -11,7 +11,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { CARD_HEIGHT, CARD_WIDTH, cardSvg } from '../../src/charts/card.ts';
 import { svgToPng } from '../../src/charts/render.ts';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel } from '../../src/model/index.ts';
+import { buildModel } from '../../src/wording/index.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 
 let svg: string;

@@ -11,7 +11,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { chartDefinitions } from '../../src/charts/index.ts';
 import { renderChart, type ChartDefinition } from '../../src/charts/render.ts';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel, type BulletinModel } from '../../src/model/index.ts';
+import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 
 // The schema file is not in vega-lite's exports map: find it beside the package's entry point.

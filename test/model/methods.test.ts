@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel } from '../../src/model/index.ts';
+import { buildModel } from '../../src/wording/index.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 
 describe('methods', () => {

@@ -1,7 +1,8 @@
 /** The bulletin model on the small test bulletin: each figure kind checked by hand. */
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel } from '../../src/model/index.ts';
+import { issueFigures } from '../../src/model/index.ts';
+import { buildModel, wordModel } from '../../src/wording/index.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 import { miniFiles, writeMini, type MiniFiles } from '../support/miniBulletin.ts';
 
@@ -98,14 +99,20 @@ describe('pages of their own', () => {
   });
 });
 
-describe('buildModel in a second language', () => {
-  it('buildModel(inputs, …, { locale, base }) equals the model built from scratch in that language, sharing the figures', async () => {
+describe('the wording stage in a second language', () => {
+  it('wordModel(inputs, figures, …, { locale }) equals the model built from scratch in that language, sharing the figures', async () => {
     const { inputs, problems } = await loadBulletin(EXAMPLE);
     if (!inputs) throw new Error('example does not load');
-    const english = buildModel(inputs, problems.warnings, 'test', { locale: 'en' });
+    const figures = issueFigures(inputs);
+    const before = JSON.stringify(figures);
+    const english = wordModel(inputs, figures, problems.warnings, 'test', { locale: 'en' });
     const scratch = buildModel(inputs, problems.warnings, 'test', { locale: 'fr' });
-    const shared = buildModel(inputs, problems.warnings, 'test', { locale: 'fr', base: english });
+    const shared = wordModel(inputs, figures, problems.warnings, 'test', { locale: 'fr' });
     expect(JSON.stringify(shared)).toBe(JSON.stringify(scratch));
+    // Wording leaves the figures as they were, and they hold no words of either language.
+    expect(JSON.stringify(figures)).toBe(before);
+    expect(before).not.toMatch(/10,000 ha|10\u202f000 ha|over |plus de /);
+    expect(Object.keys(figures.surface.sizeClasses[0] ?? {})).not.toContain('name');
     // Shared by reference, not copied: a second language adds words, not another copy of the figures.
     expect(shared.bodyStatus).toBe(english.bodyStatus);
     expect(shared.trends).toBe(english.trends);

@@ -7,7 +7,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel, prepareModel } from '../../src/model/index.ts';
+import { prepareModel } from '../../src/model/index.ts';
+import { buildModel } from '../../src/wording/index.ts';
 import { closeSharedPool, WorkerPool } from '../../src/parallel/pool.ts';
 import { generateNational } from '../../scripts/bench/national.ts';
 

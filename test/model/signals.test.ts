@@ -5,7 +5,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
-import { buildModel, type BulletinModel } from '../../src/model/index.ts';
+import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
 import { fleschKincaidGrade } from '../../src/text/readability.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Problem } from '../../src/ingest/index.ts';
-import { warningText } from '../../src/model/warnings.ts';
+import { warningText } from '../../src/wording/warnings.ts';
 
 const above: Problem = {
   severity: 'warning',

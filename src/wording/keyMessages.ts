@@ -16,10 +16,10 @@
  */
 import { formatCount, formatMessage, loadMessages, type MessageKey, bandKey } from '../text/index.ts';
 import { formatCalendarMonth, formatMonth, formatNumber, formatPercent } from '../text/format.ts';
-import { evidenceFor, type EvidenceKey } from './evidence.ts';
-import type { Quality } from './quality.ts';
-import type { SurfaceWater } from './surfaceWater.ts';
-import type { TrendSummary, TrendTest } from './trends.ts';
+import { evidenceFor, type EvidenceKey } from '../model/evidence.ts';
+import type { Quality } from '../model/quality.ts';
+import type { SurfaceWater } from '../model/surfaceWater.ts';
+import type { TrendSummary, TrendTest } from '../model/trends.ts';
 
 export interface KeyMessage {
   id: string;

@@ -1,0 +1,185 @@
+/**
+ * Stage 4, wording: turns an issue's figures (src/model/) and one locale into the bulletin model:
+ * the figures, by reference, with every sentence, name, date and number of that language beside
+ * them: key messages, notices, method texts, warnings, size-class and season names. The model is
+ * written out as JSON beside the site, one per language; charts and pages read it.
+ */
+import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
+import { calendarMonthOf, monthLabel } from '../common/months.ts';
+import { translator } from '../text/index.ts';
+import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
+import { issueFigures, type IssueFigures, type PreparedModel } from '../model/index.ts';
+import { methodTexts, type MethodId } from '../model/methods.ts';
+import { wordQuality, type Quality } from '../model/quality.ts';
+import { wordSurface, type SurfaceWater } from '../model/surfaceWater.ts';
+import { keyMessages, type KeyMessage } from './keyMessages.ts';
+import { warningText, type ShownWarning } from './warnings.ts';
+
+export type { KeyMessage } from './keyMessages.ts';
+export type { Status, GroupMonth, SurfaceWater, GroupSurface, SizeClassSurface } from '../model/index.ts';
+
+export interface Notice {
+  kind: 'notice' | 'caveat' | 'caution';
+  text: string;
+}
+
+export interface BulletinModel {
+  meta: {
+    title: string;
+    publisher: string;
+    region: string;
+    locale: string;
+    month: string;
+    monthName: string;
+    calendarMonthName: string;
+    revision: number;
+    published: string;
+    publishedName: string;
+    draft: boolean;
+    baseUrl: string;
+    /** Site path of the issue, with leading and trailing slash. */
+    issuePath: string;
+    /** Correction notes in the model's language where the configuration gives one; `lang` says which. */
+    corrections: Array<{ date: string; dateName: string; text: string; lang: string }>;
+    baseline: { firstYear: number; lastYear: number; minYears: number };
+    minObservedShare: number;
+    minRegionCoverage: number;
+    maxFilledGap: number;
+    firstMonth: string;
+    toolVersion: string;
+    /** The configured status band keys, lowest first. */
+    statusBands: string[];
+    /** site.bodiesPerListPage. */
+    bodiesPerListPage: number;
+  };
+  bodies: IssueFigures['bodies'];
+  surfaceWater: SurfaceWater;
+  bodyStatus: IssueFigures['bodyStatus'];
+  monitored: IssueFigures['monitored'];
+  grid: IssueFigures['grid'];
+  trends: IssueFigures['trends'];
+  quality: Quality | null;
+  rainfall: IssueFigures['rainfall'];
+  boundaries: IssueFigures['boundaries'];
+  validation: IssueFigures['validation'];
+  keyMessages: KeyMessage[];
+  /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
+  headline: string;
+  notices: Notice[];
+  methods: Record<MethodId, string>;
+  /** The input check's warnings, worded in the model's language where the catalogue can. */
+  warnings: ShownWarning[];
+  inputs: InputFile[];
+}
+
+export interface WordingOptions {
+  /** Site path of the issue; by default /issues/YYYY-MM/. Earlier revisions live below it. */
+  issuePath?: string;
+  /** Language of the words; by default the first configured locale. */
+  locale?: string;
+}
+
+export interface ModelOptions extends WordingOptions {
+  /** The body series and their trend tests when computed beforehand (prepareModel, on worker threads). */
+  prepared?: PreparedModel;
+}
+
+/** Figures and words in one step: issueFigures, then wordModel (one language). */
+export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVersion: string, options: ModelOptions = {}): BulletinModel {
+  return wordModel(inputs, issueFigures(inputs, options.prepared), warnings, toolVersion, options);
+}
+
+/** The bulletin model of one language from the issue's figures (shared by reference, not copied). */
+export function wordModel(
+  inputs: BulletinInputs,
+  figures: IssueFigures,
+  warnings: Problem[],
+  toolVersion: string,
+  options: WordingOptions = {},
+): BulletinModel {
+  const { config, bulletinMonth } = inputs;
+  const locale = options.locale ?? config.locales[0] ?? 'en';
+  const t = translator(locale);
+  const pct = (value: number) => formatPercent(locale, value);
+
+  const surface = wordSurface(figures.surface, locale);
+  const waterQuality = wordQuality(figures.quality, config, locale);
+  const key = keyMessages({
+    locale,
+    bulletinMonth,
+    firstYear: Math.floor(figures.firstMonth / 12),
+    surface,
+    bodyTrends: figures.trends.bodies,
+    regionTrend: figures.trends.region.entries[0]?.test ?? null,
+    quality: waterQuality,
+  });
+
+  const monthName = formatMonth(locale, bulletinMonth);
+  const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(bulletinMonth));
+  const baselineParams = { baselineFirst: config.baseline.firstYear, baselineLast: config.baseline.lastYear };
+  const notices: Notice[] = key.caveats.map((text) => ({ kind: 'notice' as const, text }));
+  if (figures.pages.flagged > figures.pages.shown)
+    notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: figures.pages.flagged, shown: figures.pages.shown }) });
+  const region = surface.region.status;
+  if (region.kind === 'stated' && region.filledPercent >= 1)
+    notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
+  notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
+  const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
+  if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });
+  notices.push({ kind: 'caveat', text: t('caveat.optical', { minShare: pct(100 * config.coverage.minObservedShare) }) });
+  if (waterQuality) notices.push({ kind: 'caveat', text: t('caveat.estimate') });
+  if (region.kind === 'stated' && region.percentOfBaseline < 90) notices.push({ kind: 'caution', text: t('caution.lowWater') });
+  if (waterQuality) notices.push({ kind: 'caution', text: t('caution.algae') });
+
+  return {
+    meta: {
+      title: config.title,
+      publisher: config.publisher,
+      region: config.region.name,
+      locale,
+      month: monthLabel(bulletinMonth),
+      monthName,
+      calendarMonthName,
+      revision: config.issue.revision,
+      published: config.issue.published,
+      publishedName: formatDate(locale, config.issue.published),
+      draft: config.issue.draft,
+      baseUrl: config.site.baseUrl,
+      issuePath: options.issuePath ?? `/issues/${monthLabel(bulletinMonth)}/`,
+      corrections: config.issue.corrections.map(({ date, text, translations }) => {
+        const translated = translations?.[locale as keyof typeof translations];
+        return {
+          date,
+          dateName: formatDate(locale, date),
+          text: translated ?? text,
+          lang: translated === undefined ? (config.locales[0] ?? locale) : locale,
+        };
+      }),
+      baseline: config.baseline,
+      minObservedShare: config.coverage.minObservedShare,
+      minRegionCoverage: config.coverage.minRegionCoverage,
+      maxFilledGap: config.coverage.maxFilledGap,
+      firstMonth: monthLabel(figures.firstMonth),
+      toolVersion,
+      statusBands: config.statusBands.map((band) => band.key),
+      bodiesPerListPage: config.site.bodiesPerListPage,
+    },
+    // The order of the JSON fields as it has always been, figures and words interleaved.
+    bodies: figures.bodies,
+    surfaceWater: surface,
+    bodyStatus: figures.bodyStatus,
+    monitored: figures.monitored,
+    grid: figures.grid,
+    trends: figures.trends,
+    quality: waterQuality,
+    rainfall: figures.rainfall,
+    boundaries: figures.boundaries,
+    validation: figures.validation,
+    keyMessages: key.messages,
+    headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
+    notices,
+    methods: methodTexts(locale),
+    warnings: warnings.map((problem) => warningText(problem, locale)),
+    inputs: inputs.files,
+  };
+}
