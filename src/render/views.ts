@@ -46,10 +46,42 @@ function formatters(locale: string) {
   };
 }
 
-export function views(model: BulletinModel) {
-  const locale = model.meta.locale;
-  const { t, pct, num, signed, p, statusWords, bodyStatusWords } = formatters(locale);
+type Formatters = ReturnType<typeof formatters>;
 
+/** The tables of every page of an issue, by page; templates pick them by name. */
+export function views(model: BulletinModel) {
+  const f = formatters(model.meta.locale);
+  const regionStatus = model.surfaceWater.region.status;
+  const regionStated = regionStatus.kind === 'stated' ? regionStatus : null;
+  const { t, pct, statusWords } = f;
+  const locale = model.meta.locale;
+  return {
+    monitored: monitoredRows(model, f),
+    surface: surfaceTables(model, f),
+    trendTables: trendTables(model, f),
+    quality: qualityTables(model, f),
+    validationTables: validationTables(model, f),
+    trendSummary: model.trends.bodies,
+    bodyName: Object.fromEntries(model.bodies.map((body) => [body.id, body.name])),
+    figures: {
+      percentOfBaseline: pct(regionStated?.percentOfBaseline),
+      band: statusWords(regionStatus),
+      coverage: pct(regionStatus.coveragePercent),
+      declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
+      minObservedShare: pct(100 * model.meta.minObservedShare),
+      firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
+      falseDiscoveryRate: formatNumber(locale, model.trends.bodies.falseDiscoveryRate, 2),
+      /** Some warning has no sentence in this language and keeps the input check's English. */
+      warningsInEnglish: model.warnings.some((warning) => warning.lang !== locale),
+      minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
+    },
+  };
+}
+
+/** The surface-water page: the region's status, the sub-regions, the size classes and the grid. */
+function surfaceTables(model: BulletinModel, f: Formatters) {
+  const locale = model.meta.locale;
+  const { t, pct, signed, statusWords } = f;
   const statusRow = (name: string, group: GroupSurface) => {
     const s = group.status;
     const stated = s.kind === 'stated' ? s : null;
@@ -80,7 +112,7 @@ export function views(model: BulletinModel) {
   const sw = model.surfaceWater;
   const regionStatus = sw.region.status;
   const regionStated = regionStatus.kind === 'stated' ? regionStatus : null;
-  const surfaceTables: TableView[] = [
+  const [status, subRegions, sizeClasses, grid]: [TableView, TableView, TableView, TableView] = [
     {
       id: 'status',
       caption: t('view.status.caption', {
@@ -150,8 +182,13 @@ export function views(model: BulletinModel) {
       note: t('view.grid.note', { minBodies: model.grid.minBodies }),
     },
   ];
+  return { status, subRegions, sizeClasses, grid };
+}
 
-  const bodyName = new Map(model.bodies.map((body) => [body.id, body.name]));
+/** The trends page: the region, the sub-regions, the steepest declines and rises. */
+function trendTables(model: BulletinModel, f: Formatters): TableView[] {
+  const locale = model.meta.locale;
+  const { t, signed, p } = f;
   const trendRow = (entry: TrendEntry): string[] => [
     entry.name,
     entry.test ? t(`view.test.${entry.test.method}`) : t('view.notTested'),
@@ -172,7 +209,7 @@ export function views(model: BulletinModel) {
     .slice(0, 10);
   const regionTrend = model.trends.region.entries[0];
   const change = model.trends.changePoint;
-  const trendTables: TableView[] = [
+  return [
     {
       id: 'region',
       caption: t('view.trends.region'),
@@ -196,10 +233,18 @@ export function views(model: BulletinModel) {
     { id: 'declines', caption: t('view.trends.declines'), columns: trendColumns, rows: declines.map(trendRow) },
     { id: 'rises', caption: t('view.trends.rises'), columns: trendColumns, rows: rises.map(trendRow) },
   ];
+}
 
+/**
+ * The water-quality page: each parameter's size classes by parameter, then the trophic classes,
+ * the WHO levels and the seasonal trends; null without quality data.
+ */
+function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Record<string, TableView>; others: TableView[] } | null {
+  const { t, pct, num, signed, p } = f;
   const quality = model.quality;
   const qualityTables: TableView[] = [];
-  if (quality) {
+  if (!quality) return null;
+  {
     for (const parameter of quality.parameters) {
       const name = t(`parameter.${parameter.parameter}`);
       const last = parameter.monthly[parameter.monthly.length - 1];
@@ -264,36 +309,46 @@ export function views(model: BulletinModel) {
       });
     }
   }
-  const validationTables: TableView[] =
-    model.validation.length === 0
-      ? []
-      : [
-          {
-            id: 'validation',
-            caption: t('view.validation.caption'),
-            columns: [
-              t('view.validation.parameter'),
-              t('view.validation.pairs'),
-              t('view.validation.bias'),
-              t('view.validation.mae'),
-              'RMSE',
-              'R²',
-              t('view.validation.line'),
-            ],
-            rows: model.validation.map((entry) => [
-              `${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`,
-              String(entry.agreement.n),
-              signed(entry.agreement.bias, 2),
-              num(entry.agreement.meanAbsoluteError, 2),
-              num(entry.agreement.rootMeanSquareError, 2),
-              num(entry.agreement.rSquared, 2),
-              `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`,
-            ]),
-            note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
-          },
-        ];
+  const byParameter = Object.fromEntries(quality.parameters.map((parameter, k) => [parameter.parameter, qualityTables[k] as TableView]));
+  return { byParameter, others: qualityTables.slice(quality.parameters.length) };
+}
 
-  const monitored = model.monitored.map((entry) => {
+/** The field checks of the water-quality page. */
+function validationTables(model: BulletinModel, f: Formatters): TableView[] {
+  const { t, num, signed } = f;
+  return model.validation.length === 0
+    ? []
+    : [
+        {
+          id: 'validation',
+          caption: t('view.validation.caption'),
+          columns: [
+            t('view.validation.parameter'),
+            t('view.validation.pairs'),
+            t('view.validation.bias'),
+            t('view.validation.mae'),
+            'RMSE',
+            'R²',
+            t('view.validation.line'),
+          ],
+          rows: model.validation.map((entry) => [
+            `${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`,
+            String(entry.agreement.n),
+            signed(entry.agreement.bias, 2),
+            num(entry.agreement.meanAbsoluteError, 2),
+            num(entry.agreement.rootMeanSquareError, 2),
+            num(entry.agreement.rSquared, 2),
+            `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`,
+          ]),
+          note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
+        },
+      ];
+}
+
+/** The monitored water bodies of the surface-water page. */
+function monitoredRows(model: BulletinModel, f: Formatters) {
+  const { t, pct, signed, bodyStatusWords } = f;
+  return model.monitored.map((entry) => {
     const status = model.bodyStatus[entry.body];
     const last = [...entry.filling].reverse().find((value) => value !== null) ?? null;
     return {
@@ -307,28 +362,6 @@ export function views(model: BulletinModel) {
           : t('view.monitored.trend', { slope: signed(entry.slopePerYear, 2), direction: t(`view.direction.${entry.direction}`) }),
     };
   });
-
-  return {
-    monitored,
-    surfaceTables,
-    trendTables,
-    qualityTables,
-    validationTables,
-    trendSummary: model.trends.bodies,
-    bodyName: Object.fromEntries(bodyName),
-    figures: {
-      percentOfBaseline: pct(regionStated?.percentOfBaseline),
-      band: statusWords(regionStatus),
-      coverage: pct(regionStatus.coveragePercent),
-      declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
-      minObservedShare: pct(100 * model.meta.minObservedShare),
-      firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
-      falseDiscoveryRate: formatNumber(locale, model.trends.bodies.falseDiscoveryRate, 2),
-      /** Some warning has no sentence in this language and keeps the input check's English. */
-      warningsInEnglish: model.warnings.some((warning) => warning.lang !== locale),
-      minRegionCoverage: pct(100 * model.meta.minRegionCoverage),
-    },
-  };
 }
 
 export interface BodyListPage<T> {

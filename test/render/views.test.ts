@@ -1,0 +1,144 @@
+/**
+ * The page views and the site files, as functions of a model: properties that hold for any
+ * inputs (every row as wide as its columns, no "undefined" or "NaN" printed, missing figures as
+ * "–", user text passed as text), checked on the small test bulletin and on variants of it.
+ */
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { loadBulletin } from '../../src/ingest/index.ts';
+import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
+import { bodyView, paginate, subRegionView, views, type TableView } from '../../src/render/views.ts';
+import { prefixOf, siteFiles, siteLocales, siteUrl } from '../../src/render/siteFiles.ts';
+import { translator } from '../../src/text/index.ts';
+import { MINI_CONFIG, miniFiles, writeMini } from '../support/miniBulletin.ts';
+
+async function miniModel(changes: Parameters<typeof writeMini>[0] = {}, locale = 'en'): Promise<BulletinModel> {
+  const { inputs, problems } = await loadBulletin(writeMini(changes));
+  if (!inputs) throw new Error(JSON.stringify(problems.errors));
+  return buildModel(inputs, problems.warnings, 'test', { locale });
+}
+
+function allTables(view: ReturnType<typeof views>): TableView[] {
+  return [
+    ...Object.values(view.surface),
+    ...view.trendTables,
+    ...(view.quality ? [...Object.values(view.quality.byParameter), ...view.quality.others] : []),
+    ...view.validationTables,
+  ];
+}
+
+function expectWellFormed(tables: TableView[]): void {
+  for (const table of tables) {
+    expect(table.caption.length, table.id).toBeGreaterThan(0);
+    for (const row of table.rows) {
+      expect(row, table.id).toHaveLength(table.columns.length);
+      for (const cell of row) expect(String(cell), table.id).not.toMatch(/undefined|NaN|null|\[object/);
+    }
+  }
+}
+
+describe('views', () => {
+  it('gives every page its named tables, each row as wide as its columns and nothing unprinted, in both languages', async () => {
+    for (const locale of ['en', 'fr']) {
+      const view = views(await miniModel({}, locale));
+      expect(Object.keys(view.surface)).toEqual(['status', 'subRegions', 'sizeClasses', 'grid']);
+      expect(view.quality && Object.keys(view.quality.byParameter)).toEqual(['chlorophyll_a', 'turbidity']);
+      expect(view.trendTables.map((table) => table.id)).toEqual(['region', 'sub-region-trends', 'declines', 'rises']);
+      expectWellFormed(allTables(view));
+    }
+  });
+
+  it('prints a figure that cannot be stated as "–" (a bulletin month nobody saw)', async () => {
+    const files = miniFiles();
+    // Every body barely seen in the bulletin month: observed share 0.05 for 2020-06, far below the configured 0.6.
+    const area = files['area.csv']
+      .split('\n')
+      .map((line) => (line.includes(',2020-06,') ? line.replace(/,([0-9.]+),(\d+)$/, ',0.05,$2') : line))
+      .join('\n');
+    const model = await miniModel({ 'area.csv': area });
+    expect(model.surfaceWater.region.status.kind).not.toBe('stated');
+    const view = views(model);
+    expectWellFormed(allTables(view));
+    const status = Object.fromEntries(view.surface.status.rows.map(([name, value]) => [name, value]));
+    const t = translator('en');
+    for (const label of [t('view.baselineMedian'), t('view.percentOfMedian'), t('view.standardized')])
+      expect(status[label], label).toBe('–');
+    expect(status[t('ui.status')]).toBe(t('view.notStated.lowCoverage'));
+    expect(view.figures.percentOfBaseline).toBe('–');
+  });
+
+  it('has no quality tables without quality data, and no validation table without field data', async () => {
+    const config = structuredClone(MINI_CONFIG) as Record<string, unknown> & { inputs: Record<string, unknown> };
+    delete config.inputs.quality;
+    delete config.inputs.field;
+    delete config.inputs.distribution;
+    const view = views(await miniModel({ 'bulletin.json': JSON.stringify(config) }));
+    expect(view.quality).toBeNull();
+    expect(view.validationTables).toEqual([]);
+  });
+
+  it('passes user text through as text: markup in a name stays characters for the templates to escape', async () => {
+    const files = miniFiles();
+    const bodies = files['bodies.csv'].split('\n');
+    bodies[1] = (bodies[1] as string).replace(/^([^,]+),([^,]+),/, '$1,"<b>Lake</b> & co",');
+    const model = await miniModel({ 'bodies.csv': bodies.join('\n') });
+    const body = bodyView(model, 0);
+    expect(JSON.stringify(body)).toContain('<b>Lake</b> & co');
+    expect(JSON.stringify(body)).not.toContain('&lt;');
+    const subRegion = subRegionView(model, model.surfaceWater.subRegions[0]?.id as string);
+    expect(subRegion.bodies.map((entry) => entry.name)).toContain('<b>Lake</b> & co');
+    for (const row of subRegion.summary) for (const cell of row) expect(cell).not.toMatch(/undefined|NaN|null/);
+  });
+
+  it('paginate cuts a list into pages of the given size with their paths, the first at the base', () => {
+    const pages = paginate(
+      Array.from({ length: 45 }, (_, k) => k),
+      '/x/',
+      20,
+    );
+    expect(pages.map((page) => page.bodies.length)).toEqual([20, 20, 5]);
+    expect(pages.map((page) => page.href)).toEqual(['/x/', '/x/page-2/', '/x/page-3/']);
+    expect(pages.map((page) => [page.first, page.last])).toEqual([
+      [1, 20],
+      [21, 40],
+      [41, 45],
+    ]);
+  });
+});
+
+describe('site files', () => {
+  it('prefixOf puts the site language at the root and every other under /<locale>', () => {
+    expect(prefixOf('en', 'en')).toBe('');
+    expect(prefixOf('fr', 'en')).toBe('/fr');
+    expect(siteLocales(['fr', 'en', 'fr'], 'en')).toEqual(['en', 'fr']);
+    expect(siteUrl('https://example.org/bulletin/', '/issues/2020-06/')).toBe('https://example.org/bulletin/issues/2020-06/');
+  });
+
+  it('writes one Atom and one JSON feed per language, a sitemap of the pages with their language versions, and manifests', async () => {
+    const english = await miniModel({}, 'en');
+    const french = { ...(await miniModel({}, 'fr')) };
+    french.meta = { ...french.meta, issuePath: `/fr${french.meta.issuePath}` };
+    const site = mkdtempSync(join(tmpdir(), 'limnopress-sitefiles-'));
+    for (const page of ['issues/2020-06/index.html', 'fr/issues/2020-06/index.html', 'index.html', 'fr/index.html']) {
+      mkdirSync(join(site, page, '..'), { recursive: true });
+      writeFileSync(join(site, page), '<!doctype html>');
+    }
+    const files = siteFiles([english, french], site, new Map(), 'en');
+    const byPath = new Map(files.map((file) => [file.path, String(file.content)]));
+    expect([...byPath.keys()].filter((path) => /feed\.(xml|json)$/.test(path)).sort()).toEqual([
+      'feed.json',
+      'feed.xml',
+      'fr/feed.json',
+      'fr/feed.xml',
+    ]);
+    // Feeds are well-formed data: the JSON parses, and the Atom names its entry's issue page.
+    expect(JSON.parse(byPath.get('fr/feed.json') as string).items).toHaveLength(1);
+    expect(byPath.get('feed.xml')).toContain('/issues/2020-06/');
+    const sitemap = byPath.get('sitemap.xml') as string;
+    expect(sitemap.match(/<url>/g)).toHaveLength(4);
+    expect(sitemap).toContain('hreflang="fr"');
+    expect([...byPath.keys()]).toContain('manifest.json');
+  });
+});
