@@ -131,7 +131,6 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
             ? UNIT
             : ROLE_NUMBER + numberNames.indexOf(name),
   );
-  const index = lookupOf(inventory);
   const body = new GrowableInt32(1 << 16);
   const month = new GrowableInt32(1 << 16);
   // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
@@ -140,9 +139,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   const parameters = new GrowableInt32(1 << 16);
   const row = new Float64Array(numberNames.length);
   const buffer = Buffer.allocUnsafe(chunkBytes);
-  const previousId = new Uint8Array(256);
-  let previousIdLength = -1;
-  let previousBody = -1;
+  const ids = new BodyIds(lookupOf(inventory));
   let lineNumber = 0;
   let reason = '';
 
@@ -160,63 +157,11 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       const start = k;
       const role = roles[f] as number;
       if (role >= ROLE_NUMBER) {
-        // Plain decimal digits read as they are passed over; anything else goes the long way.
-        let mantissa = 0;
-        let digits = 0;
-        let fraction = 0;
-        let point = 0;
-        let byte = 0;
-        for (; k < to; k++) {
-          byte = buffer[k] as number;
-          const digit = byte - 48;
-          if (digit >= 0 && digit <= 9) {
-            mantissa = mantissa * 10 + digit;
-            digits++;
-            fraction += point;
-          } else if (byte === 46 && point === 0) {
-            point = 1;
-          } else {
-            break;
-          }
-        }
-        if (k < to && byte !== COMMA) {
-          while (k < to && buffer[k] !== COMMA) k++;
-          const value = generalNumber(buffer, start, k);
-          if (!(value >= 0)) return ((reason = 'number'), false);
-          row[role - ROLE_NUMBER] = value;
-        } else if (digits > 15) {
-          const value = generalNumber(buffer, start, k);
-          if (!(value >= 0)) return ((reason = 'number'), false);
-          row[role - ROLE_NUMBER] = value;
-        } else if (digits > 0) {
-          row[role - ROLE_NUMBER] = fraction === 0 ? mantissa : mantissa / (POW10[fraction] as number);
-        } else if (k > start) {
-          return ((reason = 'number'), false); // a lone point
-        }
+        k = numberField(buffer, start, to, row, role - ROLE_NUMBER);
+        if (k < 0) return ((reason = 'number'), false);
       } else if (role === ID) {
-        // Usually the same bytes as the row before (files are mostly sorted by body).
-        let same = previousIdLength > 0 && start + previousIdLength <= to;
-        for (let b = 0; same && b < previousIdLength; b++) same = buffer[start + b] === previousId[b];
-        if (same && (start + previousIdLength === to || buffer[start + previousIdLength] === COMMA)) {
-          k = start + previousIdLength;
-        } else {
-          let high = 0;
-          while (k < to && buffer[k] !== COMMA) high |= buffer[k++] as number;
-          const length = k - start;
-          if (
-            length === 0 ||
-            length > previousId.length ||
-            high >= 128 ||
-            (buffer[start] as number) <= 32 ||
-            (buffer[k - 1] as number) <= 32
-          )
-            return ((reason = 'body id'), false);
-          const position = index.get(buffer.toString('latin1', start, k));
-          if (position === undefined) return ((reason = 'unknown body'), false);
-          previousId.set(buffer.subarray(start, k));
-          previousIdLength = length;
-          previousBody = position;
-        }
+        k = ids.field(buffer, start, to);
+        if (k < 0) return ((reason = k === UNKNOWN_BODY ? 'unknown body' : 'body id'), false);
       } else {
         while (k < to && buffer[k] !== COMMA) k++;
         if (role === MONTH) when = monthAt8(buffer, start, k);
@@ -235,7 +180,7 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       const waterHa = row[0] as number;
       const observed = row[1] as number;
       if (!(waterHa >= 0) || !(observed <= 1)) return ((reason = 'number'), false);
-      if (waterHa > 1.5 * (inventory.referenceHa[previousBody] as number)) return ((reason = 'area above reference'), false);
+      if (waterHa > 1.5 * (inventory.referenceHa[ids.body] as number)) return ((reason = 'area above reference'), false);
     } else {
       if (code < 0 || matchOne(buffer, unitFrom, unitTo, (PARAMETERS[code] as (typeof PARAMETERS)[number]).units) < 0)
         return ((reason = 'parameter or unit'), false);
@@ -250,11 +195,32 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       parameters.push(code);
     }
     for (let c = 0; c < kept.length; c++) (columns[c] as GrowableFloat64).push(row[kept[c] as number] as number);
-    body.push(previousBody);
+    body.push(ids.body);
     month.push(when);
     return true;
   }
 
+  const read = forEachLine(task, buffer, (from, to) => {
+    lineNumber++;
+    return parseLine(from, to);
+  });
+  if (read === 'line too long') return { ok: false, reason: 'line longer than the read buffer', line: lineNumber };
+  if (read === 'stopped') return { ok: false, reason, line: lineNumber };
+  const values = columns.map((column) => column.done());
+  return {
+    ok: true,
+    rows: body.length,
+    lines: lineNumber,
+    columns: { body: body.done(), month: month.done(), values, ...(area ? {} : { parameter: parameters.done() }) },
+  };
+}
+
+/**
+ * Calls `line(from, to)` for every line of the task's byte range as it lies in `buffer` (no
+ * newline), reading the file in pieces of the buffer's size; an unfinished line is carried to the
+ * front. Stops when `line` returns false.
+ */
+function forEachLine(task: ScanTask, buffer: Buffer, line: (from: number, to: number) => boolean): 'done' | 'stopped' | 'line too long' {
   const handle = openSync(task.path, 'r');
   try {
     let position = task.start;
@@ -264,34 +230,95 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
       const read = want > 0 ? readSync(handle, buffer, kept, want, position) : 0;
       position += read;
       const filled = kept + read;
-      const last = position >= task.end;
       let from = 0;
       for (let newline = buffer.indexOf(NEWLINE, 0); newline !== -1 && newline < filled; newline = buffer.indexOf(NEWLINE, from)) {
-        lineNumber++;
-        if (!parseLine(from, newline)) return { ok: false, reason, line: lineNumber };
+        if (!line(from, newline)) return 'stopped';
         from = newline + 1;
       }
-      if (last) {
-        if (from < filled) {
-          lineNumber++;
-          if (!parseLine(from, filled)) return { ok: false, reason, line: lineNumber };
-        }
-        break;
-      }
+      if (position >= task.end) return from < filled && !line(from, filled) ? 'stopped' : 'done';
       kept = filled - from;
-      if (kept === buffer.length) return { ok: false, reason: 'line longer than the read buffer', line: lineNumber };
+      if (kept === buffer.length) return 'line too long';
       buffer.copyWithin(0, from, filled);
     }
+    return 'done';
   } finally {
     closeSync(handle);
   }
-  const values = columns.map((column) => column.done());
-  return {
-    ok: true,
-    rows: body.length,
-    lines: lineNumber,
-    columns: { body: body.done(), month: month.done(), values, ...(area ? {} : { parameter: parameters.done() }) },
-  };
+}
+
+/**
+ * A non-negative number field starting at `start` (up to a comma or `to`) into row[slot]: plain
+ * decimal digits are read as they are passed over, anything else goes the long way
+ * (generalNumber). An empty field leaves NaN. Returns the end of the field, or −1 when it is not
+ * a number the general reader would accept without remark.
+ */
+function numberField(buffer: Buffer, start: number, to: number, row: Float64Array, slot: number): number {
+  let mantissa = 0;
+  let digits = 0;
+  let fraction = 0;
+  let point = 0;
+  let byte = 0;
+  let k = start;
+  for (; k < to; k++) {
+    byte = buffer[k] as number;
+    const digit = byte - 48;
+    if (digit >= 0 && digit <= 9) {
+      mantissa = mantissa * 10 + digit;
+      digits++;
+      fraction += point;
+    } else if (byte === 46 && point === 0) {
+      point = 1;
+    } else {
+      break;
+    }
+  }
+  if ((k < to && byte !== COMMA) || digits > 15) {
+    while (k < to && buffer[k] !== COMMA) k++;
+    const value = generalNumber(buffer, start, k);
+    if (!(value >= 0)) return -1;
+    row[slot] = value;
+  } else if (digits > 0) {
+    row[slot] = fraction === 0 ? mantissa : mantissa / (POW10[fraction] as number);
+  } else if (k > start) {
+    return -1; // a lone point
+  }
+  return k;
+}
+
+/** Returned by BodyIds.field for an id that is plain but not in the inventory. */
+const UNKNOWN_BODY = -2;
+
+/**
+ * The body-id field of each row, looked up in the inventory; usually the same bytes as the row
+ * before (files are mostly sorted by body), which are then compared, not looked up.
+ */
+class BodyIds {
+  private readonly previous = new Uint8Array(256);
+  private previousLength = -1;
+  /** Inventory position of the last id read. */
+  body = -1;
+
+  constructor(private readonly index: Map<string, number>) {}
+
+  /** Reads the id at `start`; returns the end of the field, −1 for an id the fast path will not take, UNKNOWN_BODY for one not in the inventory. */
+  field(buffer: Buffer, start: number, to: number): number {
+    const length = this.previousLength;
+    let same = length > 0 && start + length <= to;
+    for (let b = 0; same && b < length; b++) same = buffer[start + b] === this.previous[b];
+    if (same && (start + length === to || buffer[start + length] === COMMA)) return start + length;
+    let k = start;
+    let high = 0;
+    while (k < to && buffer[k] !== COMMA) high |= buffer[k++] as number;
+    const size = k - start;
+    if (size === 0 || size > this.previous.length || high >= 128 || (buffer[start] as number) <= 32 || (buffer[k - 1] as number) <= 32)
+      return -1;
+    const position = this.index.get(buffer.toString('latin1', start, k));
+    if (position === undefined) return UNKNOWN_BODY;
+    this.previous.set(buffer.subarray(start, k));
+    this.previousLength = size;
+    this.body = position;
+    return k;
+  }
 }
 
 /** A month YYYY-MM from 7 bytes, as year × 12 + month − 1; NaN when it is not one. */
