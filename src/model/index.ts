@@ -4,6 +4,7 @@
  * wording stage (src/wording/) turns the figures and a locale into the bulletin model that charts
  * and pages read, so a second language costs only its words.
  */
+import type { MethodId } from './methods.ts';
 import type { BulletinInputs } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { aggregate, statusMonths } from './aggregate.ts';
@@ -59,7 +60,7 @@ export interface IssueFigures {
     slopePerYear: number | null;
   }>;
   grid: Grid;
-  trends: { methods: string[]; bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
+  trends: { methods: MethodId[]; bodies: TrendSummary; subRegions: TrendSummary; region: TrendSummary; changePoint: ChangePoint };
   rainfall: RainfallSummary | null;
   /** Boundaries of the sub-regions, rings rewound for drawing (exterior clockwise). */
   boundaries: Array<{ id: string; name: string; polygons: Array<Array<Array<[number, number]>>> }>;

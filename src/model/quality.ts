@@ -12,10 +12,10 @@
  * - Trends per body (as for surface water) and, where the configuration names seasons, the trend
  *   of each size class's seasonal median year by year.
  */
+import type { MethodId } from './methods.ts';
 import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import {
-  benjaminiHochberg,
   mannKendall,
   median,
   quantile,
@@ -27,7 +27,7 @@ import {
   type TrophicClass,
 } from '../stats/index.ts';
 import { referenceAreasOf, sizeClassBounds } from './surfaceWater.ts';
-import { manyTrendTests, trendTest, type TrendTest } from './trends.ts';
+import { manyTrendTests, summarize, trendTest, type TrendFamily, type TrendTest } from './trends.ts';
 import type { WorkerPool } from '../parallel/pool.ts';
 import { sizeClassLabel } from '../text/index.ts';
 
@@ -65,13 +65,8 @@ export interface QualityParameterSummary {
   bodiesThisMonth: number;
   /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
   medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
-  trends: {
-    tested: number;
-    rising: number;
-    falling: number;
-    falseDiscoveryRate: number;
-    entries: Array<{ id: string; test: TrendTest | null; pAdjusted: number | null; direction: string }>;
-  };
+  /** Per body, adjusted across the bodies (the same rule as surface water's trends). */
+  trends: TrendFamily<{ id: string; test: TrendTest | null }>;
   seasonal: Array<{
     season: string;
     seasonName: string;
@@ -94,7 +89,7 @@ export type QualityParameterFigures = Omit<QualityParameterSummary, 'bySizeClass
 export type QualityFigures = Omit<Quality, 'parameters'> & { parameters: QualityParameterFigures[] };
 
 export interface Quality {
-  methods: string[];
+  methods: MethodId[];
   parameters: QualityParameterSummary[];
   trophic: {
     bodies: Array<{ id: string; chlorophyll: number; index: number; trophicClass: TrophicClass }>;
@@ -186,25 +181,10 @@ function parameterSummary(
 
   const months = Int32Array.from({ length: data.months }, (_, k) => data.firstMonth + k);
   const tests = prepared ?? data.values.map((series) => trendTest(months, series, config));
-  const adjusted = benjaminiHochberg(
-    tests.map((test) => test?.p ?? null),
+  const trends = summarize(
+    bodies.map((body, k) => ({ id: body.id, test: tests[k] ?? null })),
     config.trends.falseDiscoveryRate,
   );
-  const entries = bodies.map((body, k) => {
-    const test = tests[k] ?? null;
-    const pAdjusted = finiteOrNull(adjusted.adjusted[k] as number);
-    const direction =
-      !test || pAdjusted === null
-        ? 'untested'
-        : adjusted.rejected[k]
-          ? test.slopePerYear > 0
-            ? 'rise'
-            : test.slopePerYear < 0
-              ? 'fall'
-              : 'none'
-          : 'none';
-    return { id: body.id, test, pAdjusted, direction };
-  });
 
   return {
     parameter,
@@ -214,13 +194,7 @@ function parameterSummary(
     bySizeClass,
     bodiesThisMonth: now.filter(Number.isFinite).length,
     medianTrend: medianTrend(monthly),
-    trends: {
-      tested: entries.filter((e) => e.direction !== 'untested').length,
-      rising: entries.filter((e) => e.direction === 'rise').length,
-      falling: entries.filter((e) => e.direction === 'fall').length,
-      falseDiscoveryRate: config.trends.falseDiscoveryRate,
-      entries,
-    },
+    trends,
     seasonal: seasonalClassTrends(inputs, data, config),
   };
 }

@@ -4,6 +4,7 @@
  * classes the loss from maximum filling (100 % − filling: the share of the reference area that is
  * dry) now and in the baseline median.
  */
+import type { MethodId } from './methods.ts';
 import type { BulletinInputs } from '../ingest/index.ts';
 import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
@@ -35,7 +36,7 @@ export type SurfaceFigures = Omit<SurfaceWater, 'sizeClasses'> & { sizeClasses: 
 
 export interface SurfaceWater {
   /** Ids in METHODS of the methods behind these figures. */
-  methods: string[];
+  methods: MethodId[];
   region: GroupSurface;
   subRegions: GroupSurface[];
   sizeClasses: SizeClassSurface[];

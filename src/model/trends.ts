@@ -39,13 +39,19 @@ export interface TrendEntry {
   direction: 'decline' | 'rise' | 'none' | 'untested';
 }
 
-export interface TrendSummary {
-  entries: TrendEntry[];
+/** A trend entry of any family: the test of one series, its adjusted p and what it says. */
+export type Judged<E> = E & { pAdjusted: number | null; direction: TrendEntry['direction'] };
+
+/** The trends of one family of series (bodies, sub-regions, a quality parameter's bodies), adjusted together. */
+export interface TrendFamily<E> {
+  entries: Array<Judged<E>>;
   tested: number;
   declining: number;
   rising: number;
   falseDiscoveryRate: number;
 }
+
+export type TrendSummary = TrendFamily<{ id: string; name: string; test: TrendTest | null }>;
 
 /** The settings a trend test reads (bulletin.json "trends"). */
 export type TrendSettings = BulletinConfig['trends'];
@@ -88,12 +94,16 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
   };
 }
 
-function summarize(entries: Array<{ id: string; name: string; test: TrendTest | null }>, falseDiscoveryRate: number): TrendSummary {
+/**
+ * Benjamini-Hochberg across one family, and each entry's direction: 'decline' or 'rise' only when
+ * its adjusted p is within the false discovery rate.
+ */
+export function summarize<E extends { test: TrendTest | null }>(entries: E[], falseDiscoveryRate: number): TrendFamily<E> {
   const adjusted = benjaminiHochberg(
     entries.map((entry) => (entry.test && Number.isFinite(entry.test.p) ? entry.test.p : null)),
     falseDiscoveryRate,
   );
-  const out: TrendEntry[] = entries.map((entry, k) => {
+  const out: Array<Judged<E>> = entries.map((entry, k) => {
     const pAdjusted = Number.isFinite(adjusted.adjusted[k]) ? (adjusted.adjusted[k] as number) : null;
     const direction: TrendEntry['direction'] =
       !entry.test || pAdjusted === null

@@ -267,7 +267,7 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
           unit: parameter.unit,
           rising: parameter.trends.rising,
           tested: parameter.trends.tested,
-          falling: parameter.trends.falling,
+          falling: parameter.trends.declining,
         }),
       });
     }
