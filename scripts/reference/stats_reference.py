@@ -129,6 +129,32 @@ def hamed_rao(t, y, alpha=0.05):
     return {'correctionFactor': factor, 'significantLags': lags, 'varianceS': var_c, 'z': z, 'p': 2 * stats.norm.sf(abs(z))}
 
 
+def ar1_mann_kendall(t, y, months=None):
+    """numpy lines: Mann-Kendall on calendar-month anomalies with the AR(1) variance inflation and a t reference."""
+    y = np.array(y, dtype=float)
+    if months is not None:
+        cal = np.asarray(months) % 12
+        medians = {c: np.median(y[np.isfinite(y) & (cal == c)]) for c in range(12) if np.any(np.isfinite(y) & (cal == c))}
+        y = np.array([v - medians[c] if np.isfinite(v) else np.nan for v, c in zip(y, cal)])
+    keep = np.isfinite(y)
+    t, x = np.asarray(t, dtype=float)[keep], y[keep]
+    n = len(x)
+    s, var, _ = mk_numpy(x)
+    if n < 3 or var <= 0:
+        return None
+    beta = stats.theilslopes(x, t).slope
+    d = x - beta * t
+    d = d - d.mean()
+    r1 = np.sum(d[:-1] * d[1:]) / np.sum(d * d)
+    phi = min(0.99, max(0.0, r1 + (3 + 5 * r1) / n))
+    k = np.arange(1, n)
+    rho = 6 / np.pi * np.arcsin(phi ** k / 2)
+    factor = 1 + 2.0 / (n * (n - 1) * (n - 2)) * np.sum((n - k) * (n - k - 1) * (n - k - 2) * rho)
+    df = max(1.0, n / factor - 2)
+    z = 0.0 if s == 0 else (s - np.sign(s)) / np.sqrt(var * factor)
+    return {'lag1': r1, 'phi': phi, 'correctionFactor': factor, 'degreesOfFreedom': df, 'z': z, 'p': 2 * stats.t.sf(abs(z), df)}
+
+
 def pettitt(y):
     """numpy lines: Pettitt (1979)."""
     x = y[np.isfinite(y)]
@@ -212,6 +238,9 @@ for case in cases:
     if np.isfinite(y).sum() >= 4 and len(np.unique(y[np.isfinite(y)])) > 1:
         entry['hamedRao'] = hamed_rao(t, y)
         entry['pettitt'] = pettitt(y)
+    ar1 = ar1_mann_kendall(t, y, months)
+    if ar1 is not None:
+        entry['ar1MannKendall'] = ar1
     if months is not None:
         entry['months'] = months
         entry['seasonalKendall'] = seasonal(months, y)
@@ -246,6 +275,9 @@ reference = {
     'chiSquare': {'x': [0.5, 3, 11, 19.7, 40, 120, 0.01], 'df': [1, 2, 11, 11, 5, 30, 3],
                   'survival': stats.chi2.sf([0.5, 3, 11, 19.7, 40, 120, 0.01], [1, 2, 11, 11, 5, 30, 3])},
     'weightedMedian': weighted_median_cases(),
+    'studentT': {'t': [0, 0.5, 1.96, 2.5, 4, 10, 2.1, 0.3, 30],
+                 'df': [1, 1.5, 3, 4.2, 10, 100, 7.7, 250, 12],
+                 'twoSided': 2 * stats.t.sf([0, 0.5, 1.96, 2.5, 4, 10, 2.1, 0.3, 30], [1, 1.5, 3, 4.2, 10, 100, 7.7, 250, 12])},
     'normal': {'z': [0, 0.3, 1, 1.96, 2.4, 2.6, 3.5, 6, 9, 15, 30],
                'survival': stats.norm.sf([0, 0.3, 1, 1.96, 2.4, 2.6, 3.5, 6, 9, 15, 30]),
                'p': [1e-12, 0.001, 0.025, 0.3, 0.5, 0.9, 0.975, 0.999999],

@@ -8,13 +8,26 @@ import type { TrendRow } from '../model/seriesTrends.ts';
 import { csvField } from '../text/csv.ts';
 import { HELP, UsageError } from './usage.ts';
 
+/**
+ * The decision first (method, p, adjusted p, rejected: the test the bulletin uses), then every
+ * other test for comparison.
+ */
 const COLUMNS: Array<[string, keyof TrendRow]> = [
   ['series', 'series'],
   ['n', 'n'],
+  ['method', 'method'],
+  ['p', 'p'],
+  ['p_adjusted', 'pAdjusted'],
+  ['rejected', 'rejected'],
+  ['ar1_lag1', 'ar1Lag1'],
+  ['ar1_phi', 'ar1Phi'],
+  ['ar1_factor', 'ar1Factor'],
+  ['ar1_df', 'ar1DegreesOfFreedom'],
+  ['ar1_z', 'ar1Z'],
   ['s', 's'],
   ['var_s', 'varianceS'],
-  ['z', 'z'],
-  ['p', 'p'],
+  ['mk_z', 'mannKendallZ'],
+  ['mk_p', 'mannKendallP'],
   ['z_uncorrected', 'zUncorrected'],
   ['p_uncorrected', 'pUncorrected'],
   ['tau_b', 'tau'],
@@ -34,8 +47,6 @@ const COLUMNS: Array<[string, keyof TrendRow]> = [
   ['seasonal_slope_per_year', 'seasonalSlopePerYear'],
   ['seasonal_covariance_z', 'seasonalCovarianceZ'],
   ['seasonal_covariance_p', 'seasonalCovarianceP'],
-  ['p_adjusted', 'pAdjusted'],
-  ['rejected', 'rejected'],
   ['reason', 'reason'],
 ];
 

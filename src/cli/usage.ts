@@ -87,11 +87,14 @@ or is not listed. Exit status: 0 when everything matches, 1 otherwise, 2 on a us
   trend: `Usage: limnopress trend <table.csv> --time <col> --value <col> [--by <col>] [--seasonal]
                         [--format csv|json] [--confidence 0.95] [--fdr 0.05] [--workers N]
 
-Prints one row per series with Mann-Kendall (S, Var(S), Z and p with and without the continuity
-correction, tau-b), Sen's slope per year with its confidence interval, the Hamed & Rao
-autocorrelation-corrected test, Pettitt's change point, and with --seasonal the seasonal Kendall
-test (and its covariance variant where every month has at least 10 years) with the seasonal Sen
-slope. With --by, p values are adjusted across series by Benjamini-Hochberg.
+Prints one row per series. The decision comes first: method, p, p_adjusted and rejected are the
+test the bulletin uses for every series, whatever its length (mann-kendall-ar1: Mann-Kendall with
+its variance inflated for lag-1 autocorrelation and a t reference; with --seasonal, on calendar-
+month anomalies), with p adjusted across series by Benjamini-Hochberg. Then, for comparison:
+plain Mann-Kendall (S, Var(S), Z and p with and without the continuity correction, tau-b), Sen's
+slope per year with its confidence interval, the Hamed & Rao test, Pettitt's change point, and
+with --seasonal the seasonal Kendall test (and its covariance variant where every month has at
+least 10 years) with the seasonal Sen slope.
 
 Times may be YYYY-MM, YYYY-MM-DD or decimal years; an empty value is a missing value.
 

@@ -1,9 +1,14 @@
 /**
  * The full set of trend statistics for one series, and for many series with the Benjamini-Hochberg
- * adjustment across them. Used by the `trend` command, the bulletin's trend pages and the
- * benchmark, so all three report the same numbers.
+ * adjustment across them. Used by the `trend` command and the benchmark. The decision (`method`,
+ * `p`, and the adjusted p from it) is the test the bulletin uses for every series (trendTest in
+ * trends.ts): Mann-Kendall with the AR(1) variance inflation (ar1MannKendall), on calendar-month
+ * anomalies with --seasonal. The other tests are reported beside it for comparison.
  */
-import { benjaminiHochberg, hamedRao, mannKendall, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
+import { ar1MannKendall, benjaminiHochberg, hamedRao, mannKendall, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
+
+/** The test the decision rests on (one for every series, whatever its length). */
+export const DECISION_METHOD = 'mann-kendall-ar1';
 
 /** A plain array or a typed array. */
 export type Numbers = ArrayLike<number> & Iterable<number>;
@@ -29,10 +34,19 @@ export interface TrendOptions {
 export interface TrendRow {
   series: string;
   n: number;
+  /** The decision's test and its two-sided p (DECISION_METHOD). */
+  method: typeof DECISION_METHOD;
+  p: number;
+  ar1Lag1: number;
+  ar1Phi: number;
+  ar1Factor: number;
+  ar1DegreesOfFreedom: number;
+  ar1Z: number;
   s: number;
   varianceS: number;
-  z: number;
-  p: number;
+  /** Plain Mann-Kendall (independent values assumed). */
+  mannKendallZ: number;
+  mannKendallP: number;
   zUncorrected: number;
   pUncorrected: number;
   tau: number;
@@ -54,8 +68,7 @@ export interface TrendRow {
   seasonalSlopePerYear: number;
   seasonalCovarianceZ: number;
   seasonalCovarianceP: number;
-  /** The p value the adjustment uses: the seasonal one with --seasonal, else the plain Mann-Kendall one. */
-  testP: number;
+  /** The decision's p adjusted across series (Benjamini-Hochberg), and whether it is within the false discovery rate. */
   pAdjusted: number;
   rejected: boolean;
   reason: string;
@@ -64,6 +77,7 @@ export interface TrendRow {
 /** Every statistic for one series; cost O(n²). */
 export function trendRow(series: TrendSeries, options: TrendOptions): Omit<TrendRow, 'pAdjusted' | 'rejected'> {
   const plain = mannKendall(series.values);
+  const decision = ar1MannKendall(series.times, series.values, options.seasonal ? series.months : undefined);
   const slope = sensSlope(series.times, series.values, { confidence: options.confidence ?? 0.95 });
   const corrected = hamedRao(series.times, series.values);
   const change = pettitt(series.values);
@@ -86,10 +100,17 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
   return {
     series: series.key,
     n: plain.n,
+    method: DECISION_METHOD,
+    p: decision.p,
+    ar1Lag1: decision.lag1,
+    ar1Phi: decision.phi,
+    ar1Factor: decision.correctionFactor,
+    ar1DegreesOfFreedom: decision.degreesOfFreedom,
+    ar1Z: decision.z,
     s: plain.s,
     varianceS: plain.varianceS,
-    z: plain.z,
-    p: plain.p,
+    mannKendallZ: plain.z,
+    mannKendallP: plain.p,
     zUncorrected: plain.zUncorrected,
     pUncorrected: plain.pUncorrected,
     tau: plain.tau,
@@ -110,7 +131,6 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
     seasonalSlopePerYear: seasonal?.slope ?? Number.NaN,
     seasonalCovarianceZ: seasonal?.covariance.applied ? seasonal.covariance.z : Number.NaN,
     seasonalCovarianceP: seasonal?.covariance.applied ? seasonal.covariance.p : Number.NaN,
-    testP: seasonal ? seasonal.p : plain.p,
     reason: reasons.join('; '),
   };
 }
@@ -118,7 +138,7 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
 /** Adds the Benjamini-Hochberg adjusted p and decision across rows. */
 export function adjustAcrossSeries(rows: Array<Omit<TrendRow, 'pAdjusted' | 'rejected'>>, falseDiscoveryRate = 0.05): TrendRow[] {
   const adjusted = benjaminiHochberg(
-    rows.map((row) => row.testP),
+    rows.map((row) => row.p),
     falseDiscoveryRate,
   );
   return rows.map((row, k) => ({ ...row, pAdjusted: adjusted.adjusted[k] as number, rejected: adjusted.rejected[k] as boolean }));

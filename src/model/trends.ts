@@ -2,22 +2,23 @@
  * Trends over the whole record, for every water body and sub-region, and a change point in the
  * regional series.
  *
- * A monthly series is tested for seasonality first (Kruskal-Wallis across calendar months,
- * p < trends.seasonalityP). A seasonal series gets the seasonal Kendall test (with the covariance
- * correction of Hirsch & Slack 1984 where every month has 10 years or more) and the seasonal Sen
- * slope; a series that is not seasonal gets the Mann-Kendall test with the Hamed & Rao (1998)
- * autocorrelation correction and Sen's slope. Only observed months enter (filled months would add
- * made-up autocorrelation). Series with fewer than trends.minMonths observed months are not tested.
- * p values across water bodies are adjusted by Benjamini & Hochberg (1995) at
- * trends.falseDiscoveryRate, and so are those across sub-regions.
+ * Every monthly series gets the same test, whatever its length, so the method never switches
+ * between issues as the record grows: Mann-Kendall on calendar-month anomalies with the variance
+ * inflated for lag-1 autocorrelation and a Student t reference (ar1MannKendall in src/stats; the
+ * `trend --seasonal` command's decision). Seasonality is still measured (Kruskal-Wallis across
+ * calendar months, p < trends.seasonalityP) to choose the slope: the seasonal Sen slope (Hirsch,
+ * Slack & Smith 1982) for a seasonal series, Sen's slope otherwise. Only observed months enter
+ * (filled months would add made-up autocorrelation). Series with fewer than trends.minMonths
+ * observed months are not tested. p values across water bodies are adjusted by Benjamini &
+ * Hochberg (1995) at trends.falseDiscoveryRate, and so are those across sub-regions.
  */
 import type { BulletinConfig } from '../ingest/index.ts';
-import { benjaminiHochberg, hamedRao, kruskalWallis, median, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
+import { ar1MannKendall, benjaminiHochberg, kruskalWallis, median, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
 import { OBSERVED, type BodySeries } from './bodySeries.ts';
 import type { GroupMonth } from './aggregate.ts';
 import { defineTask, type WorkerPool } from '../parallel/pool.ts';
 
-export type TrendMethod = 'seasonal-kendall' | 'seasonal-kendall-covariance' | 'mann-kendall-hamed-rao';
+export type TrendMethod = 'mann-kendall-ar1';
 
 export interface TrendTest {
   observedMonths: number;
@@ -73,24 +74,13 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
     keptValues,
   );
   const seasonal = seasonality.reason === null && seasonality.p < config.trends.seasonalityP;
-  if (seasonal) {
-    const result = seasonalKendall(keptMonths, keptValues);
-    const withCovariance = result.covariance.applied;
-    return {
-      observedMonths: keptValues.length,
-      seasonalityP: seasonality.p,
-      method: withCovariance ? 'seasonal-kendall-covariance' : 'seasonal-kendall',
-      slopePerYear: result.slope,
-      p: result.covariance.applied ? result.covariance.p : result.p,
-    };
-  }
   const years = keptMonths.map((month) => month / 12);
   return {
     observedMonths: keptValues.length,
     seasonalityP: seasonality.p,
-    method: 'mann-kendall-hamed-rao',
-    slopePerYear: sensSlope(years, keptValues).slope,
-    p: hamedRao(years, keptValues).p,
+    method: 'mann-kendall-ar1',
+    slopePerYear: seasonal ? seasonalKendall(keptMonths, keptValues).slope : sensSlope(years, keptValues).slope,
+    p: ar1MannKendall(years, keptValues, keptMonths).p,
   };
 }
 
@@ -225,7 +215,7 @@ function testBatch(firstMonth: number, months: number, values: Float64Array, tre
   return tests;
 }
 
-const METHOD_CODES: TrendMethod[] = ['seasonal-kendall', 'seasonal-kendall-covariance', 'mann-kendall-hamed-rao'];
+const METHOD_CODES: TrendMethod[] = ['mann-kendall-ar1'];
 
 /** Trend tests as typed columns, to cross between threads cheaply; method −1 = not tested. */
 export interface EncodedTests {

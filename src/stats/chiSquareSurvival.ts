@@ -1,3 +1,5 @@
+import { logGamma } from './logGamma.ts';
+
 /**
  * Upper tail of the chi-square distribution with k degrees of freedom, P(X > x) = Q(k/2, x/2), the
  * regularized upper incomplete gamma function. Q is computed by its series for x < a + 1 and by
@@ -12,20 +14,6 @@ export function chiSquareSurvival(x: number, degreesOfFreedom: number): number {
   const a = degreesOfFreedom / 2;
   const z = x / 2;
   return z < a + 1 ? 1 - lowerSeries(a, z) : upperFraction(a, z);
-}
-
-const LANCZOS = [
-  0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059, 12.507343278686905,
-  -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
-];
-
-function logGamma(value: number): number {
-  if (value < 0.5) return Math.log(Math.PI / Math.sin(Math.PI * value)) - logGamma(1 - value);
-  const x = value - 1;
-  let sum = LANCZOS[0] as number;
-  for (let k = 1; k < 9; k++) sum += (LANCZOS[k] as number) / (x + k);
-  const t = x + 7.5;
-  return 0.5 * Math.log(2 * Math.PI) + (x + 0.5) * Math.log(t) - t + Math.log(sum);
 }
 
 /** P(a, z) by its series Σ zⁿ/(a(a+1)…(a+n)). */

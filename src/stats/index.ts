@@ -23,3 +23,5 @@ export { trophicStateIndex } from './trophicStateIndex.ts';
 export { chiSquareSurvival } from './chiSquareSurvival.ts';
 export { kruskalWallis, type KruskalWallisResult } from './kruskalWallis.ts';
 export { weightedMedian } from './weightedMedian.ts';
+export { ar1MannKendall, type Ar1MannKendallResult } from './ar1MannKendall.ts';
+export { studentTTwoSided } from './studentT.ts';

@@ -30,7 +30,10 @@ describe('limnopress trend', () => {
     expect(out.map((row) => row.series)).toEqual(['down', 'gappy', 'up']);
     const up = out[2]!;
     expect(up.s).toBe(54);
-    expect(up.z as number).toBeCloseTo(2.9058, 4);
+    expect(up.mk_z as number).toBeCloseTo(2.9058, 4);
+    // The decision is the AR(1)-corrected test (checked against numpy lines in test/stats/reference.test.ts).
+    expect(up.method).toBe('mann-kendall-ar1');
+    expect(up.p as number).toBeGreaterThanOrEqual(up.mk_p as number);
     // scipy 1.17.1 scipy.stats.theilslopes(LITTLE, 2000..2013): slope 0.566666666666667 (value per year).
     expect(up.sen_slope_per_year as number).toBeCloseTo(0.566666666666667, 12);
     expect(out[0]!.s).toBe(-54);

@@ -9,6 +9,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
   agreement,
+  ar1MannKendall,
+  studentTTwoSided,
   benjaminiHochberg,
   chiSquareSurvival,
   hamedRao,
@@ -35,6 +37,7 @@ interface Case {
   sensSlope?: Record<string, number>;
   hamedRao?: { correctionFactor: number; significantLags: number[]; varianceS: number | null; z: number | null; p: number | null };
   pettitt?: Record<string, number>;
+  ar1MannKendall?: Record<'lag1' | 'phi' | 'correctionFactor' | 'degreesOfFreedom' | 'z' | 'p', number>;
   kruskalWallis?: { h: number; p: number };
   seasonalKendall?: { s: number; varianceS: number; z: number; p: number; slope: number; covariance?: Record<string, number> };
 }
@@ -47,6 +50,7 @@ const reference = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'fixtu
   agreement: Record<string, number[] | number> & { reference: number[]; estimate: number[] };
   normal: { z: number[]; survival: number[]; p: number[]; quantile: number[] };
   chiSquare: { x: number[]; df: number[]; survival: number[] };
+  studentT: { t: number[]; df: number[]; twoSided: number[] };
   weightedMedian: Array<{ values: number[]; weights: number[]; median: number }>;
 };
 
@@ -111,6 +115,19 @@ describe('statistics against the scipy and numpy reference', () => {
       });
     }
 
+    if (c.ar1MannKendall) {
+      const expected = c.ar1MannKendall;
+      it(`ar1MannKendall(${c.name}${c.months ? ', by calendar month' : ''}) matches r₁, φ, n/n*, the degrees of freedom, Z and p`, () => {
+        const result = ar1MannKendall(c.t, values(c.y), c.months);
+        close(result.lag1, expected.lag1, 'r1');
+        close(result.phi, expected.phi, 'phi');
+        close(result.correctionFactor, expected.correctionFactor, 'n/n*');
+        close(result.degreesOfFreedom, expected.degreesOfFreedom, 'df');
+        close(result.z, expected.z, 'Z');
+        close(result.p, expected.p, 'p');
+      });
+    }
+
     if (c.pettitt) {
       const expected = c.pettitt;
       it(`pettitt(${c.name}) matches K, location and p`, () => {
@@ -158,6 +175,11 @@ describe('statistics against the scipy and numpy reference', () => {
   it('chiSquareSurvival(x, k) matches scipy chi2.sf', () => {
     const q = reference.chiSquare;
     q.x.forEach((x, k) => close(chiSquareSurvival(x, q.df[k] as number), q.survival[k], `sf(${x}, ${q.df[k]})`));
+  });
+
+  it('studentTTwoSided(t, ν) matches scipy 2·t.sf, whole and fractional ν', () => {
+    const q = reference.studentT;
+    q.t.forEach((t, k) => close(studentTTwoSided(t, q.df[k] as number), q.twoSided[k], `2·sf(${t}, ${q.df[k]})`));
   });
 
   it('weightedMedian(values, weights) matches the numpy lines', () => {
