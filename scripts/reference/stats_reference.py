@@ -165,6 +165,23 @@ def pettitt(y):
     return {'k': k, 'location': int(np.argmax(np.abs(u)) + 1), 'p': min(1.0, 2 * np.exp(-6 * k ** 2 / (n ** 3 + n ** 2)))}
 
 
+def ar1_pettitt(y):
+    """numpy lines: Pettitt's K with the AR(1) factor of the residuals about the two segment medians."""
+    x = y[np.isfinite(y)]
+    n = len(x)
+    base = pettitt(y)
+    loc = base['location']
+    if loc <= 0 or loc >= n:
+        return None
+    res = x - np.where(np.arange(n) < loc, np.median(x[:loc]), np.median(x[loc:]))
+    d = res - res.mean()
+    r1 = np.sum(d[:-1] * d[1:]) / np.sum(d * d) if np.sum(d * d) > 0 else 0.0
+    phi = min(0.99, max(0.0, r1 + (3 + 5 * r1) / n))
+    k = np.arange(1, n)
+    factor = 1 + 2.0 / (n * (n - 1) * (n - 2)) * np.sum((n - k) * (n - k - 1) * (n - k - 2) * (6 / np.pi * np.arcsin(phi ** k / 2)))
+    return {'lag1': r1, 'phi': phi, 'correctionFactor': factor, 'p': min(1.0, 2 * np.exp(-6 * base['k'] ** 2 / ((n ** 3 + n ** 2) * factor)))}
+
+
 def monthly(n_years, trend, amplitude, noise, gaps=0.0, round_to=None, start_year=2015):
     months = np.arange(start_year * 12, (start_year + n_years) * 12)
     t = months / 12.0
@@ -238,6 +255,9 @@ for case in cases:
     if np.isfinite(y).sum() >= 4 and len(np.unique(y[np.isfinite(y)])) > 1:
         entry['hamedRao'] = hamed_rao(t, y)
         entry['pettitt'] = pettitt(y)
+        ar1p = ar1_pettitt(y)
+        if ar1p is not None:
+            entry['ar1Pettitt'] = ar1p
     ar1 = ar1_mann_kendall(t, y, months)
     if ar1 is not None:
         entry['ar1MannKendall'] = ar1

@@ -13,7 +13,17 @@
  * Hochberg (1995) at trends.falseDiscoveryRate, and so are those across sub-regions.
  */
 import type { BulletinConfig } from '../ingest/index.ts';
-import { ar1MannKendall, benjaminiHochberg, kruskalWallis, median, pettitt, seasonalKendall, sensSlope } from '../stats/index.ts';
+import {
+  ar1MannKendall,
+  ar1Pettitt,
+  benjaminiHochberg,
+  calendarMonthAnomalies,
+  kruskalWallis,
+  median,
+  pettitt,
+  seasonalKendall,
+  sensSlope,
+} from '../stats/index.ts';
 import { OBSERVED, type BodySeries } from './bodySeries.ts';
 import type { GroupMonth } from './aggregate.ts';
 import { defineTask, type WorkerPool } from '../parallel/pool.ts';
@@ -28,6 +38,14 @@ export interface TrendTest {
   /** Units of the series per year. */
   slopePerYear: number;
   p: number;
+  /**
+   * The most likely single shift in level (Pettitt's test on the calendar-month anomalies): the
+   * first month after it, its p, the step (median anomaly after minus before, units of the
+   * series), and the trend test of the months before it (null when they are fewer than
+   * trends.minMonths). Whether it counts is decided across the family (summarize). Null when the
+   * test makes no statement.
+   */
+  shift: { month: number; p: number; step: number; beforeSlopePerYear: number | null; beforeP: number | null } | null;
 }
 
 export interface TrendEntry {
@@ -36,8 +54,11 @@ export interface TrendEntry {
   /** Null when the series was too short to test. */
   test: TrendTest | null;
   pAdjusted: number | null;
-  /** 'decline' or 'rise' only when the adjusted p is within the false discovery rate. */
-  direction: 'decline' | 'rise' | 'none' | 'untested';
+  /**
+   * 'decline' or 'rise' only when the adjusted p is within the false discovery rate and the change
+   * is not explained by a single shift; 'shift-down' or 'shift-up' when it is (see summarize).
+   */
+  direction: 'decline' | 'rise' | 'shift-down' | 'shift-up' | 'none' | 'untested';
 }
 
 /** A trend entry of any family: the test of one series, its adjusted p and what it says. */
@@ -49,6 +70,9 @@ export interface TrendFamily<E> {
   tested: number;
   declining: number;
   rising: number;
+  /** Entries whose change is a single shift in level, not a steady trend. */
+  shiftedDown: number;
+  shiftedUp: number;
   falseDiscoveryRate: number;
 }
 
@@ -75,36 +99,72 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
   );
   const seasonal = seasonality.reason === null && seasonality.p < config.trends.seasonalityP;
   const years = keptMonths.map((month) => month / 12);
+  const slope = (from: number, to: number) =>
+    seasonal
+      ? seasonalKendall(keptMonths.slice(from, to), keptValues.slice(from, to)).slope
+      : sensSlope(years.slice(from, to), keptValues.slice(from, to)).slope;
+  // A single shift in level, on the anomalies (so a season is never taken for one).
+  const anomalies = calendarMonthAnomalies(keptValues, keptMonths);
+  const change = ar1Pettitt(anomalies);
+  let shift: TrendTest['shift'] = null;
+  if (change.reason === null && change.location > 0 && change.location < keptValues.length) {
+    const cut = change.location;
+    const enough = cut >= config.trends.minMonths;
+    shift = {
+      month: keptMonths[cut] as number,
+      p: change.p,
+      step: median(anomalies.subarray(cut)) - median(anomalies.subarray(0, cut)),
+      beforeSlopePerYear: enough ? finiteOrNull(slope(0, cut)) : null,
+      beforeP: enough ? finiteOrNull(ar1MannKendall(years.slice(0, cut), keptValues.slice(0, cut), keptMonths.slice(0, cut)).p) : null,
+    };
+  }
   return {
     observedMonths: keptValues.length,
     seasonalityP: seasonality.p,
     method: 'mann-kendall-ar1',
-    slopePerYear: seasonal ? seasonalKendall(keptMonths, keptValues).slope : sensSlope(years, keptValues).slope,
+    slopePerYear: slope(0, keptValues.length),
     p: ar1MannKendall(years, keptValues, keptMonths).p,
+    shift,
   };
 }
 
+const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);
+
 /**
- * Benjamini-Hochberg across one family, and each entry's direction: 'decline' or 'rise' only when
- * its adjusted p is within the false discovery rate.
+ * What a tested entry shows. A single shift in level (its Pettitt p within the false discovery
+ * rate across the family) explains the change, unless the months before the shift hold a trend
+ * of the same sign on their own (their test at the 5 % level, unadjusted: a further condition on
+ * top of the adjusted trend test): then it is a steady decline or rise, if the whole record's
+ * adjusted trend test holds. Without a shift, the adjusted trend test decides alone.
+ */
+function directionOf(test: TrendTest, trendHolds: boolean, shiftHolds: boolean): TrendEntry['direction'] {
+  const sign = Math.sign(test.slopePerYear);
+  const shift = test.shift;
+  if (shift && shiftHolds) {
+    const steadyBefore = shift.beforeP !== null && shift.beforeP < 0.05 && sign !== 0 && Math.sign(shift.beforeSlopePerYear ?? 0) === sign;
+    if (!(steadyBefore && trendHolds)) return shift.step < 0 ? 'shift-down' : shift.step > 0 ? 'shift-up' : 'none';
+  }
+  if (!trendHolds || sign === 0) return 'none';
+  return sign < 0 ? 'decline' : 'rise';
+}
+
+/**
+ * Benjamini-Hochberg across one family, for the trend tests and for the shifts apart, and each
+ * entry's direction (directionOf).
  */
 export function summarize<E extends { test: TrendTest | null }>(entries: E[], falseDiscoveryRate: number): TrendFamily<E> {
   const adjusted = benjaminiHochberg(
     entries.map((entry) => (entry.test && Number.isFinite(entry.test.p) ? entry.test.p : null)),
     falseDiscoveryRate,
   );
+  const shifts = benjaminiHochberg(
+    entries.map((entry) => (entry.test?.shift && Number.isFinite(entry.test.shift.p) ? entry.test.shift.p : null)),
+    falseDiscoveryRate,
+  );
   const out: Array<Judged<E>> = entries.map((entry, k) => {
     const pAdjusted = Number.isFinite(adjusted.adjusted[k]) ? (adjusted.adjusted[k] as number) : null;
     const direction: TrendEntry['direction'] =
-      !entry.test || pAdjusted === null
-        ? 'untested'
-        : adjusted.rejected[k]
-          ? entry.test.slopePerYear < 0
-            ? 'decline'
-            : entry.test.slopePerYear > 0
-              ? 'rise'
-              : 'none'
-          : 'none';
+      !entry.test || pAdjusted === null ? 'untested' : directionOf(entry.test, adjusted.rejected[k] === true, shifts.rejected[k] === true);
     return { ...entry, pAdjusted, direction };
   });
   return {
@@ -112,6 +172,8 @@ export function summarize<E extends { test: TrendTest | null }>(entries: E[], fa
     tested: out.filter((entry) => entry.direction !== 'untested').length,
     declining: out.filter((entry) => entry.direction === 'decline').length,
     rising: out.filter((entry) => entry.direction === 'rise').length,
+    shiftedDown: out.filter((entry) => entry.direction === 'shift-down').length,
+    shiftedUp: out.filter((entry) => entry.direction === 'shift-up').length,
     falseDiscoveryRate,
   };
 }
@@ -224,6 +286,12 @@ export interface EncodedTests {
   seasonalityP: Float64Array;
   slopePerYear: Float64Array;
   p: Float64Array;
+  /** The shift's first month, −1 for none; its p and the trend before it, NaN for none. */
+  shiftMonth: Int32Array;
+  shiftP: Float64Array;
+  shiftStep: Float64Array;
+  beforeSlopePerYear: Float64Array;
+  beforeP: Float64Array;
 }
 
 /** encodedTestBatch on a worker thread. */
@@ -238,6 +306,11 @@ export function encodedTestBatch(input: { firstMonth: number; months: number; va
     seasonalityP: new Float64Array(tests.length),
     slopePerYear: new Float64Array(tests.length),
     p: new Float64Array(tests.length),
+    shiftMonth: new Int32Array(tests.length),
+    shiftP: new Float64Array(tests.length),
+    shiftStep: new Float64Array(tests.length),
+    beforeSlopePerYear: new Float64Array(tests.length),
+    beforeP: new Float64Array(tests.length),
   };
   tests.forEach((test, k) => {
     encoded.method[k] = test ? METHOD_CODES.indexOf(test.method) : -1;
@@ -245,6 +318,11 @@ export function encodedTestBatch(input: { firstMonth: number; months: number; va
     encoded.seasonalityP[k] = test?.seasonalityP ?? Number.NaN;
     encoded.slopePerYear[k] = test?.slopePerYear ?? Number.NaN;
     encoded.p[k] = test?.p ?? Number.NaN;
+    encoded.shiftMonth[k] = test?.shift?.month ?? -1;
+    encoded.shiftP[k] = test?.shift?.p ?? Number.NaN;
+    encoded.shiftStep[k] = test?.shift?.step ?? Number.NaN;
+    encoded.beforeSlopePerYear[k] = test?.shift?.beforeSlopePerYear ?? Number.NaN;
+    encoded.beforeP[k] = test?.shift?.beforeP ?? Number.NaN;
   });
   return encoded;
 }
@@ -259,6 +337,16 @@ function decodeTests(encoded: EncodedTests): Array<TrendTest | null> {
           method: METHOD_CODES[code] as TrendMethod,
           slopePerYear: encoded.slopePerYear[k] as number,
           p: encoded.p[k] as number,
+          shift:
+            (encoded.shiftMonth[k] as number) < 0
+              ? null
+              : {
+                  month: encoded.shiftMonth[k] as number,
+                  p: encoded.shiftP[k] as number,
+                  step: encoded.shiftStep[k] as number,
+                  beforeSlopePerYear: finiteOrNull(encoded.beforeSlopePerYear[k] as number),
+                  beforeP: finiteOrNull(encoded.beforeP[k] as number),
+                },
         },
   );
 }

@@ -57,26 +57,12 @@ export function ar1MannKendall(
   values: ArrayLike<number | null | undefined>,
   months?: ArrayLike<number>,
 ): Ar1MannKendallResult {
-  let anomalies: Float64Array;
-  if (months) {
-    const byMonth: number[][] = Array.from({ length: 12 }, () => []);
-    for (let k = 0; k < values.length; k++) {
-      const value = values[k];
-      if (typeof value === 'number' && Number.isFinite(value)) (byMonth[(((months[k] as number) % 12) + 12) % 12] as number[]).push(value);
-    }
-    const medians = byMonth.map((list) => (list.length > 0 ? median(list) : Number.NaN));
-    anomalies = Float64Array.from({ length: values.length }, (_, k) => {
-      const value = values[k];
-      return typeof value === 'number' && Number.isFinite(value)
-        ? value - (medians[(((months[k] as number) % 12) + 12) % 12] as number)
-        : Number.NaN;
-    });
-  } else {
-    anomalies = Float64Array.from({ length: values.length }, (_, k) => {
-      const value = values[k];
-      return typeof value === 'number' ? value : Number.NaN;
-    });
-  }
+  const anomalies = months
+    ? calendarMonthAnomalies(values, months)
+    : Float64Array.from({ length: values.length }, (_, k) => {
+        const value = values[k];
+        return typeof value === 'number' ? value : Number.NaN;
+      });
   const { times: t, values: x } = finitePairs(times, anomalies);
   const plain = mannKendall(x);
   const n = x.length;
@@ -85,27 +71,9 @@ export function ar1MannKendall(
     return { ...none, effectiveN: Number.NaN, degreesOfFreedom: Number.NaN, z: plain.z, p: plain.p, reason: plain.reason };
   const beta = sensSlope(t, x).slope;
   const detrended = Float64Array.from(x, (value, k) => value - beta * (t[k] as number));
-  let mean = 0;
-  for (const value of detrended) mean += value;
-  mean /= n;
-  let numerator = 0;
-  let denominator = 0;
-  for (let k = 0; k < n; k++) {
-    const d = (detrended[k] as number) - mean;
-    denominator += d * d;
-    if (k + 1 < n) numerator += d * ((detrended[k + 1] as number) - mean);
-  }
-  const lag1 = denominator > 0 ? numerator / denominator : 0;
-  const phi = Math.min(MAX_PHI, Math.max(0, lag1 + (3 + 5 * lag1) / n));
-  let sum = 0;
-  let power = 1;
-  for (let k = 1; k < n; k++) {
-    power *= phi;
-    const rho = (6 / Math.PI) * Math.asin(power / 2);
-    if (rho < 1e-15) break;
-    sum += (n - k) * (n - k - 1) * (n - k - 2) * rho;
-  }
-  const correctionFactor = 1 + (2 / (n * (n - 1) * (n - 2))) * sum;
+  const lag1 = lag1Autocorrelation(detrended);
+  const phi = correctedPhi(lag1, n);
+  const correctionFactor = ar1VarianceFactor(phi, n);
   const effectiveN = n / correctionFactor;
   const degreesOfFreedom = Math.max(1, effectiveN - 2);
   const z = plain.s === 0 ? 0 : (plain.s - Math.sign(plain.s)) / Math.sqrt(plain.varianceS * correctionFactor);
@@ -120,4 +88,58 @@ export function ar1MannKendall(
     p: studentTTwoSided(Math.abs(z), degreesOfFreedom),
     reason: null,
   };
+}
+
+/** Each value minus the median of its calendar month (months: year × 12 + month − 1) over the observed values; NaN stays NaN. */
+export function calendarMonthAnomalies(values: ArrayLike<number | null | undefined>, months: ArrayLike<number>): Float64Array {
+  const byMonth: number[][] = Array.from({ length: 12 }, () => []);
+  const calendar = (k: number) => (((months[k] as number) % 12) + 12) % 12;
+  for (let k = 0; k < values.length; k++) {
+    const value = values[k];
+    if (typeof value === 'number' && Number.isFinite(value)) (byMonth[calendar(k)] as number[]).push(value);
+  }
+  const medians = byMonth.map((list) => (list.length > 0 ? median(list) : Number.NaN));
+  return Float64Array.from({ length: values.length }, (_, k) => {
+    const value = values[k];
+    return typeof value === 'number' && Number.isFinite(value) ? value - (medians[calendar(k)] as number) : Number.NaN;
+  });
+}
+
+/** φ from a lag-1 autocorrelation of n residuals: r₁ + (3 + 5r₁)/n, within [0, 0.99] (see ar1MannKendall, step 3). */
+export function correctedPhi(lag1: number, n: number): number {
+  return Math.min(MAX_PHI, Math.max(0, lag1 + (3 + 5 * lag1) / n));
+}
+
+/**
+ * Hamed & Rao's (1998) variance inflation n/n* of a rank statistic over n values of an AR(1)
+ * normal process with lag-1 correlation φ: 1 + 2/(n(n−1)(n−2)) Σₖ (n−k)(n−k−1)(n−k−2) ρₖ with
+ * ρₖ = (6/π) arcsin(φᵏ/2).
+ */
+export function ar1VarianceFactor(phi: number, n: number): number {
+  if (n < 3) return 1;
+  let sum = 0;
+  let power = 1;
+  for (let k = 1; k < n; k++) {
+    power *= phi;
+    const rho = (6 / Math.PI) * Math.asin(power / 2);
+    if (rho < 1e-15) break;
+    sum += (n - k) * (n - k - 1) * (n - k - 2) * rho;
+  }
+  return 1 + (2 / (n * (n - 1) * (n - 2))) * sum;
+}
+
+/** Lag-1 autocorrelation of values in order about their mean; 0 when they do not vary. */
+export function lag1Autocorrelation(values: ArrayLike<number>): number {
+  const n = values.length;
+  let mean = 0;
+  for (let k = 0; k < n; k++) mean += values[k] as number;
+  mean /= n;
+  let numerator = 0;
+  let denominator = 0;
+  for (let k = 0; k < n; k++) {
+    const d = (values[k] as number) - mean;
+    denominator += d * d;
+    if (k + 1 < n) numerator += d * ((values[k + 1] as number) - mean);
+  }
+  return denominator > 0 ? numerator / denominator : 0;
 }

@@ -110,7 +110,7 @@ export function wordModel(
     firstYear: Math.floor(figures.firstMonth / 12),
     surface,
     bodyTrends: figures.trends.bodies,
-    regionTrend: figures.trends.region.entries[0]?.test ?? null,
+    regionTrend: figures.trends.region.entries[0] ?? null,
     quality: waterQuality,
   });
 

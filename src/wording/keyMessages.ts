@@ -9,8 +9,12 @@
  * 2. sub-region: the sub-region furthest below usual (needs two or more stated sub-regions and
  *    one below 100 % of usual);
  * 3. size class: the class whose dry share exceeds its baseline dry share the most (when > 0);
- * 4. trend count: water bodies whose decline holds after the Benjamini-Hochberg adjustment;
- * 5. region trend: the regional trend with its evidence words (only with at least moderate evidence);
+ * 4. trend count: water bodies whose steady decline holds after the Benjamini-Hochberg adjustment
+ *    and is not explained by a single shift in level; then, when any, the bodies whose change is
+ *    such a shift (a drought step is not a long-term trend);
+ * 5. region: when Pettitt's test finds a single shift in level (its p within the false discovery rate), the shift's month and
+ *    the evidence of a trend before it; otherwise the regional trend with its evidence words (only
+ *    with at least moderate evidence);
  * 6. chlorophyll-a: bodies above the WHO 10 µg/L level (when any);
  * 7. change from a year ago (when rules 2–6 left room; at most six messages in all).
  */
@@ -19,7 +23,7 @@ import { formatCalendarMonth, formatMonth, formatNumber, formatPercent } from '.
 import { evidenceFor, type EvidenceKey } from '../model/evidence.ts';
 import type { Quality } from '../model/quality.ts';
 import type { SurfaceWater } from '../model/surfaceWater.ts';
-import type { TrendSummary, TrendTest } from '../model/trends.ts';
+import type { TrendSummary } from '../model/trends.ts';
 
 export interface KeyMessage {
   id: string;
@@ -37,7 +41,7 @@ export interface KeyMessageInputs {
   firstYear: number;
   surface: SurfaceWater;
   bodyTrends: TrendSummary;
-  regionTrend: TrendTest | null;
+  regionTrend: TrendSummary['entries'][number] | null;
   quality: Quality | null;
 }
 
@@ -110,10 +114,30 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
       figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' },
       link: 'trends/#bodies',
     });
+    if (trends.shiftedDown > 0) {
+      messages.push({
+        id: 'shift-count',
+        text: tCount('key.shiftCount', trends.shiftedDown, { shifted: trends.shiftedDown, tested: trends.tested }),
+        figure: { value: trends.shiftedDown, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' },
+        link: 'trends/#bodies',
+      });
+    }
   }
 
-  const regionTrend = input.regionTrend;
-  if (regionTrend && Number.isFinite(regionTrend.p)) {
+  const regionEntry = input.regionTrend;
+  const regionTrend = regionEntry?.test ?? null;
+  const regionShift = regionTrend?.shift ?? null;
+  const shifted = regionEntry?.direction === 'shift-down' || regionEntry?.direction === 'shift-up';
+  if (regionShift && shifted) {
+    const before = regionShift.beforeP === null ? 'little' : evidenceFor(regionShift.beforeP);
+    messages.push({
+      id: 'region-shift',
+      text: t('key.regionShift', { month: formatMonth(input.locale, regionShift.month), evidence: t(`evidence.${before}`) }),
+      figure: { value: regionShift.p, unit: 'p of the shift (Pettitt)', method: 'trend-region' },
+      link: 'trends/#region',
+      evidence: before,
+    });
+  } else if (regionTrend && Number.isFinite(regionTrend.p)) {
     const evidence = evidenceFor(regionTrend.p);
     if (evidence === 'very-strong' || evidence === 'strong' || evidence === 'moderate') {
       const slope = `${regionTrend.slopePerYear > 0 ? '+' : '−'}${formatNumber(input.locale, Math.abs(regionTrend.slopePerYear), 1)}`;

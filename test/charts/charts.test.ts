@@ -106,8 +106,13 @@ describe('charts of the example bulletin', () => {
 
   it('the descriptions state the main point from the data', () => {
     const description = (id: string) => definitions.find((chart) => chart.id === id)?.description ?? '';
-    expect(description('regional-series')).toContain('held 64% of their usual water for November');
-    expect(description('sub-regions')).toContain('Corlas Flats is lowest at 37%');
+    // The point is the model's own: its first key message, and the sub-region furthest below usual with its figure.
+    expect(description('regional-series')).toContain(model.keyMessages[0]?.text);
+    const stated = model.surfaceWater.subRegions.flatMap((group) =>
+      group.status.kind === 'stated' ? [{ name: group.name, percent: group.status.percentOfBaseline }] : [],
+    );
+    const lowest = stated.sort((a, b) => a.percent - b.percent)[0] as { name: string; percent: number };
+    expect(description('sub-regions')).toContain(`${lowest.name} is lowest at ${Math.round(lowest.percent)}%`);
     expect(description('validation-chlorophyll')).toMatch(/n = \d+, bias/);
   });
 });

@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import {
   agreement,
   ar1MannKendall,
+  ar1Pettitt,
   studentTTwoSided,
   benjaminiHochberg,
   chiSquareSurvival,
@@ -37,6 +38,7 @@ interface Case {
   sensSlope?: Record<string, number>;
   hamedRao?: { correctionFactor: number; significantLags: number[]; varianceS: number | null; z: number | null; p: number | null };
   pettitt?: Record<string, number>;
+  ar1Pettitt?: Record<'lag1' | 'phi' | 'correctionFactor' | 'p', number>;
   ar1MannKendall?: Record<'lag1' | 'phi' | 'correctionFactor' | 'degreesOfFreedom' | 'z' | 'p', number>;
   kruskalWallis?: { h: number; p: number };
   seasonalKendall?: { s: number; varianceS: number; z: number; p: number; slope: number; covariance?: Record<string, number> };
@@ -124,6 +126,17 @@ describe('statistics against the scipy and numpy reference', () => {
         close(result.correctionFactor, expected.correctionFactor, 'n/n*');
         close(result.degreesOfFreedom, expected.degreesOfFreedom, 'df');
         close(result.z, expected.z, 'Z');
+        close(result.p, expected.p, 'p');
+      });
+    }
+
+    if (c.ar1Pettitt) {
+      const expected = c.ar1Pettitt;
+      it(`ar1Pettitt(${c.name}) matches r₁, φ, n/n* and p`, () => {
+        const result = ar1Pettitt(values(c.y));
+        close(result.lag1, expected.lag1, 'r1');
+        close(result.phi, expected.phi, 'phi');
+        close(result.correctionFactor, expected.correctionFactor, 'n/n*');
         close(result.p, expected.p, 'p');
       });
     }
