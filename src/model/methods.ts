@@ -9,6 +9,7 @@ export const METHOD_IDS = [
   'filling-ratio',
   'gap-filling',
   'status',
+  'deficit',
   'size-class-loss',
   'grid',
   'trend-bodies',

@@ -10,6 +10,7 @@ import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
 import { statusOf, type Status } from './status.ts';
+import { deficitOf, type Deficit } from './deficit.ts';
 import { sizeClassLabel } from '../text/index.ts';
 
 export interface GroupSurface {
@@ -19,6 +20,8 @@ export interface GroupSurface {
   referenceHa: number;
   series: GroupMonth[];
   status: Status;
+  /** Months in a row below usual up to the bulletin month, and the shortfall over them (deficit.ts). */
+  deficit: Deficit;
 }
 
 export interface SizeClassSurface extends GroupSurface {
@@ -75,13 +78,15 @@ export function groupStatus(inputs: BulletinInputs, series: BodySeries, members:
 export function group(inputs: BulletinInputs, series: BodySeries, id: string, name: string, members: number[]): GroupSurface {
   const referenceHa = referenceAreasOf(inputs);
   const monthly = aggregate(series, members, referenceHa, 100 * inputs.config.coverage.minRegionCoverage);
+  const total = members.reduce((sum, body) => sum + (referenceHa[body] as number), 0);
   return {
     id,
     name,
     bodies: members.length,
-    referenceHa: members.reduce((sum, body) => sum + (referenceHa[body] as number), 0),
+    referenceHa: total,
     series: monthly,
     status: statusOf(monthly, inputs.bulletinMonth, inputs.config),
+    deficit: deficitOf(monthly, inputs.bulletinMonth, total, inputs.config),
   };
 }
 
@@ -153,7 +158,7 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
     return row.fillingPercent === null || baseline === null ? [] : [{ month: row.month, points: row.fillingPercent - baseline }];
   });
   return {
-    methods: ['gap-filling', 'filling-ratio', 'status', 'size-class-loss'],
+    methods: ['gap-filling', 'filling-ratio', 'status', 'deficit', 'size-class-loss'],
     region,
     subRegions,
     sizeClasses,

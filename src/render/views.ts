@@ -48,6 +48,15 @@ function formatters(locale: string) {
 
 type Formatters = ReturnType<typeof formatters>;
 
+/** How long a group has been below usual, in words. */
+function deficitWords(deficit: GroupSurface['deficit'], f: Formatters, locale: string): string {
+  if (deficit.months === 0 || deficit.since === null) return f.t('view.deficit.none');
+  return f.t(deficit.openStart ? 'view.deficit.open' : 'view.deficit.value', {
+    months: deficit.months,
+    since: formatMonth(locale, deficit.since),
+  });
+}
+
 /** The tables of every page of an issue, by page; templates pick them by name. */
 export function views(model: BulletinModel) {
   const f = formatters(model.meta.locale);
@@ -68,6 +77,14 @@ export function views(model: BulletinModel) {
       band: statusWords(regionStatus),
       coverage: pct(regionStatus.coveragePercent),
       declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
+      shifted: t('view.countOf', { count: model.trends.bodies.shiftedDown, total: model.trends.bodies.tested }),
+      deficit: deficitWords(model.surfaceWater.region.deficit, f, locale),
+      unstated: t('view.unstated.value', {
+        count: model.bodyStatus.filter((own) => own.state !== 'stated').length,
+        total: model.bodyStatus.length,
+        lowCoverage: model.bodyStatus.filter((own) => own.state === 'low-coverage').length,
+        shortBaseline: model.bodyStatus.filter((own) => own.state === 'short-baseline').length,
+      }),
       minObservedShare: pct(100 * model.meta.minObservedShare),
       firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
       falseDiscoveryRate: formatNumber(locale, model.trends.bodies.falseDiscoveryRate, 2),
@@ -392,7 +409,8 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
 /** One sub-region's page: its status, trend, water bodies and rainfall, formatted. */
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
-  const { t, pct, statusWords, bodyStatusWords } = formatters(locale);
+  const f = formatters(locale);
+  const { t, pct, statusWords, bodyStatusWords } = f;
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -429,6 +447,7 @@ export function subRegionView(model: BulletinModel, id: string) {
       [t('view.water'), pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
       [t('ui.percentOfUsual'), pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
       [t('ui.status'), statusWords(status)],
+      [t('ui.overview.deficit'), group ? deficitWords(group.deficit, f, locale) : '–'],
       [t('view.seen'), pct(status?.coveragePercent)],
       [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
       [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],

@@ -6,12 +6,15 @@
  *
  * Rules, in order:
  * 1. region: the regional status band and percent of usual (needs a stated status);
+ * 1b. deficit: when the region has been below usual (the lower edge of the band holding 100 %)
+ *    for at least DEFICIT_MONTHS months in a row, how long, since when, and the missing area
+ *    summed month by month (hectare-months): a drought stated as such, apart from any trend;
  * 2. sub-region: the sub-region furthest below usual (needs two or more stated sub-regions and
  *    one below 100 % of usual);
  * 3. size class: the class whose dry share exceeds its baseline dry share the most (when > 0);
  * 4. trend count: water bodies whose steady decline holds after the Benjamini-Hochberg adjustment
- *    and is not explained by a single shift in level; then, when any, the bodies whose change is
- *    such a shift (a drought step is not a long-term trend);
+ *    and is not explained by a single shift in level, and in the same message the bodies whose
+ *    change is such a shift (a drought step is not a long-term trend);
  * 5. region: when Pettitt's test finds a single shift in level (its p within the false discovery rate), the shift's month and
  *    the evidence of a trend before it; otherwise the regional trend with its evidence words (only
  *    with at least moderate evidence);
@@ -24,6 +27,9 @@ import { evidenceFor, type EvidenceKey } from '../model/evidence.ts';
 import type { Quality } from '../model/quality.ts';
 import type { SurfaceWater } from '../model/surfaceWater.ts';
 import type { TrendSummary } from '../model/trends.ts';
+
+/** Months in a row below usual from which the deficit is a key message (a season: fewer are in the status words already). */
+export const DEFICIT_MONTHS = 3;
 
 export interface KeyMessage {
   id: string;
@@ -70,6 +76,21 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
     caveats.push(t('caveat.keyBaseline', { month, years: region.usableYears, needed: region.neededYears, calendarMonth }));
   }
 
+  const deficit = input.surface.region.deficit;
+  if (region.kind === 'stated' && deficit.months >= DEFICIT_MONTHS && deficit.since !== null) {
+    messages.push({
+      id: 'deficit',
+      text: tCount('key.deficit', deficit.months, {
+        months: deficit.months,
+        since: formatMonth(input.locale, deficit.since),
+        // Two significant digits: the baseline behind the shortfall supports no more.
+        haMonths: formatNumber(input.locale, Number(deficit.shortfallHaMonths.toPrecision(2)), 0),
+      }),
+      figure: { value: deficit.months, unit: 'months in a row below usual', method: 'deficit' },
+      link: 'surface-water/#status',
+    });
+  }
+
   const stated = input.surface.subRegions.filter((entry) => entry.status.kind === 'stated');
   const lowest = [...stated].sort((a, b) => percentOf(a.status) - percentOf(b.status))[0];
   if (region.kind === 'stated' && stated.length >= 2 && lowest && percentOf(lowest.status) < 100) {
@@ -104,24 +125,21 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
 
   const trends = input.bodyTrends;
   if (trends.tested > 0) {
+    const params = { declining: trends.declining, shifted: trends.shiftedDown, tested: trends.tested, firstYear: input.firstYear };
     const text =
-      trends.declining > 0
-        ? tCount('key.trendCount', trends.declining, { declining: trends.declining, tested: trends.tested, firstYear: input.firstYear })
-        : t('key.trendNone', { firstYear: input.firstYear });
+      trends.shiftedDown > 0
+        ? trends.declining > 0
+          ? tCount('key.trendAndShift', trends.declining, params)
+          : t('key.trendNoneShift', params)
+        : trends.declining > 0
+          ? tCount('key.trendCount', trends.declining, params)
+          : t('key.trendNone', params);
     messages.push({
       id: 'trend-count',
       text,
       figure: { value: trends.declining, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' },
       link: 'trends/#bodies',
     });
-    if (trends.shiftedDown > 0) {
-      messages.push({
-        id: 'shift-count',
-        text: tCount('key.shiftCount', trends.shiftedDown, { shifted: trends.shiftedDown, tested: trends.tested }),
-        figure: { value: trends.shiftedDown, unit: `water bodies of ${trends.tested} tested`, method: 'trend-bodies' },
-        link: 'trends/#bodies',
-      });
-    }
   }
 
   const regionEntry = input.regionTrend;
