@@ -16,6 +16,7 @@ import type { MethodId } from './methods.ts';
 import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import {
+  benjaminiHochberg,
   mannKendall,
   median,
   quantile,
@@ -76,6 +77,8 @@ export interface QualityParameterSummary {
     years: number;
     slopePerYear: number | null;
     p: number | null;
+    /** Adjusted across this parameter's seasonal classes (Benjamini-Hochberg). */
+    pAdjusted: number | null;
   }>;
 }
 
@@ -213,8 +216,12 @@ function medianTrend(monthly: Array<{ month: number; median: number | null }>): 
 
 /**
  * For each configured season and quality size class: the median over the class's bodies of their
- * seasonal mean, year by year, tested with Mann-Kendall and Sen's slope per year (years with no
- * value are left out).
+ * seasonal mean, season-year by season-year, tested with Mann-Kendall and Sen's slope per year
+ * (season-years with no value are left out). A season listed across the new year (months
+ * [11, 12, 1, 2, 3]) is one season: its season-year Y runs from November of Y to March of Y + 1,
+ * never November and December of Y with January to March of Y. The p values of one parameter's
+ * seasonal classes are adjusted together (Benjamini-Hochberg at trends.falseDiscoveryRate): that
+ * family is named on the page.
  */
 function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, config: BulletinConfig): QualityParameterFigures['seasonal'] {
   const out: QualityParameterFigures['seasonal'] = [];
@@ -227,18 +234,22 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
     members: reference.map((ha, k) => (ha >= fromHa && (toHa === null || ha < toHa) ? k : -1)).filter((k) => k >= 0),
   }));
   for (const season of config.quality.seasons) {
+    const yearOffsets = seasonYearOffsets(season.months);
     for (const { fromHa, toHa, members } of classes) {
       const years: number[] = [];
       const values: number[] = [];
       const means = new Float64Array(members.length);
       for (let year = firstYear; year <= lastYear; year++) {
+        // Only whole season-years: the season's last month must be on or before the bulletin month.
+        const lastOffset = yearOffsets[yearOffsets.length - 1] as number;
+        if ((year + lastOffset) * 12 + (season.months[season.months.length - 1] as number) - 1 > inputs.bulletinMonth) continue;
         // Each member's mean over the season's months with a value (summed in the season's month order).
         members.forEach((body, m) => {
           const series = data.values[body] as Float64Array;
           let sum = 0;
           let seen = 0;
-          for (const month of season.months) {
-            const value = series[year * 12 + month - 1 - data.firstMonth];
+          for (const [position, month] of season.months.entries()) {
+            const value = series[(year + (yearOffsets[position] as number)) * 12 + month - 1 - data.firstMonth];
             if (value !== undefined && Number.isFinite(value)) {
               sum += value;
               seen++;
@@ -260,10 +271,28 @@ function seasonalClassTrends(inputs: BulletinInputs, data: ParameterMonths, conf
         years: years.length,
         slopePerYear: years.length >= 3 ? finiteOrNull(sensSlope(years, values).slope) : null,
         p: finiteOrNull(test.p),
+        pAdjusted: null,
       });
     }
   }
-  return out;
+  const adjusted = benjaminiHochberg(
+    out.map((entry) => entry.p),
+    config.trends.falseDiscoveryRate,
+  );
+  return out.map((entry, k) => ({ ...entry, pAdjusted: finiteOrNull(adjusted.adjusted[k] as number) }));
+}
+
+/**
+ * For each month of a season, in the order listed, the years to add to the season-year to reach
+ * its calendar year: 0 until the list wraps past December, 1 after (so [11, 12, 1, 2, 3] gives
+ * [0, 0, 1, 1, 1]).
+ */
+export function seasonYearOffsets(months: number[]): number[] {
+  let offset = 0;
+  return months.map((month, k) => {
+    if (k > 0 && month < (months[k - 1] as number)) offset++;
+    return offset;
+  });
 }
 
 /** Per parameter, its monthly body values and their trend tests, when computed beforehand (see prepareQuality). */

@@ -315,14 +315,17 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
       qualityTables.push({
         id: 'seasonal-trends',
         caption: t('view.seasonal.caption'),
-        columns: [t('view.seasonal.row'), t('view.years'), t('view.trendYear'), 'p', t('view.evidence')],
+        columns: [t('view.seasonal.row'), t('view.years'), t('view.trendYear'), 'p', t('view.adjustedP'), t('view.evidence')],
         rows: seasonal.map((entry) => [
           t('view.seasonal.rowValue', { parameter: entry.parameter, season: entry.seasonName, sizeClass: entry.sizeClass }),
           String(entry.years),
           entry.slopePerYear === null ? '–' : `${signed(entry.slopePerYear, 2)} ${entry.unit}`,
           p(entry.p),
-          entry.p === null ? '–' : t(`evidence.${evidenceFor(entry.p)}`),
+          p(entry.pAdjusted),
+          // The words follow the adjusted p: the family is every seasonal class of the parameter.
+          entry.pAdjusted === null ? '–' : t(`evidence.${evidenceFor(entry.pAdjusted)}`),
         ]),
+        note: t('view.seasonal.note'),
       });
     }
   }
