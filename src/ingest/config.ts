@@ -149,6 +149,12 @@ export const configSchema = z.strictObject({
     .default({ qualityWindowDays: 10 }),
   quality: z
     .strictObject({
+      /**
+       * Fewest valid pixels behind a body's monthly median for it to be used (below, the body has
+       * no quality value that month). 100 pixels is about 1 ha at 10 m: under that, shore pixels
+       * mixed with land dominate. This project's default, not a published threshold.
+       */
+      minValidPixels: z.number().min(0).default(100),
       /** Named seasons (calendar months 1–12) for the seasonal water-quality trends; none by default. */
       // `names` gives the season's name in each language ("dry" / "sèche"); without one, the key is shown.
       seasons: z
@@ -161,7 +167,7 @@ export const configSchema = z.strictObject({
         )
         .default([]),
     })
-    .default({ seasons: [] }),
+    .default({ minValidPixels: 100, seasons: [] }),
   statusBands: z.array(statusBand).min(2),
   csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
   site: z.strictObject({

@@ -39,13 +39,14 @@ export async function readAreaFast(path: string, bodies: WaterBody[], context: R
 export async function readQualityFast(path: string, bodies: WaterBody[], context: ReadContext): Promise<QualityTable | null> {
   const joined = await scanFile('quality', path, bodies, context);
   if (!joined) return null;
-  const [median] = joined.values as [Float64Array];
+  const [median, validPixels] = joined.values as [Float64Array, Float64Array];
   const table: QualityTable = {
     length: joined.body.length,
     body: joined.body,
     month: joined.month,
     parameter: joined.parameter as Int32Array,
     median,
+    validPixels,
   };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }

@@ -63,7 +63,7 @@ function lookupOf(inventory: ScanInventory): Map<string, number> {
 export interface ScanColumns {
   body: Int32Array;
   month: Int32Array;
-  /** area: waterHa, observedShare, scenes; quality: median. */
+  /** area: waterHa, observedShare, scenes; quality: median, validPixels. */
   values: Float64Array[];
   /** quality: the parameter of each row (index into QUALITY_PARAMETERS). */
   parameter?: Int32Array;
@@ -133,8 +133,8 @@ export function scanRange(task: ScanTask, inventory: ScanInventory, chunkBytes =
   );
   const body = new GrowableInt32(1 << 16);
   const month = new GrowableInt32(1 << 16);
-  // Kept per row: area, the three numbers; quality, the median only (the others are checked, see QualityTable).
-  const kept = area ? [0, 1, 2] : [2];
+  // Kept per row: area, the three numbers; quality, the median and the valid pixels (the others are checked, see QualityTable).
+  const kept = area ? [0, 1, 2] : [2, 5];
   const columns = kept.map(() => new GrowableFloat64(1 << 16));
   const parameters = new GrowableInt32(1 << 16);
   const row = new Float64Array(numberNames.length);

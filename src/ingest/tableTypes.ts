@@ -41,11 +41,12 @@ export interface QualityTable {
   /** Index into QUALITY_PARAMETERS. */
   parameter: Int32Array;
   /**
-   * The body's median for the month. The other percentiles and valid_pixels are checked (range,
-   * order) but not kept: nothing downstream reads them, and at national scale they would cost
-   * about 40 bytes a row.
+   * The body's median for the month. The other percentiles are checked (range, order) but not
+   * kept: nothing downstream reads them, and at national scale they would cost 32 bytes a row.
    */
   median: Float64Array;
+  /** Valid pixels behind the median (quality.minValidPixels decides whether it is used); NaN when the table has no valid_pixels column. */
+  validPixels: Float64Array;
 }
 
 export interface RainfallRecord {

@@ -247,6 +247,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
   const month = new GrowableInt32();
   const parameter = new GrowableInt32();
   const medians = new GrowableFloat64();
+  const pixels = new GrowableFloat64();
   const lines = new GrowableInt32();
   const duplicates: Array<{ body: number; month: number; line: number }> = [];
   const duplicateParameters: number[] = [];
@@ -265,7 +266,8 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
       const found = QUANTILE_COLUMNS.map((column) =>
         at[column]! >= 0 ? cells.number(values, at[column]!, column, line, 0, Infinity, column !== 'median') : Number.NaN,
       );
-      if (at.valid_pixels! >= 0) cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true);
+      const validPixels =
+        at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true) : Number.NaN;
       const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
       if (name !== '' && code < 0)
         cells.fail(
@@ -312,6 +314,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
       month.push(when);
       parameter.push(code);
       medians.push(found[2] as number);
+      pixels.push(validPixels);
       lines.push(line);
     },
     (file) => (cells.file = file),
@@ -323,6 +326,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     month: month.done(),
     parameter: parameter.done(),
     median: medians.done(),
+    validPixels: pixels.done(),
   };
   reportDuplicates(
     duplicates,

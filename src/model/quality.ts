@@ -44,6 +44,8 @@ export interface ParameterMonths {
   months: number;
   /** Body median per body and month; NaN = no value. */
   values: Float64Array[];
+  /** Bodies whose bulletin-month median was left out for too few valid pixels. */
+  fewPixels: number;
 }
 
 export interface QualityParameterSummary {
@@ -64,6 +66,8 @@ export interface QualityParameterSummary {
     p90: number | null;
   }>;
   bodiesThisMonth: number;
+  /** Bodies left without a value this month for too few valid pixels (quality.minValidPixels). */
+  fewPixelsThisMonth: number;
   /** Sen's line through the plain region medians: value = intercept + slope × decimal year. */
   medianTrend: { slopePerYear: number; intercept: number; lower: number; upper: number } | null;
   /** Per body, adjusted across the bodies (the same rule as surface water's trends). */
@@ -109,11 +113,19 @@ export function parameterMonths(inputs: BulletinInputs, parameter: QualityParame
     for (let k = 0; k < table.length; k++) if (table.parameter[k] === code) firstMonth = Math.min(firstMonth, table.month[k] as number);
   const months = inputs.bulletinMonth - firstMonth + 1;
   const values = inputs.bodies.map(() => new Float64Array(months).fill(Number.NaN));
+  const minPixels = inputs.config.quality.minValidPixels;
+  let fewPixels = 0;
   if (table)
-    for (let k = 0; k < table.length; k++)
-      if (table.parameter[k] === code)
-        (values[table.body[k] as number] as Float64Array)[(table.month[k] as number) - firstMonth] = table.median[k] as number;
-  return { firstMonth, months, values };
+    for (let k = 0; k < table.length; k++) {
+      if (table.parameter[k] !== code) continue;
+      // A median from too few valid pixels is no value (an unknown count, NaN, is taken as enough).
+      if ((table.validPixels[k] as number) < minPixels) {
+        if (table.month[k] === inputs.bulletinMonth) fewPixels++;
+        continue;
+      }
+      (values[table.body[k] as number] as Float64Array)[(table.month[k] as number) - firstMonth] = table.median[k] as number;
+    }
+  return { firstMonth, months, values, fewPixels };
 }
 
 const round = (value: number) => Math.round(value * 1e6) / 1e6;
@@ -196,6 +208,7 @@ function parameterSummary(
     distribution,
     bySizeClass,
     bodiesThisMonth: now.filter(Number.isFinite).length,
+    fewPixelsThisMonth: data.fewPixels,
     medianTrend: medianTrend(monthly),
     trends,
     seasonal: seasonalClassTrends(inputs, data, config),

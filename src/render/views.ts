@@ -285,6 +285,8 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
           rising: parameter.trends.rising,
           tested: parameter.trends.tested,
           falling: parameter.trends.declining,
+          fewPixels: parameter.fewPixelsThisMonth,
+          minPixels: model.meta.minValidPixels,
         }),
       });
     }

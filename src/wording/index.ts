@@ -45,6 +45,8 @@ export interface BulletinModel {
     minObservedShare: number;
     minRegionCoverage: number;
     maxFilledGap: number;
+    /** quality.minValidPixels. */
+    minValidPixels: number;
     firstMonth: string;
     toolVersion: string;
     /** The configured status band keys, lowest first. */
@@ -159,6 +161,7 @@ export function wordModel(
       minObservedShare: config.coverage.minObservedShare,
       minRegionCoverage: config.coverage.minRegionCoverage,
       maxFilledGap: config.coverage.maxFilledGap,
+      minValidPixels: config.quality.minValidPixels,
       firstMonth: monthLabel(figures.firstMonth),
       toolVersion,
       statusBands: config.statusBands.map((band) => band.key),

@@ -45,6 +45,22 @@ describe('buildModel on the small bulletin', () => {
     expect(lonely.grid.cells.map((cell) => cell.state)).toEqual(['too-few-bodies', 'too-few-bodies']);
   });
 
+  it('a monthly median from fewer than quality.minValidPixels valid pixels is no value, and is counted', async () => {
+    const base = miniFiles()['quality.csv'];
+    // A's 2020-06 rows rest on 150 pixels; with 40 they fall below the default of 100.
+    const quality = base.replace(/^(A,2020-06,chlorophyll_a,.*),150$/m, '$1,40');
+    const model = await modelOf({ 'quality.csv': quality });
+    const chlorophyll = model.quality?.parameters.find((entry) => entry.parameter === 'chlorophyll_a');
+    expect(chlorophyll?.bodiesThisMonth).toBe(0);
+    expect(chlorophyll?.fewPixelsThisMonth).toBe(1);
+    expect(model.quality?.trophic.bodies).toEqual([]);
+    // The same row counts again when the setting allows it.
+    const config = JSON.parse(miniFiles()['bulletin.json']);
+    config.quality = { minValidPixels: 30 };
+    const allowed = await modelOf({ 'quality.csv': quality, 'bulletin.json': JSON.stringify(config) });
+    expect(allowed.quality?.parameters.find((entry) => entry.parameter === 'chlorophyll_a')?.bodiesThisMonth).toBe(1);
+  });
+
   it('water quality: trophic state, OECD class, WHO levels and size-class quantiles, by hand', async () => {
     const quality = (await modelOf()).quality;
     // Only A (10 ha) has quality rows; its chlorophyll-a median is 4 µg/L every month.

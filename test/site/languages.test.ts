@@ -37,7 +37,7 @@ describe('the French edition', () => {
     expect(page).toContain('<html lang="fr">');
     expect(page).toContain('<meta property="og:locale" content="fr_FR">\n<meta property="og:locale:alternate" content="en_GB">');
     expect(page).toMatch(
-      /<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, les lacs/,
+      /<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, la surface couverte d&#39;eau des lacs/,
     );
     expect(page).toContain('<link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/">');
     expect(page).toContain('<link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/">');

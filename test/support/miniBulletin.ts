@@ -50,7 +50,7 @@ export function miniFiles(): MiniFiles {
   const quality = ['body_id,month,parameter,unit,p10,p25,median,p75,p90,valid_pixels'];
   months.forEach((month, k) => {
     area.push(`A,${month},${(8 + (k % 3)).toFixed(1)},0.95,3`, `B,${month},${(180 + k).toFixed(1)},0.9,2`);
-    quality.push(`A,${month},chlorophyll_a,ug/L,2,3,4,5,6,80`, `A,${month},turbidity,FNU,1,2,3,4,5,80`);
+    quality.push(`A,${month},chlorophyll_a,ug/L,2,3,4,5,6,150`, `A,${month},turbidity,FNU,1,2,3,4,5,150`);
   });
   return {
     'bulletin.json': JSON.stringify(MINI_CONFIG, null, 2),
