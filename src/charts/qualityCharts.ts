@@ -207,7 +207,7 @@ export function trophicChart(model: BulletinModel): ChartDefinition | null {
   };
   return {
     id: 'trophic-classes',
-    title: t('chart.trophic.title', { month: model.meta.monthName }),
+    title: t('chart.trophic.title', { year: trophic.year }),
     description: `${t('chart.trophic.desc')}${most ? ` ${t('chart.trophic.most', { bodies: most.bodies, trophicClass: most.trophicClass })}` : ''}`,
     spec,
     table: {

@@ -24,6 +24,8 @@ import {
   TROPHIC_BOUNDS,
   trophicClass,
   trophicStateIndex,
+  carlsonClass,
+  type CarlsonClass,
   weightedMedian,
   type TrophicClass,
 } from '../stats/index.ts';
@@ -38,6 +40,9 @@ import { sizeClassLabel } from '../text/index.ts';
  * effects, 50 µg/L a moderate one.
  */
 export const WHO_LEVELS = [10, 50] as const;
+
+/** Months of the year a body needs for its annual mean and OECD class (8 of 12: cloud and ice leave gaps; this project's choice). */
+export const TROPHIC_MIN_MONTHS = 8;
 
 export interface ParameterMonths {
   firstMonth: number;
@@ -98,8 +103,26 @@ export type QualityFigures = Omit<Quality, 'parameters'> & { parameters: Quality
 export interface Quality {
   methods: MethodId[];
   parameters: QualityParameterSummary[];
+  /**
+   * Trophic state two ways, never mixed. Carlson's (1977) index of the bulletin month's median,
+   * with Carlson's own divisions. The OECD (1982) class of the annual mean of the last complete
+   * calendar year (`year`), for bodies with at least TROPHIC_MIN_MONTHS months of it: the OECD
+   * boundaries are for annual means, not for one month.
+   */
   trophic: {
-    bodies: Array<{ id: string; chlorophyll: number; index: number; trophicClass: TrophicClass }>;
+    year: number;
+    minMonths: number;
+    bodies: Array<{
+      id: string;
+      /** Bulletin-month median, its Carlson index and Carlson class; null without a value this month. */
+      chlorophyll: number | null;
+      index: number | null;
+      carlsonClass: CarlsonClass | null;
+      /** Mean of the monthly medians over `year`, the months it rests on, and its OECD class (null below minMonths). */
+      annualMean: number | null;
+      annualMonths: number;
+      trophicClass: TrophicClass | null;
+    }>;
     counts: Array<{ trophicClass: TrophicClass; upperBound: number | null; bodies: number }>;
   };
   who: { bodiesWithValue: number; levels: Array<{ level: number; bodiesAbove: number; sharePercent: number | null }> };
@@ -365,18 +388,45 @@ export function quality(inputs: BulletinInputs, prepared?: PreparedQuality | nul
     prepared ?? QUALITY_PARAMETERS.map((parameter) => ({ parameter, data: parameterMonths(inputs, parameter), tests: undefined }));
   const chlorophyll = byParameter.find((entry) => entry.parameter === 'chlorophyll_a')?.data;
   const now = chlorophyll ? chlorophyll.values.map((series) => series[inputs.bulletinMonth - chlorophyll.firstMonth] as number) : [];
+  // The last complete calendar year: the bulletin's own year only when the bulletin month is December.
+  const year = Math.floor(inputs.bulletinMonth / 12) - (inputs.bulletinMonth % 12 === 11 ? 0 : 1);
   const trophicBodies = inputs.bodies.flatMap((body, k) => {
     const value = now[k];
-    const trophic = value === undefined ? null : trophicClass(value);
-    return value !== undefined && Number.isFinite(value) && trophic
-      ? [{ id: body.id, chlorophyll: value, index: trophicStateIndex(value), trophicClass: trophic }]
-      : [];
+    const current = value !== undefined && Number.isFinite(value) ? value : null;
+    let sum = 0;
+    let annualMonths = 0;
+    if (chlorophyll) {
+      const series = chlorophyll.values[k] as Float64Array;
+      for (let month = year * 12; month < year * 12 + 12; month++) {
+        const monthly = series[month - chlorophyll.firstMonth];
+        if (monthly !== undefined && Number.isFinite(monthly)) {
+          sum += monthly;
+          annualMonths++;
+        }
+      }
+    }
+    const annualMean = annualMonths >= TROPHIC_MIN_MONTHS ? sum / annualMonths : null;
+    if (current === null && annualMean === null) return [];
+    const index = current === null ? null : trophicStateIndex(current);
+    return [
+      {
+        id: body.id,
+        chlorophyll: current,
+        index,
+        carlsonClass: index === null ? null : carlsonClass(index),
+        annualMean,
+        annualMonths,
+        trophicClass: annualMean === null ? null : trophicClass(annualMean),
+      },
+    ];
   });
   const withValue = now.filter(Number.isFinite);
   return {
     methods: ['quality-medians', 'quality-classes', 'trend-bodies', 'trophic', 'who-levels'],
     parameters: byParameter.map(({ parameter, data, tests }) => parameterSummary(inputs, parameter, data, tests)),
     trophic: {
+      year,
+      minMonths: TROPHIC_MIN_MONTHS,
       bodies: trophicBodies,
       counts: TROPHIC_BOUNDS.map(([trophicClassName, upper]) => ({
         trophicClass: trophicClassName,

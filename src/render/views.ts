@@ -292,7 +292,7 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
     }
     qualityTables.push({
       id: 'trophic',
-      caption: t('view.trophic.caption', { month: model.meta.monthName }),
+      caption: t('view.trophic.caption', { year: quality.trophic.year, minMonths: quality.trophic.minMonths }),
       columns: [t('view.trophic.class'), t('view.trophic.upTo'), t('ui.bodies')],
       rows: quality.trophic.counts.map((entry) => [
         t(`trophic.${entry.trophicClass}`),
@@ -495,13 +495,23 @@ export function bodyView(model: BulletinModel, index: number) {
       [t('view.trendAdjusted'), t(`view.direction.${monitored?.direction ?? 'untested'}`)],
       [
         t('view.chlorophyllNow'),
-        trophic
+        trophic?.chlorophyll !== null && trophic?.chlorophyll !== undefined && trophic.carlsonClass
           ? t('view.chlorophyllValue', {
               value: formatNumber(locale, trophic.chlorophyll, 1),
-              index: formatNumber(locale, trophic.index, 0),
-              trophicClass: t(`trophic.${trophic.trophicClass}`),
+              index: formatNumber(locale, trophic.index ?? Number.NaN, 0),
+              carlsonClass: t(`carlson.${trophic.carlsonClass}`),
             })
           : t('view.noEstimate'),
+      ],
+      [
+        t('view.oecdYear', { year: model.quality?.trophic.year ?? '–' }),
+        trophic?.trophicClass && trophic.annualMean !== null
+          ? t('view.oecdValue', {
+              trophicClass: t(`trophic.${trophic.trophicClass}`),
+              mean: formatNumber(locale, trophic.annualMean, 1),
+              months: trophic.annualMonths,
+            })
+          : t('view.oecdNone', { minMonths: model.quality?.trophic.minMonths ?? 0 }),
       ],
     ],
   };

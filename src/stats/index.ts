@@ -19,7 +19,7 @@ export { seasonalKendall, type SeasonalKendallResult, type SeasonResult } from '
 export { selectKth } from './selectKth.ts';
 export { sensSlope, type SensSlopeResult } from './sensSlope.ts';
 export { trophicClass, TROPHIC_BOUNDS, type TrophicClass } from './trophicClass.ts';
-export { trophicStateIndex } from './trophicStateIndex.ts';
+export { carlsonClass, trophicStateIndex, type CarlsonClass } from './trophicStateIndex.ts';
 export { chiSquareSurvival } from './chiSquareSurvival.ts';
 export { kruskalWallis, type KruskalWallisResult } from './kruskalWallis.ts';
 export { weightedMedian } from './weightedMedian.ts';

@@ -53,7 +53,8 @@ describe('buildModel on the small bulletin', () => {
     const chlorophyll = model.quality?.parameters.find((entry) => entry.parameter === 'chlorophyll_a');
     expect(chlorophyll?.bodiesThisMonth).toBe(0);
     expect(chlorophyll?.fewPixelsThisMonth).toBe(1);
-    expect(model.quality?.trophic.bodies).toEqual([]);
+    // No value this month, so no Carlson index; the 2019 annual mean still gives the OECD class.
+    expect(model.quality?.trophic.bodies[0]).toMatchObject({ chlorophyll: null, index: null, carlsonClass: null, annualMonths: 12 });
     // The same row counts again when the setting allows it.
     const config = JSON.parse(miniFiles()['bulletin.json']);
     config.quality = { minValidPixels: 30 };
@@ -64,8 +65,20 @@ describe('buildModel on the small bulletin', () => {
   it('water quality: trophic state, OECD class, WHO levels and size-class quantiles, by hand', async () => {
     const quality = (await modelOf()).quality;
     // Only A (10 ha) has quality rows; its chlorophyll-a median is 4 µg/L every month.
-    // Carlson: 10·(6 − (2.04 − 0.68·ln 4)/ln 2) = 10·(6 − 1.58310) = 44.169; OECD: 2.5 < 4 ≤ 8 → mesotrophic.
-    expect(quality?.trophic.bodies).toEqual([{ id: 'A', chlorophyll: 4, index: expect.closeTo(44.169, 3), trophicClass: 'mesotrophic' }]);
+    // Carlson: 10·(6 − (2.04 − 0.68·ln 4)/ln 2) = 10·(6 − 1.58310) = 44.169, between 40 and 50: mesotrophic on Carlson's scale.
+    // OECD, on the mean of the last complete year (2019: twelve months of 4 µg/L): 2.5 < 4 ≤ 8 → mesotrophic.
+    expect(quality?.trophic.year).toBe(2019);
+    expect(quality?.trophic.bodies).toEqual([
+      {
+        id: 'A',
+        chlorophyll: 4,
+        index: expect.closeTo(44.169, 3),
+        carlsonClass: 'mesotrophic',
+        annualMean: 4,
+        annualMonths: 12,
+        trophicClass: 'mesotrophic',
+      },
+    ]);
     expect(quality?.who).toEqual({
       bodiesWithValue: 1,
       levels: [

@@ -227,3 +227,29 @@ describe('statistics against the scipy and numpy reference', () => {
     n.p.forEach((p, k) => close(normalQuantile(p), n.quantile[k], `ppf(${p})`));
   });
 });
+
+describe("Carlson's divisions", () => {
+  it('carlsonClass names the index by Carlson & Simpson (1996) divisions, lower bound inclusive (boundaries from memory of that table)', async () => {
+    const { carlsonClass, trophicStateIndex } = await import('../../src/stats/index.ts');
+    expect([39.99, 40, 49.99, 50, 69.99, 70, 95].map(carlsonClass)).toEqual([
+      'oligotrophic',
+      'mesotrophic',
+      'mesotrophic',
+      'eutrophic',
+      'eutrophic',
+      'hypereutrophic',
+      'hypereutrophic',
+    ]);
+    // Doubling chlorophyll adds 10·0.68·ln 2/ln 2 = 6.8 index points, by the formula itself.
+    expect(trophicStateIndex(8) - trophicStateIndex(4)).toBeCloseTo(6.8, 12);
+    // Carlson (1977), Table 2 (chlorophyll-a at whole TSI decades; the values written from memory of
+    // that table, to two significant digits): 0.94 µg/L at 30, 2.6 at 40, 20 at 60, 56 at 70.
+    for (const [chlorophyll, tsi] of [
+      [0.94, 30],
+      [2.6, 40],
+      [20, 60],
+      [56, 70],
+    ] as const)
+      expect(Math.abs(trophicStateIndex(chlorophyll) - tsi), `${chlorophyll} µg/L`).toBeLessThan(0.15);
+  });
+});
