@@ -292,6 +292,13 @@ reference = {
                   'bias': np.mean(estimate - field), 'meanAbsoluteError': np.mean(np.abs(estimate - field)),
                   'rootMeanSquareError': np.sqrt(np.mean((estimate - field) ** 2)),
                   **(lambda r: {'slope': r.slope, 'intercept': r.intercept, 'rSquared': r.rvalue ** 2})(stats.linregress(field, estimate))},
+    # numpy lines: Morley et al. (2018) on the log accuracy ratio, and log10 bias and R².
+    'logAgreement': (lambda q, lr, le: {
+        'medianSymmetricAccuracy': 100 * (np.exp(np.median(np.abs(q))) - 1),
+        'symmetricSignedBias': 100 * np.sign(np.median(q)) * (np.exp(np.abs(np.median(q))) - 1),
+        'log10Bias': np.mean(le - lr),
+        'rSquaredLog10': stats.pearsonr(lr, le).statistic ** 2,
+    })(np.log(estimate / field), np.log10(field), np.log10(estimate)),
     'chiSquare': {'x': [0.5, 3, 11, 19.7, 40, 120, 0.01], 'df': [1, 2, 11, 11, 5, 30, 3],
                   'survival': stats.chi2.sf([0.5, 3, 11, 19.7, 40, 120, 0.01], [1, 2, 11, 11, 5, 30, 3])},
     'weightedMedian': weighted_median_cases(),

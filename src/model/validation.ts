@@ -2,11 +2,14 @@
  * Agreement of the satellite estimates with field measurements. A field sample is matched to the
  * body's satellite median of the month that contains its date; when that month has no value, to
  * the month before or after if the date lies within validation.qualityWindowDays of that month.
- * Per parameter: n, bias, MAE, RMSE, R² and the least-squares line of satellite on field.
+ * Per parameter: n, bias, MAE, RMSE, R² and the least-squares line of satellite on field, and on a
+ * ratio scale the median symmetric accuracy and signed bias (Morley et al. 2018) with the log10 bias
+ * and R². This is not a same-day match-up: the inputs hold monthly medians, not scenes with dates,
+ * so a one-day field sample meets a month's median; the page says so.
  */
 import type { BulletinInputs, QualityParameter } from '../ingest/index.ts';
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
-import { agreement, type AgreementResult } from '../stats/index.ts';
+import { agreement, logAgreement, type AgreementResult, type LogAgreementResult } from '../stats/index.ts';
 import { parameterMonths } from './quality.ts';
 
 export interface ValidationSummary {
@@ -14,6 +17,8 @@ export interface ValidationSummary {
   windowDays: number;
   pairs: Array<{ bodyId: string; date: string; field: number; satellite: number; satelliteMonth: number }>;
   agreement: AgreementResult;
+  /** The same pairs on a ratio scale (Morley et al. 2018; log10 bias and R²): these values are close to log-normal. */
+  logAgreement: LogAgreementResult;
 }
 
 const DAY = 86_400_000;
@@ -53,6 +58,10 @@ export function validation(inputs: BulletinInputs): ValidationSummary[] {
         windowDays,
         pairs,
         agreement: agreement(
+          pairs.map((pair) => pair.field),
+          pairs.map((pair) => pair.satellite),
+        ),
+        logAgreement: logAgreement(
           pairs.map((pair) => pair.field),
           pairs.map((pair) => pair.satellite),
         ),

@@ -337,7 +337,7 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
 
 /** The field checks of the water-quality page. */
 function validationTables(model: BulletinModel, f: Formatters): TableView[] {
-  const { t, num, signed } = f;
+  const { t, num, signed, pct } = f;
   return model.validation.length === 0
     ? []
     : [
@@ -352,6 +352,9 @@ function validationTables(model: BulletinModel, f: Formatters): TableView[] {
             'RMSE',
             'R²',
             t('view.validation.line'),
+            t('view.validation.mdsa'),
+            t('view.validation.sspb'),
+            t('view.validation.r2log'),
           ],
           rows: model.validation.map((entry) => [
             `${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`,
@@ -361,6 +364,9 @@ function validationTables(model: BulletinModel, f: Formatters): TableView[] {
             num(entry.agreement.rootMeanSquareError, 2),
             num(entry.agreement.rSquared, 2),
             `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`,
+            pct(entry.logAgreement.medianSymmetricAccuracy),
+            `${entry.logAgreement.symmetricSignedBias > 0 ? '+' : ''}${pct(entry.logAgreement.symmetricSignedBias)}`,
+            num(entry.logAgreement.rSquaredLog10, 2),
           ]),
           note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),
         },

@@ -1,6 +1,6 @@
 // Pure statistics: no I/O, no clock, nothing imported from elsewhere in src/.
 // Missing values (null, undefined, NaN, ±Infinity) are skipped the same way everywhere: see finiteValues.
-export { agreement, type AgreementResult } from './agreement.ts';
+export { agreement, logAgreement, type AgreementResult, type LogAgreementResult } from './agreement.ts';
 export { anomaly, type Anomaly } from './anomaly.ts';
 export { benjaminiHochberg, type FalseDiscoveryResult } from './benjaminiHochberg.ts';
 export { climatology, type BaselinePeriod, type ClimatologyEntry } from './climatology.ts';

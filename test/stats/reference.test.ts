@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
   agreement,
+  logAgreement,
   ar1MannKendall,
   ar1Pettitt,
   studentTTwoSided,
@@ -50,6 +51,7 @@ const reference = JSON.parse(readFileSync(join(import.meta.dirname, '..', 'fixtu
   percentileRank: { sample: number[]; scores: number[]; values: number[] };
   standardDeviation: { sample: number[]; value: number };
   agreement: Record<string, number[] | number> & { reference: number[]; estimate: number[] };
+  logAgreement: Record<'medianSymmetricAccuracy' | 'symmetricSignedBias' | 'log10Bias' | 'rSquaredLog10', number>;
   normal: { z: number[]; survival: number[]; p: number[]; quantile: number[] };
   chiSquare: { x: number[]; df: number[]; survival: number[] };
   studentT: { t: number[]; df: number[]; twoSided: number[] };
@@ -190,6 +192,13 @@ describe('statistics against the scipy and numpy reference', () => {
     q.x.forEach((x, k) => close(chiSquareSurvival(x, q.df[k] as number), q.survival[k], `sf(${x}, ${q.df[k]})`));
   });
 
+  it('logAgreement(field, satellite) matches the numpy lines of Morley et al. (2018) and scipy pearsonr on log10 values', () => {
+    const result = logAgreement(reference.agreement.reference, reference.agreement.estimate);
+    for (const key of ['medianSymmetricAccuracy', 'symmetricSignedBias', 'log10Bias', 'rSquaredLog10'] as const)
+      close(result[key], reference.logAgreement[key], key);
+    expect(result.n).toBe(reference.agreement.reference.length);
+  });
+
   it('studentTTwoSided(t, ν) matches scipy 2·t.sf, whole and fractional ν', () => {
     const q = reference.studentT;
     q.t.forEach((t, k) => close(studentTTwoSided(t, q.df[k] as number), q.twoSided[k], `2·sf(${t}, ${q.df[k]})`));
@@ -251,5 +260,17 @@ describe("Carlson's divisions", () => {
       [56, 70],
     ] as const)
       expect(Math.abs(trophicStateIndex(chlorophyll) - tsi), `${chlorophyll} µg/L`).toBeLessThan(0.15);
+  });
+});
+
+describe('logAgreement by hand', () => {
+  it('Q = 2, ½ and 1: the typical error is a factor of 2 either way (100 %), and the signed bias is 0', async () => {
+    const { logAgreement } = await import('../../src/stats/index.ts');
+    // ln Q = ln 2, −ln 2, 0: median |ln Q| = ln 2 → ζ = 100·(2 − 1) = 100 %; median ln Q = 0 → SSPB = 0 (the definitions of Morley et al. 2018).
+    const result = logAgreement([1, 1, 1, 0, 5], [2, 0.5, 1, 3, -1]);
+    expect(result.n).toBe(3); // the pairs with a value that is not positive are skipped
+    expect(result.medianSymmetricAccuracy).toBeCloseTo(100, 12);
+    expect(result.symmetricSignedBias).toBeCloseTo(0, 12);
+    expect(result.log10Bias).toBeCloseTo(0, 12);
   });
 });
