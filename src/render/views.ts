@@ -212,7 +212,13 @@ function trendTables(model: BulletinModel, f: Formatters): TableView[] {
     signed(entry.test?.slopePerYear, 2),
     p(entry.test?.p),
     p(entry.pAdjusted),
-    t(`view.direction.${entry.direction}`),
+    // A one-step change says when: the change point of each body and sub-region.
+    (entry.direction === 'shift-down' || entry.direction === 'shift-up') && entry.test?.shift
+      ? t('view.direction.shiftAt', {
+          direction: t(`view.direction.${entry.direction}`),
+          month: formatMonth(locale, entry.test.shift.month),
+        })
+      : t(`view.direction.${entry.direction}`),
   ];
   const trendColumns = [t('ui.body'), t('view.test'), t('view.trendPoints'), 'p', t('view.adjustedP'), t('view.afterAdjustment')];
   const tested = model.trends.bodies.entries.filter((entry) => entry.test);
