@@ -7,7 +7,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
-import { formatDegrees, formatNumber } from '../text/format.ts';
+import { formatDegrees, formatNumber, formatPosition } from '../text/format.ts';
 import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';
 import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
@@ -107,31 +107,25 @@ function mapSpec(model: BulletinModel, layers: unknown[]): TopLevelSpec {
   } as TopLevelSpec;
 }
 
-/** Anomaly classes on the standardized anomaly; their words are `map.anomaly.<key>` in the catalogue. */
-type AnomalyClass = 'farBelow' | 'below' | 'near' | 'above' | 'farAbove';
-const ANOMALY_CLASSES: Array<{ below: number; key: AnomalyClass }> = [
-  { below: -1.5, key: 'farBelow' },
-  { below: -0.5, key: 'below' },
-  { below: 0.5, key: 'near' },
-  { below: 1.5, key: 'above' },
-  { below: Number.POSITIVE_INFINITY, key: 'farAbove' },
-];
-
 /** A string as a single-quoted Vega expression literal. */
 const expressionString = (text: string) => `'${text.replace(/\\/g, '\\\\').replace(/'/g, "\\'")}'`;
 
+/**
+ * Grid cells coloured by the same status bands as every other figure (percent of the baseline
+ * median), so the map never speaks a second vocabulary; a cell without a figure is hatched-grey
+ * with a dashed outline and says why in its table row.
+ */
 export function gridMapChart(model: BulletinModel): ChartDefinition {
-  const t = translator(model.meta.locale);
+  const style = bandStyle(model);
+  const t = style.t;
   const notEnough = t('map.notEnough');
-  const classLabel = (key: AnomalyClass) => t(`map.anomaly.${key}`);
   const cells = model.grid.cells.map((cell) => {
-    const z = cell.standardized;
-    const label = z === null ? notEnough : classLabel((ANOMALY_CLASSES.find((entry) => z < entry.below) as { key: AnomalyClass }).key);
+    const label = cell.bandKey === null ? notEnough : style.label(cell.bandKey);
     const e = cell.west + cell.size;
     const n = cell.south + cell.size;
     return {
       type: 'Feature',
-      properties: { label, bodies: cell.bodies, z: z === null ? null : Math.round(z * 100) / 100 },
+      properties: { label, bodies: cell.bodies, percent: cell.percentOfBaseline === null ? null : Math.round(cell.percentOfBaseline) },
       geometry: {
         type: 'Polygon',
         coordinates: [
@@ -146,7 +140,7 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
       },
     };
   });
-  const domain = [...ANOMALY_CLASSES.map((entry) => classLabel(entry.key)), notEnough];
+  const domain = [...style.labels, notEnough];
   const spec = mapSpec(model, [
     {
       data: { values: cells },
@@ -155,8 +149,8 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
         color: {
           field: 'properties.label',
           type: 'nominal',
-          title: t('view.standardized'),
-          scale: { domain, range: [...BROWN_BLUE_GREEN_5, NO_DATA_FILL] },
+          title: t('ui.status'),
+          scale: { domain, range: [...style.colours, NO_DATA_FILL] },
           legend: { orient: 'right', symbolStrokeColor: OUTLINE, symbolStrokeWidth: 1 },
         },
         strokeDash: { condition: { test: `datum.properties.label === ${expressionString(notEnough)}`, value: [3, 2] }, value: [1, 0] },
@@ -164,8 +158,8 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     },
     { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
   ]);
-  const stated = model.grid.cells.filter((cell) => cell.standardized !== null);
-  const belowCount = stated.filter((cell) => (cell.standardized as number) < -0.5).length;
+  const stated = model.grid.cells.filter((cell) => cell.percentOfBaseline !== null);
+  const belowCount = stated.filter((cell) => (cell.percentOfBaseline as number) < model.meta.usualFromPercent).length;
   return {
     id: 'grid-map',
     title: t('map.grid.title', { month: model.meta.monthName }),
@@ -178,11 +172,11 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     spec,
     table: {
       caption: t('map.grid.caption'),
-      columns: [t('view.grid.cell'), t('ui.bodies'), t('view.standardized'), t('view.trophic.class')],
+      columns: [t('view.grid.cell'), t('ui.bodies'), t('ui.percentOfUsual'), t('ui.status')],
       rows: model.grid.cells.map((cell, k) => [
-        `${cell.south}°, ${cell.west}°`,
+        formatPosition(model.meta.locale, cell.south, cell.west, 2),
         cell.bodies,
-        cell.standardized === null ? '–' : Math.round(cell.standardized * 100) / 100,
+        cell.percentOfBaseline === null ? '–' : Math.round(cell.percentOfBaseline),
         (cells[k] as { properties: { label: string } }).properties.label,
       ]),
     },

@@ -24,10 +24,12 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
       thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
       coverage: round(entry.coveragePercent),
       median: round(band?.median),
-      p10: round(band?.p10),
-      p90: round(band?.p90),
+      low: round(band?.low),
+      high: round(band?.high),
     };
   });
+  // Percentiles from 10 baseline years on; below that the range of the years, and the words say so.
+  const range = envelope.some((band) => band.low !== null && band.kind === 'range');
   const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
   const spec: TopLevelSpec = {
     $schema: VEGA_LITE_SCHEMA,
@@ -38,7 +40,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     layer: [
       {
         mark: { type: 'area', color: ENVELOPE, opacity: 0.9 },
-        encoding: { x, y: { field: 'p10', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'p90' } },
+        encoding: { x, y: { field: 'low', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'high' } },
       },
       {
         mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 },
@@ -57,7 +59,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
       first: series[0] ? formatMonth(model.meta.locale, series[0].month) : '',
       last: model.meta.monthName,
     }),
-    description: `${t('chart.regional.desc', { headline: model.headline })} ${t('chart.regional.key', { year: bulletinYear })}`,
+    description: `${t('chart.regional.desc', { headline: model.headline })} ${t(range ? 'chart.regional.keyRange' : 'chart.regional.key', { year: bulletinYear })}`,
     spec,
     table: {
       caption: t('chart.regional.caption'),
@@ -66,16 +68,16 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
         t('view.water'),
         t('chart.coverage'),
         t('chart.baselineMedian'),
-        t('chart.baselineP10'),
-        t('chart.baselineP90'),
+        t(range ? 'chart.baselineLowest' : 'chart.baselineP10'),
+        t(range ? 'chart.baselineHighest' : 'chart.baselineP90'),
       ],
       rows: values.map((row) => [
         row.month,
         row.filling ?? t('chart.notStated'),
         row.coverage ?? 0,
         cell(row.median),
-        cell(row.p10),
-        cell(row.p90),
+        cell(row.low),
+        cell(row.high),
       ]),
     },
   };

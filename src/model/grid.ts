@@ -21,8 +21,11 @@ export interface GridCell {
   fillingPercent: number | null;
   baselineMean: number | null;
   baselineStandardDeviation: number | null;
-  /** (filling − baseline mean) / baseline sd; null unless stated. */
+  /** (filling − baseline mean) / baseline sd; null unless stated with enough baseline years (STANDARDIZED_MIN_YEARS). */
   standardized: number | null;
+  /** Percent of the baseline median and its status band, as for every other group; null unless stated. */
+  percentOfBaseline: number | null;
+  bandKey: string | null;
   /** Filling minus baseline median, percentage points. */
   anomalyPoints: number | null;
 }
@@ -52,7 +55,15 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
     minBodies,
     cells: sorted.map(({ column, row, members }) => {
       const base = { west: round(column * cellDegrees), south: round(row * cellDegrees), size: cellDegrees, bodies: members.length };
-      const empty = { fillingPercent: null, baselineMean: null, baselineStandardDeviation: null, standardized: null, anomalyPoints: null };
+      const empty = {
+        fillingPercent: null,
+        baselineMean: null,
+        baselineStandardDeviation: null,
+        standardized: null,
+        percentOfBaseline: null,
+        bandKey: null,
+        anomalyPoints: null,
+      };
       if (members.length < minBodies) return { ...base, state: 'too-few-bodies' as const, ...empty };
       const status = groupStatus(inputs, series, members);
       if (status.kind === 'low-coverage') return { ...base, state: 'low-coverage' as const, ...empty };
@@ -64,7 +75,9 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
         fillingPercent: status.fillingPercent,
         baselineMean: status.baseline.mean,
         baselineStandardDeviation: status.baseline.standardDeviation,
-        standardized: Number.isFinite(status.standardized) ? status.standardized : null,
+        standardized: status.standardized,
+        percentOfBaseline: status.percentOfBaseline,
+        bandKey: status.bandKey,
         anomalyPoints: status.anomalyPoints,
       };
     }),

@@ -17,7 +17,26 @@ export interface BaselineSummary {
   p90: number;
   mean: number;
   standardDeviation: number;
+  /**
+   * The usual spread as printed: the 10th–90th percentiles from ENVELOPE_MIN_VALUES values on,
+   * below that the range (lowest to highest) of the baseline years, which is what so few values
+   * can show.
+   */
+  envelope: { low: number; high: number; kind: 'percentiles' | 'range' };
 }
+
+/**
+ * Baseline years from which a standardized anomaly is shown. WMO-No. 1203 (WMO Guidelines on the
+ * Calculation of Climate Normals, 2017) takes 30 years as the standard period for normals; a
+ * bulletin of satellite years rarely has that. From n values the standard deviation has a
+ * relative standard error of about 1/√(2(n − 1)): 35 % at 5 years, 24 % at 10. Below 10 years a
+ * division by it says more than the data do, so only the rank among the baseline years is given
+ * (this minimum is this project's choice, with WMO's 30 years as the reference).
+ */
+export const STANDARDIZED_MIN_YEARS = 10;
+
+/** Values from which an envelope is given as 10th–90th percentiles (fewer give the range). */
+export const ENVELOPE_MIN_VALUES = 10;
 
 export type Status =
   | {
@@ -29,8 +48,11 @@ export type Status =
       /** Filling minus the baseline median, in percentage points of reference area. */
       anomalyPoints: number;
       percentOfBaseline: number;
-      standardized: number;
+      /** (filling − baseline mean) / baseline sd; null below STANDARDIZED_MIN_YEARS baseline years. */
+      standardized: number | null;
       percentileRank: number;
+      /** The bulletin month among its baseline years: how many were lower and how many higher (words that hold at any length). */
+      rank: { lower: number; higher: number; of: number };
       bandKey: string;
       /** Percentage points against the same month a year earlier; null when that month has no figure. */
       changeFromLastYear: number | null;
@@ -74,7 +96,8 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
         Math.floor(row.month / 12) <= config.baseline.lastYear,
     )
     .map((row) => Math.floor(row.month / 12));
-  const result = anomaly(current.fillingPercent, entry);
+  const filling = current.fillingPercent;
+  const result = anomaly(filling, entry);
   const at = (month: number) => series.find((row) => row.month === month)?.fillingPercent ?? null;
   const lastYear = at(bulletinMonth - 12);
   const previous = at(bulletinMonth - 1);
@@ -91,13 +114,25 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
       p90: entry.p90,
       mean: entry.mean,
       standardDeviation: entry.standardDeviation,
+      envelope: envelopeOf(entry),
     },
     anomalyPoints: result.absolute,
     percentOfBaseline: result.percentOfBaseline,
-    standardized: result.standardized,
+    standardized: entry.values.length >= STANDARDIZED_MIN_YEARS && Number.isFinite(result.standardized) ? result.standardized : null,
     percentileRank: result.percentileRank,
+    rank: {
+      lower: entry.values.filter((value) => value < filling).length,
+      higher: entry.values.filter((value) => value > filling).length,
+      of: entry.values.length,
+    },
     bandKey: bandFor(result.percentOfBaseline, config.statusBands),
     changeFromLastYear: lastYear === null ? null : current.fillingPercent - lastYear,
     changeFromPreviousMonth: previous === null ? null : current.fillingPercent - previous,
   };
+}
+
+/** The envelope of a calendar month's baseline values: percentiles from ENVELOPE_MIN_VALUES on, else the range. */
+export function envelopeOf(entry: { values: number[]; p10: number; p90: number }): BaselineSummary['envelope'] {
+  if (entry.values.length >= ENVELOPE_MIN_VALUES) return { low: entry.p10, high: entry.p90, kind: 'percentiles' };
+  return { low: Math.min(...entry.values), high: Math.max(...entry.values), kind: 'range' };
 }

@@ -9,7 +9,7 @@ import type { BulletinInputs } from '../ingest/index.ts';
 import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
-import { statusOf, type Status } from './status.ts';
+import { envelopeOf, statusOf, type Status } from './status.ts';
 import { deficitOf, type Deficit } from './deficit.ts';
 import { sizeClassLabel } from '../text/index.ts';
 
@@ -48,7 +48,14 @@ export interface SurfaceWater {
   /** Regional filling minus the baseline median of its calendar month, percentage points, per month with both. */
   regionAnomalies: Array<{ month: number; points: number }>;
   /** Regional baseline per calendar month (1–12): median and 10th–90th percentile envelope; null without enough years. */
-  regionEnvelope: Array<{ calendarMonth: number; median: number | null; p10: number | null; p90: number | null }>;
+  /** low–high is the 10th–90th percentiles or, from fewer than 10 baseline years, the range (envelopeOf). */
+  regionEnvelope: Array<{
+    calendarMonth: number;
+    median: number | null;
+    low: number | null;
+    high: number | null;
+    kind: 'percentiles' | 'range';
+  }>;
 }
 
 const referenceAreas = new WeakMap<BulletinInputs, Float64Array>();
@@ -147,12 +154,16 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
     region.series.map((row) => row.month),
     region.series.map((row) => row.fillingPercent),
     inputs.config.baseline,
-  ).map((entry) => ({
-    calendarMonth: entry.calendarMonth,
-    median: entry.enough ? entry.median : null,
-    p10: entry.enough ? entry.p10 : null,
-    p90: entry.enough ? entry.p90 : null,
-  }));
+  ).map((entry) => {
+    const envelope = envelopeOf(entry);
+    return {
+      calendarMonth: entry.calendarMonth,
+      median: entry.enough ? entry.median : null,
+      low: entry.enough ? envelope.low : null,
+      high: entry.enough ? envelope.high : null,
+      kind: envelope.kind,
+    };
+  });
   const regionAnomalies = region.series.flatMap((row) => {
     const baseline = regionEnvelope[row.month % 12]?.median ?? null;
     return row.fillingPercent === null || baseline === null ? [] : [{ month: row.month, points: row.fillingPercent - baseline }];

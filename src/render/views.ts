@@ -99,6 +99,17 @@ export function views(model: BulletinModel) {
 function surfaceTables(model: BulletinModel, f: Formatters) {
   const locale = model.meta.locale;
   const { t, pct, signed, statusWords } = f;
+  // One decimal at most: a baseline of 10 to 30 years supports no more. Below 10 years there is none (STANDARDIZED_MIN_YEARS).
+  // `value` undefined: no figure at all ('–'); null: a figure, but too few baseline years for this one.
+  const standardizedText = (value: number | null | undefined) =>
+    value === undefined ? '–' : value === null ? t('view.standardizedNone') : signed(value, 1);
+  // The rank among the baseline years, in words that hold at any baseline length.
+  const rankWords = (rank: { lower: number; higher: number; of: number }) =>
+    rank.lower === 0
+      ? t('view.rank.lowest', { of: rank.of, calendarMonth: model.meta.calendarMonthName })
+      : rank.higher === 0
+        ? t('view.rank.highest', { of: rank.of, calendarMonth: model.meta.calendarMonthName })
+        : t('view.rank.between', { lower: rank.lower, of: rank.of, calendarMonth: model.meta.calendarMonthName });
   const statusRow = (name: string, group: GroupSurface) => {
     const s = group.status;
     const stated = s.kind === 'stated' ? s : null;
@@ -108,8 +119,8 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       pct(s.kind === 'low-coverage' ? null : s.fillingPercent),
       pct(stated?.baseline.median),
       pct(stated?.percentOfBaseline),
-      signed(stated?.standardized, 2),
-      stated ? formatNumber(locale, stated.percentileRank, 0) : '–',
+      standardizedText(stated?.standardized),
+      stated ? rankWords(stated.rank) : '–',
       statusWords(s),
       pct(s.coveragePercent),
     ];
@@ -121,7 +132,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
     t('view.baselineMedian'),
     t('ui.percentOfUsual'),
     t('view.standardized'),
-    t('view.percentileRank'),
+    t('view.rank'),
     t('ui.status'),
     t('view.seen'),
   ];
@@ -142,11 +153,14 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       rows: [
         [t('view.water'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.fillingPercent, 1)],
         [t('view.baselineMedian'), pct(regionStated?.baseline.median, 1)],
-        [t('view.baselineEnvelope'), regionStated ? `${pct(regionStated.baseline.p10, 1)} – ${pct(regionStated.baseline.p90, 1)}` : '–'],
+        [
+          t(regionStated?.baseline.envelope.kind === 'range' ? 'view.baselineRange' : 'view.baselineEnvelope'),
+          regionStated ? `${pct(regionStated.baseline.envelope.low, 1)} – ${pct(regionStated.baseline.envelope.high, 1)}` : '–',
+        ],
         [t('view.difference'), signed(regionStated?.anomalyPoints)],
         [t('view.percentOfMedian'), pct(regionStated?.percentOfBaseline)],
-        [t('view.standardized'), signed(regionStated?.standardized, 2)],
-        [t('view.percentileRankBaseline'), regionStated ? formatNumber(locale, regionStated.percentileRank, 0) : '–'],
+        [t('view.standardized'), standardizedText(regionStated?.standardized)],
+        [t('view.rankBaseline'), regionStated ? rankWords(regionStated.rank) : '–'],
         [t('ui.status'), statusWords(regionStatus)],
         [
           t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 12) }),
@@ -193,7 +207,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
         String(cell.bodies),
         pct(cell.fillingPercent),
         pct(cell.baselineMean),
-        signed(cell.standardized, 2),
+        standardizedText(cell.state === 'stated' ? cell.standardized : undefined),
         t(`view.cell.${cell.state}`),
       ]),
       note: t('view.grid.note', { minBodies: model.grid.minBodies }),

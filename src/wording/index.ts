@@ -12,6 +12,7 @@ import { issueFigures, type IssueFigures, type PreparedModel } from '../model/in
 import { methodTexts, type MethodId } from '../model/methods.ts';
 import { wordQuality, type Quality } from '../model/quality.ts';
 import { wordSurface, type SurfaceWater } from '../model/surfaceWater.ts';
+import { usualFrom } from '../model/deficit.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
 import { warningText, type ShownWarning } from './warnings.ts';
 
@@ -51,6 +52,8 @@ export interface BulletinModel {
     toolVersion: string;
     /** The configured status band keys, lowest first. */
     statusBands: string[];
+    /** Percent of the baseline median below which a figure is "below usual" (the lower edge of the band holding 100 %). */
+    usualFromPercent: number;
     /** site.bodiesPerListPage. */
     bodiesPerListPage: number;
   };
@@ -165,6 +168,7 @@ export function wordModel(
       firstMonth: monthLabel(figures.firstMonth),
       toolVersion,
       statusBands: config.statusBands.map((band) => band.key),
+      usualFromPercent: usualFrom(config.statusBands),
       bodiesPerListPage: config.site.bodiesPerListPage,
     },
     // The order of the JSON fields as it has always been, figures and words interleaved.
