@@ -17,7 +17,7 @@ import { renderMarkdown } from './markdown.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
 
 export { prefixOf, type SiteFile } from './siteFiles.ts';
-import { bodyView, subRegionView, views } from './views.ts';
+import { bodyView, revisedFigures, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
 
@@ -82,6 +82,10 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     charts: charts.charts,
     sparklines: charts.sparklines,
     view: views(model),
+    revisedFigures: revisedFigures(
+      model,
+      sameLanguage.map((other) => other.model),
+    ),
     content: renderMarkdown(bundle.content, locale, bundle.firstLocale ?? locale),
     cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
     pageUrl: siteUrl(model.meta.baseUrl, issue),

@@ -123,6 +123,8 @@ export function wordModel(
   const calendarMonthName = formatCalendarMonth(locale, calendarMonthOf(bulletinMonth));
   const baselineParams = { baselineFirst: config.baseline.firstYear, baselineLast: config.baseline.lastYear };
   const notices: Notice[] = key.caveats.map((text) => ({ kind: 'notice' as const, text }));
+  // The bulletin month is provisional: late scenes and reprocessing can change it; later issues list any change.
+  notices.push({ kind: 'notice', text: t('notice.provisional', { month: monthName }) });
   if (figures.pages.flagged > figures.pages.shown)
     notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: figures.pages.flagged, shown: figures.pages.shown }) });
   const region = surface.region.status;

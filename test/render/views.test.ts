@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
-import { bodyView, paginate, subRegionView, views, type TableView } from '../../src/render/views.ts';
+import { bodyView, paginate, revisedFigures, subRegionView, views, type TableView } from '../../src/render/views.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl } from '../../src/render/siteFiles.ts';
 import { translator } from '../../src/text/index.ts';
 import { MINI_CONFIG, miniFiles, writeMini } from '../support/miniBulletin.ts';
@@ -140,5 +140,29 @@ describe('site files', () => {
     expect(sitemap.match(/<url>/g)).toHaveLength(4);
     expect(sitemap).toContain('hreflang="fr"');
     expect([...byPath.keys()]).toContain('manifest.json');
+  });
+});
+
+describe('revised figures', () => {
+  it('lists a month an earlier issue printed with another value, and nothing when the values print the same', async () => {
+    const current = await miniModel();
+    const may = current.surfaceWater.region.series.find((row) => row.month === 2020 * 12 + 4);
+    if (!may || may.fillingPercent === null) throw new Error('the mini bulletin has May 2020');
+    // An earlier issue for May 2020 that printed 3 points less than this issue now gives.
+    const earlier = structuredClone(current);
+    earlier.meta = { ...earlier.meta, month: '2020-05', monthName: 'May 2020', revision: 1 };
+    earlier.surfaceWater.region.status = {
+      ...(earlier.surfaceWater.region.status as object),
+      kind: 'stated',
+      fillingPercent: may.fillingPercent - 3,
+    } as typeof earlier.surfaceWater.region.status;
+    const table = revisedFigures(current, [earlier]);
+    expect(table?.rows).toHaveLength(1);
+    expect(table?.rows[0]?.[0]).toBe('May 2020');
+    // The same value to one decimal is no revision.
+    (earlier.surfaceWater.region.status as { fillingPercent: number }).fillingPercent = may.fillingPercent + 0.01;
+    expect(revisedFigures(current, [earlier])).toBeNull();
+    // A later issue is never compared with.
+    expect(revisedFigures(earlier, [current])).toBeNull();
   });
 });
