@@ -94,12 +94,26 @@ export class CellReader {
     return raw.replace(',', '.');
   }
 
+  /**
+   * A month as YYYY-MM, or as YYYY-MM-01 (the first day standing for its month, as many exports
+   * write one); another day is refused, since a monthly table with days in it may be a daily one.
+   */
   month(values: string[], position: number, column: string, line: number): number {
     const cell = values[position] ?? '';
     const raw = cell.length === 7 ? cell : cell.trim();
-    const value = parseMonth(raw);
+    const value = parseMonth(raw.length === 10 && raw.endsWith('-01') ? raw.slice(0, 7) : raw);
     if (value === null) {
-      this.fail(line, column, raw, 'month-invalid', 'a month as YYYY-MM', 'the month cannot be read');
+      const day = /^\d{4}-\d{2}-\d{2}$/.test(raw);
+      this.fail(
+        line,
+        column,
+        raw,
+        'month-invalid',
+        'a month as YYYY-MM (or YYYY-MM-01)',
+        day
+          ? 'a day other than the first: a monthly table takes one row per month, dated YYYY-MM or YYYY-MM-01'
+          : 'the month cannot be read',
+      );
       return Number.NaN;
     }
     return value;
@@ -117,10 +131,25 @@ export class CellReader {
     return days;
   }
 
+  /**
+   * yes/no, in the spellings exports use: yes, no, true, false, 1, 0 (any case). An unreadable
+   * flag is an error but keeps its row (read as no): dropping a water body for its page flag would
+   * bury the one error under a follow-on "not in the inventory" for every row of every table.
+   */
   flag(values: string[], position: number, column: string, line: number): boolean {
     const raw = (values[position] ?? '').trim().toLowerCase();
-    if (raw === 'yes' || raw === 'no') return raw === 'yes';
-    this.fail(line, column, values[position] ?? '', 'value-not-flag', 'yes or no', 'the value is not yes or no');
+    if (raw === 'yes' || raw === 'true' || raw === '1') return true;
+    if (raw === 'no' || raw === 'false' || raw === '0') return false;
+    const value = values[position] ?? '';
+    this.problems.error({
+      code: 'value-not-flag',
+      file: this.file,
+      line,
+      column,
+      value,
+      expected: 'yes or no (or true/false, 1/0)',
+      message: 'the value is not yes or no',
+    });
     return false;
   }
 }

@@ -323,6 +323,8 @@ class BodyIds {
 
 /** A month YYYY-MM from 7 bytes, as year × 12 + month − 1; NaN when it is not one. */
 function monthAt8(buffer: Uint8Array, from: number, to: number): number {
+  // YYYY-MM-01 stands for its month, as in the general reader (cells.ts).
+  if (to - from === 10 && buffer[from + 7] === 45 && buffer[from + 8] === 48 && buffer[from + 9] === 49) to -= 3;
   if (to - from !== 7 || buffer[from + 4] !== 45) return Number.NaN;
   let year = 0;
   for (let k = 0; k < 4; k++) {

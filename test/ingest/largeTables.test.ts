@@ -53,8 +53,13 @@ const variants: Record<string, Parameters<typeof writeMini>[0]> = {
   },
   'empty optional cells': {
     'area.csv': base['area.csv'].replace('A,2018-01,8.0,0.95,3', 'A,2018-01,8.0,0.95,'),
-    'quality.csv': base['quality.csv'].replace('A,2018-01,chlorophyll_a,ug/L,2,3,4,5,6,80', 'A,2018-01,chlorophyll_a,ug/L,,3,4,5,,'),
+    'quality.csv': base['quality.csv'].replace('A,2018-01,chlorophyll_a,ug/L,2,3,4,5,6,150', 'A,2018-01,chlorophyll_a,ug/L,,3,4,5,,'),
   },
+  'months written as the first day (YYYY-MM-01)': {
+    'area.csv': base['area.csv'].replace(/,(\d{4}-\d{2}),/g, ',$1-01,'),
+    'quality.csv': base['quality.csv'].replace(/,(\d{4}-\d{2}),/g, ',$1-01,'),
+  },
+  'a month written as another day': { 'area.csv': base['area.csv'].replace('A,2018-02,', 'A,2018-02-15,') },
   // Each of these makes the fast path give up; the general reader then reports or accepts it.
   'a quoted cell': { 'area.csv': base['area.csv'].replace('A,2018-01,', '"A",2018-01,') },
   'a blank line': { 'area.csv': base['area.csv'].replace('\nA,2018-03', '\n\nA,2018-03') },
@@ -69,6 +74,12 @@ const variants: Record<string, Parameters<typeof writeMini>[0]> = {
 };
 
 describe('large tables: fast path against the general reader', () => {
+  it('the variants change the files they name (none is a no-op)', () => {
+    for (const [name, changes] of Object.entries(variants)) {
+      for (const [file, text] of Object.entries(changes ?? {})) expect(text, `${name}: ${file}`).not.toBe(base[file as keyof typeof base]);
+    }
+  });
+
   for (const [name, changes] of Object.entries(variants)) {
     it(`gives the same tables and problems (${name})`, async () => {
       const result = await bothPaths(changes);

@@ -274,3 +274,37 @@ describe('loadBulletin and the placeholder foreword', () => {
     expect(problems.errors).toEqual([]);
   });
 });
+
+describe('loadBulletin and the spellings of exports', () => {
+  it('reads yes/no as yes, no, true, false, 1 or 0 in any case, and refuses anything else by name', async () => {
+    const bodies = miniFiles()['bodies.csv'];
+    const spelled = (a: string, b: string) => bodies.replace(/,(yes|no)\n/, `,${a}\n`).replace(/,(yes|no)(\n|$)/, `,${b}$2`);
+    for (const [a, b] of [
+      ['TRUE', 'false'],
+      ['1', '0'],
+      ['Yes', 'NO'],
+    ]) {
+      const { inputs, problems } = await loadBulletin(writeMini({ 'bodies.csv': spelled(a as string, b as string) }));
+      expect(problems.errors, `${a}/${b}`).toEqual([]);
+      expect(
+        inputs?.bodies.map((body) => body.ownPage),
+        `${a}/${b}`,
+      ).toEqual([['true', '1', 'yes'].includes((a as string).toLowerCase()), ['true', '1', 'yes'].includes((b as string).toLowerCase())]);
+    }
+    const { problems } = await loadBulletin(writeMini({ 'bodies.csv': spelled('maybe', 'no') }));
+    expect(problems.errors.map((problem) => `${problem.code} ${problem.expected}`)).toEqual([
+      'value-not-flag yes or no (or true/false, 1/0)',
+    ]);
+  });
+
+  it('reads a month written YYYY-MM-01 as its month, and names the fix for another day', async () => {
+    const area = miniFiles()['area.csv'];
+    const firstDay = await loadBulletin(writeMini({ 'area.csv': area.replace(/,(\d{4}-\d{2}),/g, ',$1-01,') }));
+    expect(firstDay.problems.errors).toEqual([]);
+    expect(firstDay.inputs?.area.length).toBe(60);
+    const day = await loadBulletin(writeMini({ 'area.csv': area.replace('A,2018-03,', 'A,2018-03-15,') }));
+    expect(day.problems.errors.map((problem) => [problem.code, problem.line, problem.message])).toEqual([
+      ['month-invalid', 6, 'a day other than the first: a monthly table takes one row per month, dated YYYY-MM or YYYY-MM-01'],
+    ]);
+  });
+});
