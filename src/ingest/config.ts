@@ -170,6 +170,8 @@ export const configSchema = z.strictObject({
     .default({ minValidPixels: 100, seasons: [] }),
   statusBands: z.array(statusBand).min(2),
   csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
+  /** Columns an export carries that the tables do not use, skipped without a warning (every table, CSV or Parquet). */
+  tables: z.strictObject({ ignoreColumns: z.array(z.string().min(1).max(200)).max(200).default([]) }).default({ ignoreColumns: [] }),
   site: z.strictObject({
     baseUrl,
     /** Most water bodies that get a page of their own; the largest flagged bodies come first. */

@@ -143,7 +143,13 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   if (problems.errors.length > 0) return { inputs: null, problems };
   const at = (path: string) => real.get(path) as string;
   const bulletinMonth = parseMonth(config.issue.month) as number;
-  const context: ReadContext = { problems, bulletinMonth, decimal: config.csv.decimal, ...(onStep ? { onStep } : {}) };
+  const context: ReadContext = {
+    problems,
+    bulletinMonth,
+    decimal: config.csv.decimal,
+    ignoreColumns: config.tables.ignoreColumns,
+    ...(onStep ? { onStep } : {}),
+  };
   const subRegions = readBoundaries(at(paths.boundaries), label(paths.boundaries), problems);
   const regionIds = new Set(subRegions.map((region) => region.id));
   const bodies = await readInventory(at(paths.inventory), label(paths.inventory), context);

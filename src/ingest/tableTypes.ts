@@ -21,6 +21,7 @@ export interface AreaTable {
   /** Position of the body in the inventory. */
   body: Int32Array;
   month: Int32Array;
+  /** NaN for a month not seen at all (an empty area with an observed share of 0). */
   waterHa: Float64Array;
   observedShare: Float64Array;
   scenes: Float64Array;
@@ -81,6 +82,8 @@ export interface ReadContext {
   problems: ProblemList;
   bulletinMonth: number;
   decimal: DecimalMark | 'auto';
+  /** Columns to skip without a warning (tables.ignoreColumns). */
+  ignoreColumns?: string[];
   /** false: always the general reader (tests compare the two paths). Default true. */
   fastPath?: boolean;
   /** Told what is being read, for progress on the terminal. */

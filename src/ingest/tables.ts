@@ -26,9 +26,13 @@ import {
   type WaterBody,
 } from './tableTypes.ts';
 
-const spec = (required: string[], optional: string[] = []) => [
+/** Column specs: the required, the optional, and the ones the configuration says to skip (tables.ignoreColumns), read by nobody and warned about never. */
+const spec = (context: ReadContext, required: string[], optional: string[] = []) => [
   ...required.map((name) => ({ name, required: true })),
   ...optional.map((name) => ({ name, required: false })),
+  ...(context.ignoreColumns ?? [])
+    .filter((name) => !required.includes(name) && !optional.includes(name))
+    .map((name) => ({ name, required: false })),
 ];
 
 /** Months after the bulletin month belong to a later issue: skipped with one warning per file. */
@@ -80,7 +84,7 @@ export async function readInventory(path: string, label: string, context: ReadCo
   const seen = new Map<string, number>();
   const slugs = new Map<string, { id: string; line: number }>();
   const cells = new CellReader(label, context.problems, context.decimal);
-  const columns = spec(['body_id', 'name', 'subregion_id', 'lon', 'lat', 'reference_area_ha', 'kind', 'own_page']);
+  const columns = spec(context, ['body_id', 'name', 'subregion_id', 'lon', 'lat', 'reference_area_ha', 'kind', 'own_page']);
   await readTable(path, label, columns, context.problems, (values, line, at) => {
     cells.startRow();
     const body: WaterBody = {
@@ -149,15 +153,16 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
   await readTable(
     path,
     label,
-    spec(['body_id', 'month', 'water_area_ha', 'observed_share'], ['scenes']),
+    spec(context, ['body_id', 'month', 'water_area_ha', 'observed_share'], ['scenes']),
     context.problems,
     (values, line, at) => {
       cells.startRow();
       const id = cells.text(values, at.body_id!, 'body_id', line);
       const monthText = values[at.month!] ?? '';
       const when = cells.month(values, at.month!, 'month', line);
-      const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0);
       const observed = cells.number(values, at.observed_share!, 'observed_share', line, 0, 1);
+      // A month fully under cloud may leave the area empty: with an observed share of 0 it means "not seen".
+      const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0, Infinity, observed === 0);
       const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, 0, Infinity, true) : Number.NaN;
       if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
       const position = index.get(id);
@@ -254,7 +259,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
   await readTable(
     path,
     label,
-    spec(['body_id', 'month', 'parameter', 'unit', 'median'], ['p10', 'p25', 'p75', 'p90', 'valid_pixels']),
+    spec(context, ['body_id', 'month', 'parameter', 'unit', 'median'], ['p10', 'p25', 'p75', 'p90', 'valid_pixels']),
     context.problems,
     (values, line, at) => {
       cells.startRow();
@@ -351,7 +356,7 @@ export async function readRainfall(
   const seen = new Map<string, number>();
   const cells = new CellReader(label, context.problems, context.decimal);
   const later = new LaterMonths(label, context);
-  await readTable(path, label, spec(['subregion_id', 'month', 'rainfall_mm']), context.problems, (values, line, at) => {
+  await readTable(path, label, spec(context, ['subregion_id', 'month', 'rainfall_mm']), context.problems, (values, line, at) => {
     cells.startRow();
     const subRegionId = cells.text(values, at.subregion_id!, 'subregion_id', line);
     const monthText = values[at.month!] ?? '';
@@ -394,7 +399,7 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
   const records: FieldRecord[] = [];
   const cells = new CellReader(label, context.problems, context.decimal);
   const later = new LaterMonths(label, context);
-  await readTable(path, label, spec(['body_id', 'date', 'parameter', 'value', 'unit']), context.problems, (values, line, at) => {
+  await readTable(path, label, spec(context, ['body_id', 'date', 'parameter', 'value', 'unit']), context.problems, (values, line, at) => {
     cells.startRow();
     const bodyId = cells.text(values, at.body_id!, 'body_id', line);
     const day = cells.date(values, at.date!, 'date', line);
@@ -440,7 +445,7 @@ export async function readDistributionBins(
   await readTable(
     path,
     label,
-    spec(['subregion_id', 'month', 'parameter', 'bin_lower', 'bin_upper', 'pixel_count']),
+    spec(context, ['subregion_id', 'month', 'parameter', 'bin_lower', 'bin_upper', 'pixel_count']),
     context.problems,
     (values, line, at) => {
       cells.startRow();

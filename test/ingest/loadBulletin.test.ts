@@ -308,3 +308,36 @@ describe('loadBulletin and the spellings of exports', () => {
     ]);
   });
 });
+
+describe('loadBulletin and a month fully under cloud', () => {
+  it('reads an empty area with an observed share of 0 as "not seen", and still refuses an empty area that was seen', async () => {
+    const area = miniFiles()['area.csv'];
+    const cloudy = area.replace(/^A,2019-03,[^,]*,[^,]*,(\d*)$/m, 'A,2019-03,,0,$1');
+    expect(cloudy).not.toBe(area);
+    const { inputs, problems } = await loadBulletin(writeMini({ 'area.csv': cloudy }));
+    expect(problems.errors).toEqual([]);
+    expect(inputs?.area.length).toBe(60);
+    const seen = area.replace(/^A,2019-03,[^,]*,/m, 'A,2019-03,,');
+    const refused = await loadBulletin(writeMini({ 'area.csv': seen }));
+    expect(refused.problems.errors.map((problem) => `${problem.code} ${problem.column}`)).toEqual(['value-empty water_area_ha']);
+  });
+});
+
+describe('loadBulletin and tables.ignoreColumns', () => {
+  it('skips the listed columns without a warning, and still warns about the others', async () => {
+    const area = miniFiles()
+      ['area.csv'].split('\n')
+      .map((row, k) => (row === '' ? row : `${row},${k === 0 ? 'cloud_model' : 'v2'},${k === 0 ? 'operator' : 'x'}`))
+      .join('\n');
+    const warned = await loadBulletin(writeMini({ 'area.csv': area }));
+    expect(warned.problems.warnings.map((problem) => `${problem.code} ${problem.column}`)).toEqual([
+      'column-unknown cloud_model',
+      'column-unknown operator',
+    ]);
+    const config = JSON.parse(miniFiles()['bulletin.json']);
+    config.tables = { ignoreColumns: ['cloud_model'] };
+    const quiet = await loadBulletin(writeMini({ 'area.csv': area, 'bulletin.json': JSON.stringify(config) }));
+    expect(quiet.problems.warnings.map((problem) => `${problem.code} ${problem.column}`)).toEqual(['column-unknown operator']);
+    expect(quiet.inputs?.area.length).toBe(60);
+  });
+});
