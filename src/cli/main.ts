@@ -4,9 +4,9 @@
  */
 import { StageError, toolVersion } from '../build.ts';
 import { PublishError } from '../site/publish.ts';
-import { formatProblem, InputError } from '../ingest/index.ts';
+import { InputError } from '../ingest/index.ts';
 import { runBuild } from './build.ts';
-import { runCheck } from './check.ts';
+import { formatReport, runCheck } from './check.ts';
 import { runInit, runNewIssue } from './init.ts';
 import { runPreview } from './preview.ts';
 import { runTrend } from './trend.ts';
@@ -66,7 +66,8 @@ export async function main(argv: string[]): Promise<number> {
       return 2;
     }
     if (error instanceof InputError) {
-      for (const problem of error.problems) process.stderr.write(`${formatProblem(problem)}\n`);
+      const errors = error.problems.filter((problem) => problem.severity === 'error').length;
+      process.stderr.write(formatReport(error.problems, { errors, warnings: error.problems.length - errors }));
       process.stderr.write(`limnopress: ${error.message}; nothing was written\n`);
       return 1;
     }

@@ -44,3 +44,26 @@ describe('limnopress check', () => {
     expect(run().status).toBe(2);
   });
 });
+
+describe('formatReport folds floods', () => {
+  it('shows the first three of a kind in full and folds the rest into one line with their count and first lines', async () => {
+    const { formatReport } = await import('../../src/cli/check.ts');
+    const problem = (line: number, code: 'unknown-body' | 'value-empty' = 'unknown-body') => ({
+      severity: 'error' as const,
+      code,
+      file: 'data/area.csv',
+      line,
+      column: 'body_id',
+      value: 'X',
+      expected: 'an id from the water-body inventory',
+      message: 'the water body is not in the inventory',
+    });
+    const problems = [...Array.from({ length: 40 }, (_, k) => problem(k + 2)), problem(50, 'value-empty')];
+    const report = formatReport(problems, { errors: 41, warnings: 0 });
+    const lines = report.trimEnd().split('\n');
+    expect(lines[0]).toBe('data/area.csv');
+    expect(lines.filter((line) => line.includes('not in the inventory'))).toHaveLength(4); // three in full and the different code's one
+    expect(lines).toContain('  … and 37 more like this (lines 5, 6, 7, 8, 9, …)');
+    expect(lines[lines.length - 1]).toBe('41 errors, 0 warnings in 1 file.');
+  });
+});

@@ -46,17 +46,18 @@ describe('limnopress trend', () => {
     const path = table('month,chl\n2020-01,3.5\n2020-02,high\n2020-03,4\n');
     const result = run(path, '--time', 'month', '--value', 'chl');
     expect(result.status).toBe(1);
-    expect(result.stderr).toContain(`${path}:3 [chl]: the value is not a number (found "high"`);
+    // Grouped under the file, as check prints them.
+    expect(result.stderr).toContain(`${path}\n  error line 3 [chl]: the value is not a number (found "high"`);
     expect(result.stdout).toBe('');
   });
 
   it('limnopress trend reports a missing column and a missing file, and exits 1', () => {
     const missingColumn = run(table('month,chl\n2020-01,3\n'), '--time', 'month', '--value', 'turbidity');
     expect(missingColumn.status).toBe(1);
-    expect(missingColumn.stderr).toContain(':1 [turbidity]: a required column is missing');
+    expect(missingColumn.stderr).toContain('  error line 1 [turbidity]: a required column is missing');
     const missingFile = run(join(tmpdir(), 'no-such-limnopress-table.csv'), '--time', 'month', '--value', 'chl');
     expect(missingFile.status).toBe(1);
-    expect(missingFile.stderr).toContain('no-such-limnopress-table.csv: the file does not exist');
+    expect(missingFile.stderr).toMatch(/no-such-limnopress-table.csv\n  error file: the file does not exist/);
   });
 
   it('limnopress trend without --time exits 2 and --seasonal refuses yearly times', () => {
