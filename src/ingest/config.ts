@@ -75,87 +75,122 @@ const boundaries = z
   .refine((list) => list.every((value, k) => k === 0 || value > (list[k - 1] as number)), 'boundaries must rise');
 
 const statusBand = z.strictObject({
-  /** Short key used in data files, CSS classes and the wording catalogue (band.<key>). */
   key: z
     .string()
     .regex(/^[a-z][a-z-]*$/)
-    .max(40),
-  /** Lower bound, percent of the baseline median, inclusive; the lowest band has none. */
-  fromPercent: z.number().nullable(),
+    .max(40)
+    .describe(
+      'short key in lower case, used in data files, CSS classes and the wording catalogue (`band.<key>` gives its words in each language)',
+    ),
+  fromPercent: z.number().nullable().describe('lower bound, percent of the baseline median, inclusive; `null` for the lowest band'),
 });
 
 export const configSchema = z.strictObject({
-  title: label(200),
-  publisher: label(200),
-  region: z.strictObject({ name: label(200) }),
+  title: label(200).describe('title of the bulletin, on every page'),
+  publisher: label(200).describe('the agency that publishes it'),
+  region: z.strictObject({ name: label(200).describe('name of the region the bulletin covers') }),
   issue: z.strictObject({
-    month,
-    revision: z.number().int().min(1).default(1),
-    published: date,
-    draft: z.boolean().default(false),
-    /** Corrections made in this revision, shown at the top of every page of the issue. */
+    month: month.describe('the bulletin month, `YYYY-MM`'),
+    revision: z.number().int().min(1).default(1).describe('revision of this issue: 2 and up for a corrected re-publication'),
+    published: date.describe("publication date printed on every page, `YYYY-MM-DD` (never the build's clock)"),
+    draft: z
+      .boolean()
+      .default(false)
+      .describe('a draft carries a banner and is kept out of search engines; a published issue may not keep the placeholder foreword'),
     // `text` in the issue's first language; `translations` the same note in the others ({"fr": "…"}).
     corrections: z
       .array(
         z.strictObject({ date, text: z.string().min(1), translations: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() }),
       )
-      .default([]),
+      .default([])
+      .describe(
+        'corrections made in this revision, shown at the top of every page of the issue: `{date, text, translations}`, `text` in the first language and `translations` the same note in the others (`{"fr": "…"}`)',
+      ),
   }),
   baseline: z.strictObject({
-    firstYear: z.number().int(),
-    lastYear: z.number().int(),
-    /** Fewest baseline years a calendar month needs before a climatology is stated. */
-    minYears: z.number().int().min(2).default(3),
+    firstYear: z.number().int().describe('first year of the baseline the bulletin compares with'),
+    lastYear: z.number().int().describe('last year of the baseline'),
+    minYears: z
+      .number()
+      .int()
+      .min(2)
+      .default(3)
+      .describe('fewest baseline years a calendar month needs before a figure is stated against it'),
   }),
   coverage: z.strictObject({
-    /** A body-month seen through clouds over less than this share counts as missing. */
-    minObservedShare: z.number().min(0).max(1).default(0.6),
-    /** Below this share of the region's reference area observed, no regional figure is stated. */
-    minRegionCoverage: z.number().min(0).max(1).default(0.5),
-    /** Gaps of up to this many months are filled by linear interpolation (and flagged). */
-    maxFilledGap: z.number().int().min(0).max(12).default(2),
+    minObservedShare: z
+      .number()
+      .min(0)
+      .max(1)
+      .default(0.6)
+      .describe('a body-month seen through clouds over less than this share counts as missing'),
+    minRegionCoverage: z
+      .number()
+      .min(0)
+      .max(1)
+      .default(0.5)
+      .describe("below this share of a group's reference area seen, no figure is stated for the group"),
+    maxFilledGap: z
+      .number()
+      .int()
+      .min(0)
+      .max(12)
+      .default(2)
+      .describe('gaps of up to this many months are filled by linear interpolation, and flagged'),
   }),
   sizeClasses: z
     .strictObject({
-      /** Class boundaries for surface water (ha). */
-      surface: boundaries.default([100, 10_000]),
-      /** Class boundaries for water quality (ha); bodies under the first are left out. */
-      quality: boundaries.default([1, 5, 10, 100]),
+      surface: boundaries.default([100, 10_000]).describe('rising class boundaries for surface water, in hectares'),
+      quality: boundaries
+        .default([1, 5, 10, 100])
+        .describe('rising class boundaries for water quality, in hectares; bodies under the first are left out'),
     })
     .default({ surface: [100, 10_000], quality: [1, 5, 10, 100] }),
   grid: z
     .strictObject({
-      /** Side of the square map cells, in degrees. */
-      cellDegrees: z.number().positive().max(10).default(0.25),
-      /** Fewest water bodies a cell needs before its anomaly is shown. */
-      minBodies: z.number().int().min(1).default(2),
+      cellDegrees: z.number().positive().max(10).default(0.25).describe('side of the square map cells, in degrees'),
+      minBodies: z.number().int().min(1).default(2).describe('fewest water bodies a cell needs before its figure is shown'),
     })
     .default({ cellDegrees: 0.25, minBodies: 2 }),
   trends: z
     .strictObject({
-      /** False discovery rate for the Benjamini-Hochberg adjustment across water bodies. */
-      falseDiscoveryRate: z.number().gt(0).lt(1).default(0.05),
-      /** Kruskal-Wallis p below which a monthly series is treated as seasonal. */
-      seasonalityP: z.number().gt(0).lt(1).default(0.05),
-      /** Fewest counted months a series needs for a trend test. */
-      minMonths: z.number().int().min(12).default(36),
+      falseDiscoveryRate: z
+        .number()
+        .gt(0)
+        .lt(1)
+        .default(0.05)
+        .describe(
+          'false discovery rate of the Benjamini-Hochberg adjustment across each family of tests (bodies, sub-regions, seasonal classes)',
+        ),
+      seasonalityP: z
+        .number()
+        .gt(0)
+        .lt(1)
+        .default(0.05)
+        .describe('Kruskal-Wallis p below which a monthly series is treated as seasonal (it then gets the seasonal Sen slope)'),
+      minMonths: z.number().int().min(12).default(36).describe('fewest observed months a series needs for a trend test'),
     })
     .default({ falseDiscoveryRate: 0.05, seasonalityP: 0.05, minMonths: 36 }),
   validation: z
     .strictObject({
-      /** Days either side of a satellite month within which a field sample of water quality is matched to it. */
-      qualityWindowDays: z.number().int().min(0).max(31).default(10),
+      qualityWindowDays: z
+        .number()
+        .int()
+        .min(0)
+        .max(31)
+        .default(10)
+        .describe('days either side of a satellite month within which a field sample is matched to it when its own month has no value'),
     })
     .default({ qualityWindowDays: 10 }),
   quality: z
     .strictObject({
-      /**
-       * Fewest valid pixels behind a body's monthly median for it to be used (below, the body has
-       * no quality value that month). 100 pixels is about 1 ha at 10 m: under that, shore pixels
-       * mixed with land dominate. This project's default, not a published threshold.
-       */
-      minValidPixels: z.number().min(0).default(100),
-      /** Named seasons (calendar months 1–12) for the seasonal water-quality trends; none by default. */
+      minValidPixels: z
+        .number()
+        .min(0)
+        .default(100)
+        .describe(
+          "fewest valid pixels behind a body's monthly median for it to be used; 100 is about 1 ha at 10 m (this project's default, not a published threshold)",
+        ),
       // `names` gives the season's name in each language ("dry" / "sèche"); without one, the key is shown.
       seasons: z
         .array(
@@ -165,33 +200,63 @@ export const configSchema = z.strictObject({
             names: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional(),
           }),
         )
-        .default([]),
+        .default([])
+        .describe(
+          'named seasons for the seasonal water-quality trends: `{key, months, names}`, `months` the calendar months 1–12 in order (a season across the new year counts once), `names` its name per language',
+        ),
     })
     .default({ minValidPixels: 100, seasons: [] }),
-  statusBands: z.array(statusBand).min(2),
-  csv: z.strictObject({ decimal: z.enum(['.', ',', 'auto']).default('auto') }).default({ decimal: 'auto' }),
-  /** Columns an export carries that the tables do not use, skipped without a warning (every table, CSV or Parquet). */
-  tables: z.strictObject({ ignoreColumns: z.array(z.string().min(1).max(200)).max(200).default([]) }).default({ ignoreColumns: [] }),
+  statusBands: z.array(statusBand).min(2).describe('bands of percent of the baseline median, lowest first: `{key, fromPercent}`'),
+  csv: z
+    .strictObject({
+      decimal: z
+        .enum(['.', ',', 'auto'])
+        .default('auto')
+        .describe('decimal mark of the tables; `auto` reads a comma too, with one warning per file'),
+    })
+    .default({ decimal: 'auto' }),
+  tables: z
+    .strictObject({
+      ignoreColumns: z
+        .array(z.string().min(1).max(200))
+        .max(200)
+        .default([])
+        .describe('columns an export carries that no table uses, skipped in every table (CSV or Parquet) without a warning'),
+    })
+    .default({ ignoreColumns: [] }),
   site: z.strictObject({
-    baseUrl,
-    /** Most water bodies that get a page of their own; the largest flagged bodies come first. */
-    maxBodyPages: z.number().int().min(0).default(500),
-    bodiesPerListPage: z.number().int().min(1).default(500),
+    baseUrl: baseUrl.describe(
+      'where the site will be published: http or https, no user name, query or fragment (a trailing slash is added)',
+    ),
+    maxBodyPages: z
+      .number()
+      .int()
+      .min(0)
+      .default(500)
+      .describe(
+        'most water bodies with a page of their own; the largest flagged bodies come first, and a note says how many were left out',
+      ),
+    bodiesPerListPage: z
+      .number()
+      .int()
+      .min(1)
+      .default(500)
+      .describe('most water bodies listed on one page; a longer list gets numbered pages'),
   }),
-  /** Interface languages: the first is published at the site root, each other under /<locale>/. */
   locales: z
     .array(z.enum(LOCALES))
     .min(1)
     .refine((list) => new Set(list).size === list.length, 'each locale once')
-    .default(['en']),
+    .default(['en'])
+    .describe('languages of the issue, each once: the first at the site root, every other under `/<locale>/`'),
   inputs: z.strictObject({
-    inventory: z.string().min(1),
-    surfaceArea: z.string().min(1),
-    quality: z.string().min(1).optional(),
-    distribution: z.string().min(1).optional(),
-    rainfall: z.string().min(1).optional(),
-    field: z.string().min(1).optional(),
-    boundaries: z.string().min(1),
+    inventory: z.string().min(1).describe('path of the water-body inventory (CSV or Parquet)'),
+    surfaceArea: z.string().min(1).describe('path of the surface-area table'),
+    quality: z.string().min(1).optional().describe('path of the water-quality table'),
+    distribution: z.string().min(1).optional().describe('path of the table of quality value distributions'),
+    rainfall: z.string().min(1).optional().describe('path of the rainfall table'),
+    field: z.string().min(1).optional().describe('path of the field measurements'),
+    boundaries: z.string().min(1).describe('path of the sub-region boundaries (GeoJSON)'),
   }),
 });
 
