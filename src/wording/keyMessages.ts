@@ -15,9 +15,9 @@
  * 4. trend count: water bodies whose steady decline holds after the Benjamini-Hochberg adjustment
  *    and is not explained by a single shift in level, and in the same message the bodies whose
  *    change is such a shift (a drought step is not a long-term trend);
- * 5. region: when Pettitt's test finds a single shift in level (its p within the false discovery rate), the shift's month and
- *    the evidence of a trend before it; otherwise the regional trend with its evidence words (only
- *    with at least moderate evidence);
+ * 5. region: when Pettitt's test finds a single shift in level (its p within the false discovery
+ *    rate), the shift's month and the evidence of a trend before it; otherwise the regional trend
+ *    with its evidence words (only with at least moderate evidence);
  * 6. chlorophyll-a: bodies above the WHO 10 µg/L level (when any);
  * 7. change from a year ago (when rules 2–6 left room; at most six messages in all).
  */
@@ -27,6 +27,7 @@ import { evidenceFor, type EvidenceKey } from '../model/evidence.ts';
 import type { Quality } from '../model/quality.ts';
 import type { SurfaceWater } from '../model/surfaceWater.ts';
 import type { TrendSummary } from '../model/trends.ts';
+import type { MethodId } from '../model/methods.ts';
 
 /** Months in a row below usual from which the deficit is a key message (a season: fewer are in the status words already). */
 export const DEFICIT_MONTHS = 3;
@@ -35,7 +36,7 @@ export interface KeyMessage {
   id: string;
   text: string;
   /** The figure the message rests on, as printed and as a number. */
-  figure: { value: number; unit: string; method: string };
+  figure: { value: number; unit: string; method: MethodId };
   /** Page (relative to the issue) and anchor that show the figure. */
   link: string;
   evidence?: EvidenceKey;
@@ -151,7 +152,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
     messages.push({
       id: 'region-shift',
       text: t('key.regionShift', { month: formatMonth(input.locale, regionShift.month), evidence: t(`evidence.${before}`) }),
-      figure: { value: regionShift.p, unit: 'p of the shift (Pettitt)', method: 'trend-region' },
+      figure: { value: regionShift.step, unit: 'percentage points of reference area, median step at the shift', method: 'trend-region' },
       link: 'trends/#region',
       evidence: before,
     });

@@ -77,3 +77,19 @@ describe('formatCount', () => {
     expect(formatCount(loadMessages('en'), 'en', 'ui.pager.next', 1, { month: 'May 2026' })).toBe('Next issue: May 2026');
   });
 });
+
+describe('template keys', () => {
+  it('every catalogue key a template names (t["…"]) exists: templates are not type-checked, so this test is their check', () => {
+    const english = loadMessages('en');
+    const root = join(import.meta.dirname, '..', '..', 'templates');
+    const templates = (dir: string): string[] =>
+      readdirSync(dir, { withFileTypes: true }).flatMap((entry) =>
+        entry.isDirectory() ? templates(join(dir, entry.name)) : entry.name.endsWith('.njk') ? [join(dir, entry.name)] : [],
+      );
+    const named: string[] = [];
+    for (const file of templates(root))
+      for (const match of readFileSync(file, 'utf8').matchAll(/t\[["']([^"']+)["']\]/g)) named.push(match[1] as string);
+    expect(named.length).toBeGreaterThan(50);
+    expect(named.filter((key) => !(key in english))).toEqual([]);
+  });
+});
