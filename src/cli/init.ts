@@ -23,10 +23,11 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
   const last = parseMonth(month) as number;
   const first = last - 35;
   const bodies = [
-    ['S1', 'Sample Lake North', 'NORTH', 10.12, 50.62, 40, 'lake', 'yes'],
-    ['S2', 'Sample Reservoir North', 'NORTH', 10.34, 50.71, 320, 'reservoir', 'yes'],
-    ['S3', 'Sample Pond South', 'SOUTH', 10.21, 50.18, 3, 'pond', 'no'],
-    ['S4', 'Sample Reservoir South', 'SOUTH', 10.41, 50.29, 1200, 'reservoir', 'yes'],
+    // Over open ocean in the South Pacific, so the invented sample cannot be taken for a real place.
+    ['S1', 'Sample Lake North', 'NORTH', -129.88, -39.38, 40, 'lake', 'yes'],
+    ['S2', 'Sample Reservoir North', 'NORTH', -129.66, -39.29, 320, 'reservoir', 'yes'],
+    ['S3', 'Sample Pond South', 'SOUTH', -129.79, -39.82, 3, 'pond', 'no'],
+    ['S4', 'Sample Reservoir South', 'SOUTH', -129.59, -39.71, 1200, 'reservoir', 'yes'],
   ] as const;
   const area = ['body_id,month,water_area_ha,observed_share,scenes'];
   const quality = ['body_id,month,parameter,unit,p10,p25,median,p75,p90,valid_pixels'];
@@ -44,11 +45,11 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
     for (const region of ['NORTH', 'SOUTH']) rain.push(`${region},${monthLabel(m)},${(60 + 40 * season).toFixed(1)}`);
   }
   const ring = (south: number) => [
-    [10, south],
-    [10.5, south],
-    [10.5, south + 0.5],
-    [10, south + 0.5],
-    [10, south],
+    [-130, south],
+    [-129.5, south],
+    [-129.5, south + 0.5],
+    [-130, south + 0.5],
+    [-130, south],
   ];
   const geojson = {
     type: 'FeatureCollection',
@@ -56,12 +57,12 @@ function sampleFiles(month: string, locales: string[]): Record<string, string> {
       {
         type: 'Feature',
         properties: { subregion_id: 'NORTH', name: 'Sample North' },
-        geometry: { type: 'Polygon', coordinates: [ring(50.5)] },
+        geometry: { type: 'Polygon', coordinates: [ring(-39.5)] },
       },
       {
         type: 'Feature',
         properties: { subregion_id: 'SOUTH', name: 'Sample South' },
-        geometry: { type: 'Polygon', coordinates: [ring(50)] },
+        geometry: { type: 'Polygon', coordinates: [ring(-40)] },
       },
     ],
   };
