@@ -46,7 +46,7 @@ export async function readQualityFast(path: string, bodies: WaterBody[], context
     month: joined.month,
     parameter: joined.parameter as Int32Array,
     median,
-    validPixels,
+    validPixels: Float32Array.from(validPixels),
   };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }

@@ -331,7 +331,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     month: month.done(),
     parameter: parameter.done(),
     median: medians.done(),
-    validPixels: pixels.done(),
+    validPixels: Float32Array.from(pixels.done()),
   };
   reportDuplicates(
     duplicates,
