@@ -233,11 +233,12 @@ export function validationChart(model: BulletinModel, index: number): ChartDefin
   const top = Math.max(...values.map((row) => Math.max(row.field ?? 0, row.satellite ?? 0)));
   const a = entry.agreement;
   const locale = model.meta.locale;
+  const figure = (value: number | null) => (value === null ? '–' : formatNumber(locale, value, 2));
   const stats = t('chart.validation.stats', {
-    n: a.n,
-    bias: formatNumber(locale, a.bias, 2),
-    rmse: formatNumber(locale, a.rootMeanSquareError, 2),
-    r2: formatNumber(locale, a.rSquared, 2),
+    n: a.n ?? 0,
+    bias: figure(a.bias),
+    rmse: figure(a.rootMeanSquareError),
+    r2: figure(a.rSquared),
     unit,
   });
   const spec: TopLevelSpec = {

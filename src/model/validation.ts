@@ -16,10 +16,18 @@ export interface ValidationSummary {
   parameter: QualityParameter;
   windowDays: number;
   pairs: Array<{ bodyId: string; date: string; field: number; satellite: number; satelliteMonth: number }>;
-  agreement: AgreementResult;
+  /** Null where a measure is undefined (too few pairs, no spread): null is the model's only "no value". */
+  agreement: Nullable<AgreementResult>;
   /** The same pairs on a ratio scale (Morley et al. 2018; log10 bias and R²): these values are close to log-normal. */
-  logAgreement: LogAgreementResult;
+  logAgreement: Nullable<LogAgreementResult>;
 }
+
+/** The same record with every number that is not finite as null. */
+type Nullable<T> = { [K in keyof T]: T[K] extends number ? number | null : T[K] };
+const nullable = <T extends object>(record: T): Nullable<T> =>
+  Object.fromEntries(
+    Object.entries(record).map(([key, value]) => [key, typeof value === 'number' && !Number.isFinite(value) ? null : value]),
+  ) as Nullable<T>;
 
 const DAY = 86_400_000;
 
@@ -57,13 +65,17 @@ export function validation(inputs: BulletinInputs): ValidationSummary[] {
         parameter,
         windowDays,
         pairs,
-        agreement: agreement(
-          pairs.map((pair) => pair.field),
-          pairs.map((pair) => pair.satellite),
+        agreement: nullable(
+          agreement(
+            pairs.map((pair) => pair.field),
+            pairs.map((pair) => pair.satellite),
+          ),
         ),
-        logAgreement: logAgreement(
-          pairs.map((pair) => pair.field),
-          pairs.map((pair) => pair.satellite),
+        logAgreement: nullable(
+          logAgreement(
+            pairs.map((pair) => pair.field),
+            pairs.map((pair) => pair.satellite),
+          ),
         ),
       },
     ];

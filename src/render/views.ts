@@ -385,7 +385,7 @@ function validationTables(model: BulletinModel, f: Formatters): TableView[] {
             num(entry.agreement.rSquared, 2),
             `a = ${num(entry.agreement.intercept, 2)}, b = ${num(entry.agreement.slope, 2)}`,
             pct(entry.logAgreement.medianSymmetricAccuracy),
-            `${entry.logAgreement.symmetricSignedBias > 0 ? '+' : ''}${pct(entry.logAgreement.symmetricSignedBias)}`,
+            `${(entry.logAgreement.symmetricSignedBias ?? 0) > 0 ? '+' : ''}${pct(entry.logAgreement.symmetricSignedBias)}`,
             num(entry.logAgreement.rSquaredLog10, 2),
           ]),
           note: t('view.validation.note', { days: model.validation[0]?.windowDays ?? 0 }),

@@ -151,3 +151,25 @@ describe('the wording stage in a second language', () => {
     expect(english.surfaceWater.sizeClasses.map((entry) => entry.name)).toContain('over 10,000 ha');
   });
 });
+
+describe('no value is null', () => {
+  /** Paths (indices folded) of every number in the model that is NaN or infinite. */
+  const notFinite = (model: unknown) => {
+    const found = new Set<string>();
+    const walk = (value: unknown, path: string) => {
+      if (typeof value === 'number' && !Number.isFinite(value)) found.add(path);
+      else if (Array.isArray(value)) for (const item of value) walk(item, `${path}[]`);
+      else if (value && typeof value === 'object') for (const [key, item] of Object.entries(value)) walk(item, `${path}.${key}`);
+    };
+    walk(model, 'model');
+    return [...found];
+  };
+
+  it('the model holds no NaN or Infinity, so its JSON never turns one into null unnoticed (the example, and a month nobody saw)', async () => {
+    const { inputs, problems } = await loadBulletin(EXAMPLE);
+    if (!inputs) throw new Error('example does not load');
+    expect(notFinite(buildModel(inputs, problems.warnings, 'test'))).toEqual([]);
+    const area = miniFiles()['area.csv'].replace(/^(A|B),2020-06,[^,]*,[^,]*,(\d*)$/gm, '$1,2020-06,,0,$2');
+    expect(notFinite(await modelOf({ 'area.csv': area }))).toEqual([]);
+  });
+});
