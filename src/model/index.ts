@@ -68,6 +68,13 @@ export interface IssueFigures {
   validation: ValidationSummary[];
   /** Bodies flagged for a page of their own, and how many of them got one (site.maxBodyPages, largest first). */
   pages: { flagged: number; shown: number };
+  /**
+   * The share of the region's reference area actually seen in the bulletin month: each body's
+   * observed share weighted by its reference area, over every body of the inventory (a body
+   * without a row counts as unseen). Not the same as the coverage of a group figure, which counts
+   * the reference area of the bodies seen well enough to use.
+   */
+  seenSharePercent: number;
 }
 
 export interface PreparedModel {
@@ -158,5 +165,20 @@ export function issueFigures(inputs: BulletinInputs, prepared?: PreparedModel): 
     boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
     validation: validation(inputs),
     pages: { flagged: flagged.length, shown: pageBodies.size },
+    seenSharePercent: seenShare(inputs),
   };
+}
+
+/** Percent of the inventory's reference area seen in the bulletin month (observed shares weighted by reference area). */
+function seenShare(inputs: BulletinInputs): number {
+  const reference = referenceAreasOf(inputs);
+  let total = 0;
+  for (const ha of reference) total += ha;
+  let seen = 0;
+  const area = inputs.area;
+  for (let k = 0; k < area.length; k++) {
+    if (area.month[k] !== inputs.bulletinMonth) continue;
+    seen += (area.observedShare[k] as number) * (reference[area.body[k] as number] as number);
+  }
+  return total > 0 ? (100 * seen) / total : 0;
 }

@@ -76,6 +76,7 @@ export function views(model: BulletinModel) {
       percentOfBaseline: pct(regionStated?.percentOfBaseline),
       band: statusWords(regionStatus),
       coverage: pct(regionStatus.coveragePercent),
+      seen: pct(model.seenSharePercent, 1),
       declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
       shifted: t('view.countOf', { count: model.trends.bodies.shiftedDown, total: model.trends.bodies.tested }),
       deficit: deficitWords(model.surfaceWater.region.deficit, f, locale),

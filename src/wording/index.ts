@@ -67,6 +67,7 @@ export interface BulletinModel {
   rainfall: IssueFigures['rainfall'];
   boundaries: IssueFigures['boundaries'];
   validation: IssueFigures['validation'];
+  seenSharePercent: IssueFigures['seenSharePercent'];
   keyMessages: KeyMessage[];
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
   headline: string;
@@ -184,6 +185,7 @@ export function wordModel(
     rainfall: figures.rainfall,
     boundaries: figures.boundaries,
     validation: figures.validation,
+    seenSharePercent: figures.seenSharePercent,
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,

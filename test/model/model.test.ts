@@ -173,3 +173,13 @@ describe('no value is null', () => {
     expect(notFinite(await modelOf({ 'area.csv': area }))).toEqual([]);
   });
 });
+
+describe('the share actually seen', () => {
+  it('weights each body’s observed share by its reference area, and counts a body without a row as unseen', async () => {
+    // June 2020: A (10 ha) seen 0.95, B (200 ha) seen 0.9 → (9.5 + 180) / 210 = 90.238 %.
+    expect((await modelOf()).seenSharePercent).toBeCloseTo((100 * (0.95 * 10 + 0.9 * 200)) / 210, 10);
+    // Without B's June row: 9.5 / 210 = 4.524 %.
+    const area = miniFiles()['area.csv'].replace(/^B,2020-06,.*\n/m, '');
+    expect((await modelOf({ 'area.csv': area })).seenSharePercent).toBeCloseTo((100 * 9.5) / 210, 10);
+  });
+});
