@@ -305,16 +305,65 @@ export function didYouMean(key: string, known: string[]): string {
   return bestDistance <= Math.max(2, Math.floor(key.length / 3)) ? best : '';
 }
 
-/** 1-based line of the last key of a path in the JSON text, found by walking the keys in order. */
+/**
+ * 1-based line of a path in the JSON text (object keys and array indices), found by scanning the
+ * text's structure, so a key is found at its own place even when the same name appears earlier
+ * as another key or a value. The deepest part of the path that exists gives the line; 0 when not
+ * even its first part does (or for the empty path).
+ */
 export function lineOfPath(text: string, path: PropertyKey[]): number {
-  let at = 0;
-  for (const key of path) {
-    if (typeof key === 'number') continue;
-    const found = text.indexOf(`"${String(key)}"`, at);
-    if (found < 0) break;
-    at = found;
+  const lines = keyLines(text);
+  for (let depth = path.length; depth > 0; depth--) {
+    const line = lines.get(path.slice(0, depth).map(String).join('\u0000'));
+    if (line !== undefined) return line;
   }
-  return at === 0 && path.length > 0 ? 0 : text.slice(0, at).split('\n').length;
+  return 0;
+}
+
+/** Every key path of a JSON text (parts joined by NUL) with the line its key or array item starts on. */
+function keyLines(text: string): Map<string, number> {
+  const found = new Map<string, number>();
+  const stack: Array<{ kind: 'object' | 'array'; path: string[]; index: number; key: string | null }> = [];
+  let line = 1;
+  let expectKey = false;
+  const startValue = () => {
+    const top = stack[stack.length - 1];
+    if (top?.kind === 'array') {
+      const path = [...top.path, String(top.index)];
+      if (!found.has(path.join('\u0000'))) found.set(path.join('\u0000'), line);
+    }
+  };
+  const pathOfValue = (): string[] => {
+    const top = stack[stack.length - 1];
+    if (!top) return [];
+    return top.kind === 'object' ? [...top.path, top.key ?? ''] : [...top.path, String(top.index)];
+  };
+  for (let k = 0; k < text.length; k++) {
+    const c = text[k] as string;
+    if (c === '\n') line++;
+    else if (c === '"') {
+      let end = k + 1;
+      while (end < text.length && text[end] !== '"') end += text[end] === '\\' ? 2 : 1;
+      const top = stack[stack.length - 1];
+      if (expectKey && top?.kind === 'object') {
+        const key = JSON.parse(text.slice(k, end + 1)) as string;
+        top.key = key;
+        found.set([...top.path, key].join('\u0000'), line);
+        expectKey = false;
+      } else startValue();
+      k = end;
+    } else if (c === '{' || c === '[') {
+      startValue();
+      stack.push({ kind: c === '{' ? 'object' : 'array', path: pathOfValue(), index: 0, key: null });
+      expectKey = c === '{';
+    } else if (c === '}' || c === ']') stack.pop();
+    else if (c === ',') {
+      const top = stack[stack.length - 1];
+      if (top?.kind === 'array') top.index++;
+      else expectKey = true;
+    } else if (c !== ' ' && c !== '\t' && c !== '\r' && c !== ':') startValue();
+  }
+  return found;
 }
 
 /** Reads and validates a configuration file; returns null when it cannot be used. */

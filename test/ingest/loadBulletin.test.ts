@@ -341,3 +341,23 @@ describe('loadBulletin and tables.ignoreColumns', () => {
     expect(quiet.inputs?.area.length).toBe(60);
   });
 });
+
+describe('loadBulletin and the line of a configuration problem', () => {
+  it('names the line of an unknown key itself, even when the same name is a key or a value higher up', async () => {
+    const text = config(() => {}).replace(/\n}\s*$/, ',\n  "name": "a top-level key that does not exist"\n}\n');
+    const line = text.split('\n').findIndex((row) => row.includes('"a top-level key')) + 1;
+    expect(text.indexOf('"name"')).toBeLessThan(text.lastIndexOf('"name"')); // region.name comes first
+    const { problems } = await loadBulletin(writeMini({ 'bulletin.json': text }));
+    expect(problems.errors.map((problem) => `${problem.code} ${problem.line}`)).toEqual([`config-unknown-key ${line}`]);
+  });
+
+  it('lineOfPath finds keys and array items by their place in the structure', async () => {
+    const { lineOfPath } = await import('../../src/ingest/config.ts');
+    const text = '{\n  "a": { "name": "x" },\n  "list": [\n    { "name": 1 },\n    { "key": "name" }\n  ],\n  "name": 2\n}\n';
+    expect(lineOfPath(text, ['name'])).toBe(7);
+    expect(lineOfPath(text, ['a', 'name'])).toBe(2);
+    expect(lineOfPath(text, ['list', 1, 'key'])).toBe(5);
+    expect(lineOfPath(text, ['list', 1, 'missing'])).toBe(5); // the deepest part that exists
+    expect(lineOfPath(text, ['nowhere'])).toBe(0);
+  });
+});
