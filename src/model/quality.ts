@@ -17,6 +17,7 @@ import type { BulletinConfig, BulletinInputs, QualityParameter } from '../ingest
 import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import {
   benjaminiHochberg,
+  finiteOrNull,
   mannKendall,
   median,
   quantile,
@@ -152,7 +153,6 @@ export function parameterMonths(inputs: BulletinInputs, parameter: QualityParame
 }
 
 const round = (value: number) => Math.round(value * 1e6) / 1e6;
-const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);
 
 function edgesFor(parameter: QualityParameter): number[] {
   // Chlorophyll-a: 0.1 to 1000 µg/L, four bins a decade. Turbidity: 0 to 100 FNU in steps of 5.

@@ -18,6 +18,7 @@ import {
   ar1Pettitt,
   benjaminiHochberg,
   calendarMonthAnomalies,
+  finiteOrNull,
   kruskalWallis,
   median,
   pettitt,
@@ -126,12 +127,11 @@ export function trendTest(months: ArrayLike<number>, values: ArrayLike<number>, 
     seasonalityP: seasonality.p,
     method: 'mann-kendall-ar1',
     slopePerYear: slope(0, keptValues.length),
-    p: ar1MannKendall(years, keptValues, keptMonths).p,
+    // The anomalies are the ones the test would make from keptMonths: passed as they are, not made again.
+    p: ar1MannKendall(years, anomalies).p,
     shift,
   };
 }
-
-const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);
 
 /**
  * What a tested entry shows. A single shift in level (its Pettitt p within the false discovery

@@ -67,3 +67,6 @@ export function copyFinitePairs(
   }
   return n;
 }
+
+/** A number as the model stores it: itself when finite, null otherwise (null is the model's only "no value"). */
+export const finiteOrNull = (value: number) => (Number.isFinite(value) ? value : null);

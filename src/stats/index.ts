@@ -4,7 +4,7 @@ export { agreement, logAgreement, type AgreementResult, type LogAgreementResult 
 export { anomaly, type Anomaly } from './anomaly.ts';
 export { benjaminiHochberg, type FalseDiscoveryResult } from './benjaminiHochberg.ts';
 export { climatology, type BaselinePeriod, type ClimatologyEntry } from './climatology.ts';
-export { finitePairs, finiteValues } from './finiteValues.ts';
+export { finiteOrNull, finitePairs, finiteValues } from './finiteValues.ts';
 export { hamedRao, type HamedRaoResult } from './hamedRao.ts';
 export { mannKendall, type MannKendallResult, type TrendReason } from './mannKendall.ts';
 export { mean } from './mean.ts';
