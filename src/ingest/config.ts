@@ -137,6 +137,15 @@ export const configSchema = z.strictObject({
       .max(12)
       .default(2)
       .describe('gaps of up to this many months are filled by linear interpolation, and flagged'),
+    maxCarriedMonths: z
+      .number()
+      .int()
+      .min(0)
+      .max(12)
+      .default(3)
+      .describe(
+        "an unseen body's own ratio to usual is carried forward from its last value at most this many months old (fixed-set estimation); older, its seen neighbours' ratio is used",
+      ),
   }),
   sizeClasses: z
     .strictObject({

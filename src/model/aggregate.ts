@@ -1,11 +1,14 @@
 /**
  * Filling of a group of water bodies (the region, a sub-region, a size class, a grid cell) month by
- * month, as a ratio estimator: Σ water area / Σ reference area over the bodies with a value that
- * month (observed or filled), so the bodies with a value stand for the others in proportion to
- * their size. Coverage is the share of the group's reference area actually observed (filled months
- * do not count); below `minCoverage` percent no figure is stated for the month.
+ * month: Σ water area / Σ reference area over the group's bodies. With an estimation basis (the
+ * fixed set, see estimate.ts) every body counts every month: seen, filled from a short gap, or
+ * estimated; a range puts every estimated body at the low and at the high end of its spread.
+ * Without one (a single body's own figure) only the body-months with a value count. Coverage is the
+ * share of the group's reference area actually observed (filled and estimated months do not count);
+ * below `minCoverage` percent no figure is stated for the month.
  */
-import { FILLED, OBSERVED, type BodySeries } from './bodySeries.ts';
+import { MISSING, OBSERVED, type BodySeries } from './bodySeries.ts';
+import { estimateAt, type Estimate, type EstimationBasis } from './estimate.ts';
 
 export interface GroupMonth {
   month: number;
@@ -15,7 +18,15 @@ export interface GroupMonth {
   coveragePercent: number;
   /** Percent of the group's reference area whose value was filled by interpolation. */
   filledPercent: number;
+  /** Percent of the group's reference area estimated (fixed set, estimate.ts); 0 without estimation. */
+  estimatedPercent: number;
+  /** The figure with every estimated body at the low / high end of its spread; null when no figure is stated. */
+  lowPercent: number | null;
+  highPercent: number | null;
+  /** Bodies seen or filled from a short gap. */
   bodiesWithValue: number;
+  /** Bodies estimated. */
+  bodiesEstimated: number;
 }
 
 /**
@@ -29,6 +40,7 @@ export function aggregate(
   referenceHa: ArrayLike<number>,
   minCoveragePercent: number,
   keep?: (month: number) => boolean,
+  basis?: EstimationBasis,
 ): GroupMonth[] {
   let total = 0;
   for (let m = 0; m < members.length; m++) total += referenceHa[members[m] as number] as number;
@@ -39,6 +51,11 @@ export function aggregate(
   const observed = new Float64Array(slots.length);
   const filled = new Float64Array(slots.length);
   const count = new Int32Array(slots.length);
+  const low = new Float64Array(slots.length);
+  const high = new Float64Array(slots.length);
+  const estimated = new Float64Array(slots.length);
+  const estimatedCount = new Int32Array(slots.length);
+  const estimate: Estimate = { value: 0, low: 0, high: 0, source: 'carried' };
   for (let m = 0; m < members.length; m++) {
     const body = members[m] as number;
     const states = series.state[body] as Uint8Array;
@@ -47,8 +64,20 @@ export function aggregate(
     for (let s = 0; s < slots.length; s++) {
       const slot = slots[s] as number;
       const state = states[slot];
-      if (state !== OBSERVED && state !== FILLED) continue;
-      water[s] = (water[s] as number) + (filling[slot] as number) * ha;
+      if (state === MISSING) {
+        if (!basis || !estimateAt(basis, series, body, slot, estimate)) continue;
+        water[s] = (water[s] as number) + estimate.value * ha;
+        low[s] = (low[s] as number) + estimate.low * ha;
+        high[s] = (high[s] as number) + estimate.high * ha;
+        reference[s] = (reference[s] as number) + ha;
+        estimated[s] = (estimated[s] as number) + ha;
+        estimatedCount[s] = (estimatedCount[s] as number) + 1;
+        continue;
+      }
+      const value = (filling[slot] as number) * ha;
+      water[s] = (water[s] as number) + value;
+      low[s] = (low[s] as number) + value;
+      high[s] = (high[s] as number) + value;
       reference[s] = (reference[s] as number) + ha;
       count[s] = (count[s] as number) + 1;
       if (state === OBSERVED) observed[s] = (observed[s] as number) + ha;
@@ -57,13 +86,18 @@ export function aggregate(
   }
   return slots.map((slot, s) => {
     const coveragePercent = total > 0 ? (100 * (observed[s] as number)) / total : 0;
+    const ref = reference[s] as number;
+    const stated = ref > 0 && coveragePercent >= minCoveragePercent;
     return {
       month: series.firstMonth + slot,
-      fillingPercent:
-        (reference[s] as number) > 0 && coveragePercent >= minCoveragePercent ? (water[s] as number) / (reference[s] as number) : null,
+      fillingPercent: stated ? (water[s] as number) / ref : null,
       coveragePercent,
       filledPercent: total > 0 ? (100 * (filled[s] as number)) / total : 0,
+      estimatedPercent: total > 0 ? (100 * (estimated[s] as number)) / total : 0,
+      lowPercent: stated ? (low[s] as number) / ref : null,
+      highPercent: stated ? (high[s] as number) / ref : null,
       bodiesWithValue: count[s] as number,
+      bodiesEstimated: estimatedCount[s] as number,
     };
   });
 }

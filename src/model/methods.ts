@@ -8,6 +8,7 @@ import { formatMessage, loadMessages } from '../text/index.ts';
 export const METHOD_IDS = [
   'filling-ratio',
   'gap-filling',
+  'fixed-set',
   'status',
   'deficit',
   'size-class-loss',

@@ -44,6 +44,9 @@ export type Status =
       fillingPercent: number;
       coveragePercent: number;
       filledPercent: number;
+      /** Share of the reference area estimated (fixed set), and the figure's range from the estimates (estimate.ts). */
+      estimatedPercent: number;
+      range: FigureRange;
       baseline: BaselineSummary;
       /** Filling minus the baseline median, in percentage points of reference area. */
       anomalyPoints: number;
@@ -59,7 +62,27 @@ export type Status =
       changeFromPreviousMonth: number | null;
     }
   | { kind: 'low-coverage'; coveragePercent: number; thresholdPercent: number }
-  | { kind: 'short-baseline'; fillingPercent: number; coveragePercent: number; usableYears: number; neededYears: number };
+  | {
+      kind: 'short-baseline';
+      fillingPercent: number;
+      coveragePercent: number;
+      estimatedPercent: number;
+      range: FigureRange;
+      usableYears: number;
+      neededYears: number;
+    };
+
+/**
+ * Where a figure could lie given its estimated bodies: filling with every estimated body at the low
+ * and at the high end of its spread; for a stated status also as percent of the baseline median.
+ * Low equals high when nothing was estimated.
+ */
+export interface FigureRange {
+  low: number;
+  high: number;
+  percentOfBaselineLow: number | null;
+  percentOfBaselineHigh: number | null;
+}
 
 export function bandFor(percentOfBaseline: number, bands: Array<{ key: string; fromPercent: number | null }>): string {
   let key = bands[0]?.key ?? '';
@@ -84,6 +107,8 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
       kind: 'short-baseline',
       fillingPercent: current.fillingPercent,
       coveragePercent: current.coveragePercent,
+      estimatedPercent: current.estimatedPercent,
+      range: rangeOf(current, null),
       usableYears: entry?.count ?? 0,
       neededYears: config.baseline.minYears,
     };
@@ -106,6 +131,8 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
     fillingPercent: current.fillingPercent,
     coveragePercent: current.coveragePercent,
     filledPercent: current.filledPercent,
+    estimatedPercent: current.estimatedPercent,
+    range: rangeOf(current, entry.median),
     baseline: {
       years,
       values: entry.values,
@@ -129,6 +156,13 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
     changeFromLastYear: lastYear === null ? null : current.fillingPercent - lastYear,
     changeFromPreviousMonth: previous === null ? null : current.fillingPercent - previous,
   };
+}
+
+function rangeOf(current: GroupMonth, median: number | null): FigureRange {
+  const low = current.lowPercent ?? (current.fillingPercent as number);
+  const high = current.highPercent ?? (current.fillingPercent as number);
+  const percent = (value: number) => (median !== null && median > 0 ? (100 * value) / median : null);
+  return { low, high, percentOfBaselineLow: percent(low), percentOfBaselineHigh: percent(high) };
 }
 
 /** The envelope of a calendar month's baseline values: percentiles from ENVELOPE_MIN_VALUES on, else the range. */

@@ -10,6 +10,7 @@ import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
 import { envelopeOf, statusOf, type Status } from './status.ts';
+import { estimationBasisOf } from './estimate.ts';
 import { deficitOf, type Deficit } from './deficit.ts';
 import { sizeClassLabel } from '../text/index.ts';
 
@@ -78,13 +79,21 @@ export function groupStatus(inputs: BulletinInputs, series: BodySeries, members:
     referenceAreasOf(inputs),
     100 * inputs.config.coverage.minRegionCoverage,
     statusMonths(inputs.bulletinMonth),
+    estimationBasisOf(inputs, series),
   );
   return statusOf(monthly, inputs.bulletinMonth, inputs.config);
 }
 
 export function group(inputs: BulletinInputs, series: BodySeries, id: string, name: string, members: number[]): GroupSurface {
   const referenceHa = referenceAreasOf(inputs);
-  const monthly = aggregate(series, members, referenceHa, 100 * inputs.config.coverage.minRegionCoverage);
+  const monthly = aggregate(
+    series,
+    members,
+    referenceHa,
+    100 * inputs.config.coverage.minRegionCoverage,
+    undefined,
+    estimationBasisOf(inputs, series),
+  );
   const total = members.reduce((sum, body) => sum + (referenceHa[body] as number), 0);
   return {
     id,
@@ -169,7 +178,7 @@ export function surfaceWater(inputs: BulletinInputs, series: BodySeries): Surfac
     return row.fillingPercent === null || baseline === null ? [] : [{ month: row.month, points: row.fillingPercent - baseline }];
   });
   return {
-    methods: ['gap-filling', 'filling-ratio', 'status', 'deficit', 'size-class-loss'],
+    methods: ['gap-filling', 'fixed-set', 'filling-ratio', 'status', 'deficit', 'size-class-loss'],
     region,
     subRegions,
     sizeClasses,

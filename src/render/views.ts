@@ -38,6 +38,17 @@ function formatters(locale: string) {
     bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage: MessageKey = 'view.body.lowCoverage') =>
       own?.bandKey ? t(bandKey(own.bandKey)) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline'),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
+    /**
+     * A percent with its range from the estimated bodies (fixed set), when estimates move it: the
+     * range is left out when it rounds to the value itself.
+     */
+    ranged: (value: number | null | undefined, low: number | null | undefined, high: number | null | undefined, digits = 0) => {
+      if (missing(value)) return '–';
+      const shown = formatPercent(locale, value, digits);
+      if (missing(low) || missing(high)) return shown;
+      const [from, to] = [formatPercent(locale, low, digits), formatPercent(locale, high, digits)];
+      return from === to ? shown : t('view.withRange', { value: shown, low: from, high: to });
+    },
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
     signed: (value: number | null | undefined, digits = 1) =>
       missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`,
@@ -62,7 +73,7 @@ export function views(model: BulletinModel) {
   const f = formatters(model.meta.locale);
   const regionStatus = model.surfaceWater.region.status;
   const regionStated = regionStatus.kind === 'stated' ? regionStatus : null;
-  const { t, pct, statusWords } = f;
+  const { t, pct, ranged, statusWords } = f;
   const locale = model.meta.locale;
   return {
     monitored: monitoredRows(model, f),
@@ -73,7 +84,11 @@ export function views(model: BulletinModel) {
     trendSummary: model.trends.bodies,
     bodyName: Object.fromEntries(model.bodies.map((body) => [body.id, body.name])),
     figures: {
-      percentOfBaseline: pct(regionStated?.percentOfBaseline),
+      percentOfBaseline: ranged(
+        regionStated?.percentOfBaseline,
+        regionStated?.range.percentOfBaselineLow,
+        regionStated?.range.percentOfBaselineHigh,
+      ),
       band: statusWords(regionStatus),
       coverage: pct(regionStatus.coveragePercent),
       seen: pct(model.seenSharePercent, 1),
@@ -99,7 +114,7 @@ export function views(model: BulletinModel) {
 /** The surface-water page: the region's status, the sub-regions, the size classes and the grid. */
 function surfaceTables(model: BulletinModel, f: Formatters) {
   const locale = model.meta.locale;
-  const { t, pct, signed, statusWords } = f;
+  const { t, pct, ranged, signed, statusWords } = f;
   // One decimal at most: a baseline of 10 to 30 years supports no more. Below 10 years there is none (STANDARDIZED_MIN_YEARS).
   // `value` undefined: no figure at all ('–'); null: a figure, but too few baseline years for this one.
   const standardizedText = (value: number | null | undefined) =>
@@ -119,7 +134,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       String(group.bodies),
       pct(s.kind === 'low-coverage' ? null : s.fillingPercent),
       pct(stated?.baseline.median),
-      pct(stated?.percentOfBaseline),
+      ranged(stated?.percentOfBaseline, stated?.range.percentOfBaselineLow, stated?.range.percentOfBaselineHigh),
       standardizedText(stated?.standardized),
       stated ? rankWords(stated.rank) : '–',
       statusWords(s),
@@ -152,14 +167,22 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       }),
       columns: [t('ui.figure'), t('ui.value')],
       rows: [
-        [t('view.water'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.fillingPercent, 1)],
+        [
+          t('view.water'),
+          regionStatus.kind === 'low-coverage'
+            ? '–'
+            : ranged(regionStatus.fillingPercent, regionStatus.range.low, regionStatus.range.high, 1),
+        ],
         [t('view.baselineMedian'), pct(regionStated?.baseline.median, 1)],
         [
           t(regionStated?.baseline.envelope.kind === 'range' ? 'view.baselineRange' : 'view.baselineEnvelope'),
           regionStated ? `${pct(regionStated.baseline.envelope.low, 1)} – ${pct(regionStated.baseline.envelope.high, 1)}` : '–',
         ],
         [t('view.difference'), signed(regionStated?.anomalyPoints)],
-        [t('view.percentOfMedian'), pct(regionStated?.percentOfBaseline)],
+        [
+          t('view.percentOfMedian'),
+          ranged(regionStated?.percentOfBaseline, regionStated?.range.percentOfBaselineLow, regionStated?.range.percentOfBaselineHigh),
+        ],
         [t('view.standardized'), standardizedText(regionStated?.standardized)],
         [t('view.rankBaseline'), regionStated ? rankWords(regionStated.rank) : '–'],
         [t('ui.status'), statusWords(regionStatus)],
@@ -173,6 +196,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
         ],
         [t('view.seen'), pct(regionStatus.coveragePercent)],
         [t('view.filled'), pct(regionStated?.filledPercent)],
+        [t('view.estimated'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.estimatedPercent)],
       ],
     },
     {
@@ -194,7 +218,10 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       rows: sw.sizeClasses.map((entry) => [
         entry.name,
         String(entry.bodies),
-        pct(entry.lossPercent),
+        // The dry share's range is the filling's, turned round (100 − high … 100 − low).
+        entry.status.kind === 'low-coverage'
+          ? '–'
+          : ranged(entry.lossPercent, 100 - entry.status.range.high, 100 - entry.status.range.low),
         pct(entry.baselineLossPercent),
         statusWords(entry.status),
       ]),
@@ -442,7 +469,7 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
   const f = formatters(locale);
-  const { t, pct, statusWords, bodyStatusWords } = f;
+  const { t, pct, ranged, statusWords, bodyStatusWords } = f;
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -477,10 +504,16 @@ export function subRegionView(model: BulletinModel, id: string) {
       [t('ui.bodies'), String(group?.bodies ?? 0)],
       [t('view.referenceArea'), `${formatNumber(locale, group?.referenceHa ?? 0, 0)} ha`],
       [t('view.water'), pct(status && status.kind !== 'low-coverage' ? status.fillingPercent : null)],
-      [t('ui.percentOfUsual'), pct(status?.kind === 'stated' ? status.percentOfBaseline : null)],
+      [
+        t('ui.percentOfUsual'),
+        status?.kind === 'stated'
+          ? ranged(status.percentOfBaseline, status.range.percentOfBaselineLow, status.range.percentOfBaselineHigh)
+          : '–',
+      ],
       [t('ui.status'), statusWords(status)],
       [t('ui.overview.deficit'), group ? deficitWords(group.deficit, f, locale) : '–'],
       [t('view.seen'), pct(status?.coveragePercent)],
+      [t('view.estimated'), pct(status && status.kind !== 'low-coverage' ? status.estimatedPercent : null)],
       [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
       [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],
       [

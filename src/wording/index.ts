@@ -118,6 +118,7 @@ export function wordModel(
     bodyTrends: figures.trends.bodies,
     regionTrend: figures.trends.region.entries[0] ?? null,
     quality: waterQuality,
+    statusBands: config.statusBands,
   });
 
   const monthName = formatMonth(locale, bulletinMonth);
@@ -131,6 +132,8 @@ export function wordModel(
   const region = surface.region.status;
   if (region.kind === 'stated' && region.filledPercent >= 1)
     notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
+  if (region.kind !== 'low-coverage' && region.estimatedPercent >= 1)
+    notices.push({ kind: 'caveat', text: t('caveat.estimated', { month: monthName, estimated: pct(region.estimatedPercent) }) });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
   const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
   if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });

@@ -28,6 +28,8 @@ import type { Quality } from '../model/quality.ts';
 import type { SurfaceWater } from '../model/surfaceWater.ts';
 import type { TrendSummary } from '../model/trends.ts';
 import type { MethodId } from '../model/methods.ts';
+import { bandFor } from '../model/status.ts';
+import type { BulletinConfig } from '../ingest/index.ts';
 
 /** Months in a row below usual from which the deficit is a key message (a season: fewer are in the status words already). */
 export const DEFICIT_MONTHS = 3;
@@ -50,6 +52,8 @@ export interface KeyMessageInputs {
   bodyTrends: TrendSummary;
   regionTrend: TrendSummary['entries'][number] | null;
   quality: Quality | null;
+  /** The configured status bands (rule 1 names another band its range reaches). */
+  statusBands: BulletinConfig['statusBands'];
 }
 
 export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; caveats: string[] } {
@@ -67,7 +71,10 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
   if (region.kind === 'stated') {
     messages.push({
       id: 'region',
-      text: t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(bandKey(region.bandKey)) }),
+      text: [
+        t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(bandKey(region.bandKey)) }),
+        ...rangeSentences(region, input.statusBands, pct, t),
+      ].join(' '),
       figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' },
       link: 'surface-water/#status',
     });
@@ -195,6 +202,24 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
     });
   }
   return { messages: messages.slice(0, 6), caveats };
+}
+
+/**
+ * Rule 1's range: when the estimated bodies move the regional figure (its range does not round to
+ * one value), say so with the range, and name any other band the range reaches.
+ */
+function rangeSentences(
+  region: Extract<SurfaceWater['region']['status'], { kind: 'stated' }>,
+  bands: BulletinConfig['statusBands'],
+  pct: (value: number) => string,
+  t: (key: MessageKey, params?: Record<string, string | number>) => string,
+): string[] {
+  const { percentOfBaselineLow: low, percentOfBaselineHigh: high } = region.range;
+  if (low === null || high === null || pct(low) === pct(high)) return [];
+  const sentences = [t('key.regionRange', { estimated: pct(region.estimatedPercent), low: pct(low), high: pct(high) })];
+  const others = [bandFor(low, bands), bandFor(high, bands)].filter((key, k, all) => key !== region.bandKey && all.indexOf(key) === k);
+  for (const key of others) sentences.push(t('key.regionBandUnsure', { band: t(bandKey(key)) }));
+  return sentences;
 }
 
 const percentOf = (status: SurfaceWater['region']['status']) =>

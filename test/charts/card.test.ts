@@ -12,16 +12,22 @@ import { CARD_HEIGHT, CARD_WIDTH, cardSvg } from '../../src/charts/card.ts';
 import { svgToPng } from '../../src/charts/render.ts';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { buildModel } from '../../src/wording/index.ts';
+import { formatPercent } from '../../src/text/format.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
 
 let svg: string;
+let headline: string;
 let png: Buffer;
 let frenchSvg: string;
 
 beforeAll(async () => {
   const { inputs, problems } = await loadBulletin(EXAMPLE);
   if (!inputs) throw new Error('the example does not load');
-  svg = cardSvg(buildModel(inputs, problems.warnings, 'test'));
+  const model = buildModel(inputs, problems.warnings, 'test');
+  svg = cardSvg(model);
+  const region = model.surfaceWater.region.status;
+  if (region.kind !== 'stated') throw new Error('the example states its region');
+  headline = formatPercent('en', region.percentOfBaseline);
   frenchSvg = cardSvg(buildModel(inputs, problems.warnings, 'test', { locale: 'fr' }));
   png = await svgToPng(svg);
 });
@@ -51,7 +57,8 @@ describe('preview card', () => {
 
   it('the card carries the title and headline figure, escaped', () => {
     expect(svg).toContain('Velduran Lakeland Water Bulletin');
-    expect(svg).toContain('>64%<');
+    // The headline is the model's percent of usual, as the overview prints it.
+    expect(svg).toContain(`>${headline}<`);
     expect(svg).toContain('Velduran Basin Water Office (an invented agency)');
   });
 

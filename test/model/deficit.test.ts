@@ -16,9 +16,29 @@ const CONFIG = { statusBands: BANDS, baseline: { firstYear: 2018, lastYear: 2019
 function series(values2020: Array<number | null>): GroupMonth[] {
   const rows: GroupMonth[] = [];
   for (let k = 0; k < 24; k++)
-    rows.push({ month: 2018 * 12 + k, fillingPercent: 50, coveragePercent: 100, filledPercent: 0, bodiesWithValue: 1 });
+    rows.push({
+      month: 2018 * 12 + k,
+      fillingPercent: 50,
+      coveragePercent: 100,
+      filledPercent: 0,
+      estimatedPercent: 0,
+      lowPercent: null,
+      highPercent: null,
+      bodiesWithValue: 1,
+      bodiesEstimated: 0,
+    });
   values2020.forEach((value, k) =>
-    rows.push({ month: 2020 * 12 + k, fillingPercent: value, coveragePercent: 100, filledPercent: 0, bodiesWithValue: 1 }),
+    rows.push({
+      month: 2020 * 12 + k,
+      fillingPercent: value,
+      coveragePercent: 100,
+      filledPercent: 0,
+      estimatedPercent: 0,
+      lowPercent: null,
+      highPercent: null,
+      bodiesWithValue: 1,
+      bodiesEstimated: 0,
+    }),
   );
   return rows;
 }

@@ -97,6 +97,9 @@ describe('surface water', () => {
       kind: 'short-baseline',
       fillingPercent: 50,
       coveragePercent: 100,
+      // Both bodies seen: nothing estimated, so the range is the figure itself.
+      estimatedPercent: 0,
+      range: { low: 50, high: 50, percentOfBaselineLow: null, percentOfBaselineHigh: null },
       usableYears: 1,
       neededYears: 3,
     });
