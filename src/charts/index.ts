@@ -7,6 +7,7 @@ import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from 
 import {
   anomalyBarsChart,
   rainfallChart,
+  recentMonthsChart,
   regionalSeriesChart,
   sameMonthChart,
   sizeClassChart,
@@ -28,6 +29,7 @@ export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
   const quality = model.quality?.parameters ?? [];
   return [
     regionalSeriesChart(model),
+    recentMonthsChart(model),
     sameMonthChart(model),
     anomalyBarsChart(model),
     subRegionChart(model),

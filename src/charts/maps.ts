@@ -315,6 +315,11 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
       },
     },
   ]);
+  // The overview's picture: the legends go below the map, so the map takes the whole width of its column and its text stays legible when scaled down.
+  (spec as { config?: unknown }).config = {
+    legend: { orient: 'bottom', direction: 'vertical', labelFontSize: 13, titleFontSize: 13, symbolSize: 120, columns: 1 },
+    axis: { labelFontSize: 12 },
+  };
   const counts = domain.map((label) => `${values.filter((row) => row.status === label).length} ${label}`);
   return {
     id: 'bodies-map',

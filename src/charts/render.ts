@@ -63,9 +63,16 @@ export async function renderChart(chart: ChartDefinition, { png = false, locale 
     config: {
       font: CHART_FONT,
       view: { stroke: null },
-      axis: { labelColor: '#333333', titleColor: '#333333', domainColor: '#595959', tickColor: '#595959' },
-      legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400 },
       ...(localized.config ?? {}),
+      // A chart's own axis and legend settings add to these rather than replace them.
+      axis: {
+        labelColor: '#333333',
+        titleColor: '#333333',
+        domainColor: '#595959',
+        tickColor: '#595959',
+        ...(localized.config?.axis ?? {}),
+      },
+      legend: { labelColor: '#333333', titleColor: '#333333', labelLimit: 400, titleLimit: 400, ...(localized.config?.legend ?? {}) },
     },
   } as TopLevelSpec;
   const compiled = compile(spec).spec;

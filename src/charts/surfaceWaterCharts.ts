@@ -83,6 +83,102 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   };
 }
 
+/** Months the overview's chart of recent months shows. */
+export const RECENT_MONTHS = 24;
+
+/**
+ * The overview's picture of the region over the last RECENT_MONTHS months: its water surface area
+ * against the usual band of each calendar month, the range the estimated bodies give each month as
+ * a bar, and the bulletin month (provisional) marked.
+ */
+export function recentMonthsChart(model: BulletinModel): ChartDefinition {
+  const t = translator(model.meta.locale);
+  const series = model.surfaceWater.region.series.slice(-RECENT_MONTHS);
+  const envelope = model.surfaceWater.regionEnvelope;
+  const last = series[series.length - 1]?.month ?? null;
+  const values = series.map((entry) => {
+    const band = envelope[entry.month % 12];
+    const moved = entry.lowPercent !== null && entry.highPercent !== null && entry.highPercent - entry.lowPercent >= 0.05;
+    return {
+      month: monthLabel(entry.month),
+      filling: round(entry.fillingPercent),
+      rangeLow: moved ? round(entry.lowPercent) : null,
+      rangeHigh: moved ? round(entry.highPercent) : null,
+      estimated: round(entry.estimatedPercent, 0),
+      median: round(band?.median),
+      low: round(band?.low),
+      high: round(band?.high),
+      bulletin: entry.month === last ? round(entry.fillingPercent) : null,
+    };
+  });
+  const range = envelope.some((band) => band.low !== null && band.kind === 'range');
+  const x = {
+    field: 'month',
+    type: 'temporal',
+    timeUnit: 'yearmonth',
+    title: null,
+    axis: { format: '%b %Y', labelAngle: 0, tickCount: 6 },
+  } as const;
+  const spec: TopLevelSpec = {
+    $schema: VEGA_LITE_SCHEMA,
+    width: 440,
+    height: 260,
+    padding: 12,
+    data: { values },
+    layer: [
+      {
+        mark: { type: 'area', color: ENVELOPE, opacity: 0.9 },
+        encoding: { x, y: { field: 'low', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'high' } },
+      },
+      {
+        mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 },
+        encoding: { x, y: { field: 'median', type: 'quantitative' } },
+      },
+      {
+        mark: { type: 'rule', color: OKABE_ITO.blue, strokeWidth: 2 },
+        encoding: { x, y: { field: 'rangeLow', type: 'quantitative' }, y2: { field: 'rangeHigh' } },
+      },
+      {
+        mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 2, point: { filled: true, size: 24, color: OKABE_ITO.blue } },
+        encoding: { x, y: { field: 'filling', type: 'quantitative' } },
+      },
+      {
+        mark: { type: 'point', filled: true, size: 140, shape: 'diamond', color: OKABE_ITO.vermillion, stroke: OUTLINE, strokeWidth: 1 },
+        encoding: { x, y: { field: 'bulletin', type: 'quantitative' } },
+      },
+    ],
+  };
+  return {
+    id: 'recent-months',
+    title: t('chart.recent.title', { months: series.length, last: model.meta.monthName }),
+    description: `${t('chart.recent.desc', { headline: model.headline, month: model.meta.monthName })} ${t(range ? 'chart.recent.keyRange' : 'chart.recent.key')}`,
+    spec,
+    table: {
+      caption: t('chart.recent.caption'),
+      columns: [
+        t('chart.month'),
+        t('view.water'),
+        t('chart.recent.low'),
+        t('chart.recent.high'),
+        t('view.estimated'),
+        t('chart.baselineMedian'),
+        t(range ? 'chart.baselineLowest' : 'chart.baselineP10'),
+        t(range ? 'chart.baselineHighest' : 'chart.baselineP90'),
+      ],
+      rows: values.map((row) => [
+        row.month,
+        row.filling ?? t('chart.notStated'),
+        cell(row.rangeLow),
+        cell(row.rangeHigh),
+        row.estimated ?? 0,
+        cell(row.median),
+        cell(row.low),
+        cell(row.high),
+      ]),
+    },
+  };
+}
+
 export function sameMonthChart(model: BulletinModel): ChartDefinition {
   const t = translator(model.meta.locale);
   const entries = model.surfaceWater.sameMonthEachYear;

@@ -17,7 +17,7 @@ import { renderMarkdown } from './markdown.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
 
 export { prefixOf, type SiteFile } from './siteFiles.ts';
-import { bodyView, revisedFigures, subRegionView, views } from './views.ts';
+import { bodyView, changesSince, revisedFigures, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
 
@@ -82,6 +82,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     charts: charts.charts,
     sparklines: charts.sparklines,
     view: views(model),
+    changes: changesSince(model, position > 0 ? (current[position - 1]?.model ?? null) : null),
     revisedFigures: revisedFigures(
       model,
       sameLanguage.map((other) => other.model),
@@ -147,6 +148,9 @@ function jsonLd(model: BulletinModel): string {
 
 type IssueData = ReturnType<typeof issueData>;
 
+/** Issues the home page lists with their status. */
+export const HOME_RECENT_ISSUES = 6;
+
 /** The site-level pages of one language: its latest issue and its archive by year. */
 function languageSite(issues: IssueData[], locale: string, siteLocale: string, languages: Array<ReturnType<typeof languageOf>>) {
   const current = issues.filter((issue) => !issue.isRevisionCopy && issue.bulletin.meta.locale === locale);
@@ -156,6 +160,8 @@ function languageSite(issues: IssueData[], locale: string, siteLocale: string, l
     locale,
     prefix: prefixOf(locale, siteLocale),
     latest,
+    /** The last HOME_RECENT_ISSUES issues, newest first, with their status (the home page lists them). */
+    recent: current.slice(-HOME_RECENT_ISSUES).reverse(),
     archive: years.map((year) => ({ year, issues: current.filter((issue) => issue.bulletin.meta.month.startsWith(year)).reverse() })),
     t: loadMessages(locale),
     languages: languages.map((language) => ({ ...language, current: language.locale === locale })),

@@ -219,9 +219,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
         entry.name,
         String(entry.bodies),
         // The dry share's range is the filling's, turned round (100 − high … 100 − low).
-        entry.status.kind === 'low-coverage'
-          ? '–'
-          : ranged(entry.lossPercent, 100 - entry.status.range.high, 100 - entry.status.range.low),
+        entry.status.kind === 'low-coverage' ? '–' : ranged(entry.lossPercent, 100 - entry.status.range.high, 100 - entry.status.range.low),
         pct(entry.baselineLossPercent),
         statusWords(entry.status),
       ]),
@@ -616,4 +614,49 @@ export function revisedFigures(model: BulletinModel, earlier: BulletinModel[]): 
     rows,
     note: t('view.revised.note'),
   };
+}
+
+/** Largest water bodies whose change of status the overview lists (besides the region and the sub-regions). */
+export const CHANGES_LARGEST_BODIES = 10;
+
+/**
+ * What changed since the previous issue of the same language: the status of the region, of each
+ * sub-region and of the CHANGES_LARGEST_BODIES largest water bodies, where it differs (the band, or
+ * a figure stated in one issue and not the other). Null when there is no previous issue.
+ */
+export function changesSince(model: BulletinModel, previous: BulletinModel | null) {
+  if (!previous) return null;
+  const { statusWords, bodyStatusWords } = formatters(model.meta.locale);
+  const rows: Array<{ name: string; href: string | null; from: string; to: string }> = [];
+  const push = (name: string, href: string | null, from: string, to: string) => {
+    if (from !== to) rows.push({ name, href, from, to });
+  };
+  push(
+    model.meta.region,
+    `${model.meta.issuePath}surface-water/#status`,
+    statusWords(previous.surfaceWater.region.status),
+    statusWords(model.surfaceWater.region.status),
+  );
+  for (const group of model.surfaceWater.subRegions) {
+    const before = previous.surfaceWater.subRegions.find((entry) => entry.id === group.id);
+    if (before)
+      push(group.name, `${model.meta.issuePath}sub-regions/${slugOf(group.id)}/`, statusWords(before.status), statusWords(group.status));
+  }
+  const largest = model.bodies
+    .map((body, k) => ({ body, k }))
+    .sort((a, b) => b.body.referenceHa - a.body.referenceHa || a.k - b.k)
+    .slice(0, CHANGES_LARGEST_BODIES);
+  const previousIndex = new Map(previous.bodies.map((body, k) => [body.id, k]));
+  const paged = new Set(model.monitored.map((entry) => entry.id));
+  for (const { body, k } of largest) {
+    const before = previousIndex.get(body.id);
+    if (before === undefined) continue;
+    push(
+      body.name,
+      paged.has(body.id) ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null,
+      bodyStatusWords(previous.bodyStatus[before]),
+      bodyStatusWords(model.bodyStatus[k]),
+    );
+  }
+  return { month: previous.meta.monthName, href: previous.meta.issuePath, rows };
 }

@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
-import { bodyView, paginate, revisedFigures, subRegionView, views, type TableView } from '../../src/render/views.ts';
+import { bodyView, changesSince, paginate, revisedFigures, subRegionView, views, type TableView } from '../../src/render/views.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl } from '../../src/render/siteFiles.ts';
 import { translator } from '../../src/text/index.ts';
 import { MINI_CONFIG, miniFiles, writeMini } from '../support/miniBulletin.ts';
@@ -164,5 +164,34 @@ describe('revised figures', () => {
     expect(revisedFigures(current, [earlier])).toBeNull();
     // A later issue is never compared with.
     expect(revisedFigures(earlier, [current])).toBeNull();
+  });
+});
+
+describe('changes since the previous issue', () => {
+  it('lists the region, a sub-region and a large body whose status differs, with links, and nothing that stayed', async () => {
+    const current = await miniModel();
+    const t = translator('en');
+    expect(changesSince(current, null)).toBeNull();
+    // The same model as its own previous issue: nothing changed.
+    const same = changesSince(current, structuredClone(current));
+    expect(same?.rows).toEqual([]);
+    const previous = structuredClone(current);
+    previous.meta = { ...previous.meta, monthName: 'April 2020', issuePath: '/issues/2020-04/' };
+    previous.surfaceWater.region.status = { kind: 'low-coverage', coveragePercent: 10, thresholdPercent: 50 };
+    const largest = [...current.bodies.keys()].sort(
+      (a, b) => (current.bodies[b]?.referenceHa ?? 0) - (current.bodies[a]?.referenceHa ?? 0) || a - b,
+    )[0] as number;
+    previous.bodyStatus[largest] = { bandKey: null, percentOfBaseline: null, state: 'low-coverage' };
+    const changes = changesSince(current, previous);
+    expect(changes?.month).toBe('April 2020');
+    expect(changes?.href).toBe('/issues/2020-04/');
+    const names = changes?.rows.map((row) => row.name);
+    expect(names?.[0]).toBe(current.meta.region);
+    expect(changes?.rows[0]?.from).toBe(t('view.notStated.lowCoverage'));
+    expect(changes?.rows[0]?.href).toBe(`${current.meta.issuePath}surface-water/#status`);
+    expect(names).toContain(current.bodies[largest]?.name);
+    expect(changes?.rows.find((row) => row.name === current.bodies[largest]?.name)?.from).toBe(t('view.body.lowCoverage'));
+    // Only what differs is listed.
+    for (const row of changes?.rows ?? []) expect(row.from).not.toBe(row.to);
   });
 });

@@ -189,6 +189,35 @@ describe('the overview on narrow and wide screens', () => {
     }
   });
 
+  it('shows the picture on the first screen: the status map and the recent months above the fold at 1280 px, the map at 360 px, on the overview and the home page', async () => {
+    const server = await serveFolder(site);
+    try {
+      for (const [path, ids] of [
+        ['/issues/2026-11/', ['figure-bodies-map', 'figure-recent-months']],
+        ['/fr/issues/2026-11/', ['figure-bodies-map', 'figure-recent-months']],
+        ['/', ['figure-bodies-map']],
+      ] as const)
+        for (const [width, height, shown] of [
+          [1280, 800, ids],
+          [360, 800, ['figure-bodies-map']],
+        ] as const) {
+          const context = await browser.newContext({ viewport: { width, height } });
+          const page = await context.newPage();
+          await page.goto(`${server.origin}${path}`);
+          for (const id of shown) {
+            // The top of the chart's drawing (its SVG) lies within the first screen.
+            const top = await page
+              .locator(`#${id} svg[role="img"]`)
+              .evaluate((svg) => (svg as unknown as { getBoundingClientRect(): { top: number } }).getBoundingClientRect().top);
+            expect(top, `${path} at ${width} px: ${id}`).toBeLessThan(height);
+          }
+          await context.close();
+        }
+    } finally {
+      await server.close();
+    }
+  });
+
   it('reflows every kind of page at 320 px in both languages (tables scroll inside their own box)', async () => {
     const server = await serveFolder(site);
     const kinds = [
