@@ -288,6 +288,7 @@ function main(): void {
   write('water-quality.csv', quality);
   write('rainfall.csv', rain.rows);
   write('field-measurements.csv', field);
+  write('storage-curves.csv', storageCurves(bodies));
   writeFileSync(join(outDir, 'subregions.geojson'), `${geojson}\n`);
   if (outIndex < 0) writeArchive(join('example-bulletin'), { inventory, area, quality, rainfall: rain.rows, field }, geojson);
   process.stdout.write(
@@ -299,6 +300,36 @@ function main(): void {
       .map((body) => body.id)
       .join(' ')}\n`,
   );
+}
+
+/**
+ * Invented area–elevation–volume curves for the reservoirs, from their own generator (so the other
+ * tables stay as they were): a basin whose area grows as a power p of the depth (p = 1 is a
+ * paraboloid, p = 2 a cone), A(h) = Amax (h/H)^p, so V(h) = Amax H (h/H)^(p+1) / (p + 1), surveyed
+ * at 9 levels from the bed to the spillway (Amax = 1.45 × the reference area, above every area the
+ * example observes). One reservoir in five has no curve, as at an agency where some are unsurveyed.
+ * 1 ha·m = 0.01 hm³.
+ */
+function storageCurves(bodies: Body[]): string[] {
+  const draw = mulberry32(SEED + 18);
+  const rows = ['body_id,elevation_m,area_ha,volume_hm3'];
+  for (const body of bodies) {
+    if (body.kind !== 'reservoir') continue;
+    const skip = draw() < 0.2;
+    const depth = 6 + draw() * 30;
+    const power = 0.8 + draw() * 1.2;
+    const bed = Math.round(180 + draw() * 400);
+    if (skip) continue;
+    const maxArea = 1.45 * body.referenceHa;
+    for (let k = 0; k <= 8; k++) {
+      const h = (depth * k) / 8;
+      const share = h / depth;
+      const area = maxArea * share ** power;
+      const volume = (0.01 * maxArea * depth * share ** (power + 1)) / (power + 1);
+      rows.push(`${body.id},${(bed + h).toFixed(2)},${area.toFixed(2)},${volume.toFixed(4)}`);
+    }
+  }
+  return rows;
 }
 
 interface Tables {
@@ -344,6 +375,7 @@ const ARCHIVE: Array<{
 function writeArchive(root: string, tables: Tables, geojson: string): void {
   const config = JSON.parse(readFileSync(join(root, 'bulletin.json'), 'utf8')) as Record<string, unknown> & {
     issue: Record<string, unknown>;
+    inputs: Record<string, string>;
   };
   rmSync(join(root, 'archive'), { recursive: true, force: true });
   for (const issue of ARCHIVE) {
@@ -365,8 +397,11 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
     write('rainfall.csv', upTo(tables.rainfall, 1, issue.month));
     write('field-measurements.csv', upTo(tables.field, 1, issue.month));
     writeFileSync(join(folder, 'data', 'subregions.geojson'), `${geojson}\n`);
+    // The survey curves arrived with the current issue: archived issues were published without them.
+    const { storageCurves: _curves, ...inputs } = config.inputs as Record<string, string>;
     const issueConfig = {
       ...config,
+      inputs,
       issue: { ...config.issue, month: issue.month, published: issue.published, revision: issue.revision, corrections: issue.corrections },
     };
     writeFileSync(join(folder, 'bulletin.json'), `${JSON.stringify(issueConfig, null, 2)}\n`);

@@ -9,6 +9,7 @@ import { runBuild } from './build.ts';
 import { formatReport, runCheck } from './check.ts';
 import { runInit, runNewIssue } from './init.ts';
 import { runPreview } from './preview.ts';
+import { runStorage } from './storage.ts';
 import { runTrend } from './trend.ts';
 import { runVerify } from './verify.ts';
 import { HELP, UsageError } from './usage.ts';
@@ -19,6 +20,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   init: runInit,
   'new-issue': runNewIssue,
   preview: runPreview,
+  storage: runStorage,
   trend: runTrend,
   verify: runVerify,
 };

@@ -14,6 +14,7 @@ Commands:
   new-issue <bulletin-folder>              archive the current issue and start next month's
   preview <bulletin-folder> [--port N]     build, serve on 127.0.0.1 and rebuild on every change
   trend <table.csv> --time C --value C     trend tests for one or many series in a table
+  storage <curves.csv> --area <table.csv>  water level and stored volume from surface areas
   help [command]                           show help for a command
 
 Options:
@@ -108,5 +109,27 @@ Options:
   --fdr <q>           false discovery rate for the adjustment (default 0.05)
   --workers <n>       worker threads for many series (default: all cores)
   -h, --help          show this help
+`,
+  storage: `Usage: limnopress storage <curves.csv> --area <table.csv> [--interpolation pchip|linear]
+                          [--format csv|json]
+
+Turns water surface areas into water levels and stored volumes through each reservoir's
+area–elevation–volume curve, as the bulletin does. <curves.csv> has the columns body_id,
+elevation_m, area_ha and volume_hm3, several rows per body (docs/input-format.md); it is checked as
+in a bulletin: per body, elevation must rise, area and volume never fall, at least two rows.
+<table.csv> has the columns body_id, month and water_area_ha (an empty area gives empty results);
+every body must have a curve. Between a curve's rows both are read by monotone piecewise-cubic
+interpolation (PCHIP, Fritsch & Carlson 1980) or, with --interpolation linear, straight lines. An
+area outside its curve is taken at the curve's nearest end and marked clamped; nothing is
+extrapolated. Any problem is reported with file, line and column, and nothing is printed.
+
+Prints one row per row of <table.csv>: body_id, month, water_area_ha, level_m, volume_hm3,
+percent_of_capacity (of the curve's top volume) and clamped (yes/no).
+
+Options:
+  --area <table.csv>       the table of water areas (required)
+  --interpolation <how>    pchip (default) or linear
+  --format <f>             csv (default) or json
+  -h, --help               show this help
 `,
 } as const;

@@ -5,6 +5,7 @@
  */
 export const PROBLEM_CODES = {
   'archive-link': 'an entry of archive/ is a symbolic link (never followed)',
+  'area-outside-curve': 'observed water areas outside the range of the body’s storage curve (clamped to it)',
   'area-above-reference': 'a water area far above the body’s reference area',
   'baseline-includes-bulletin-year': 'the baseline years include the bulletin’s own year',
   'baseline-outside-data': 'the baseline years lie outside the months of the data',
@@ -26,6 +27,9 @@ export const PROBLEM_CODES = {
   'date-invalid': 'a date that is not YYYY-MM-DD',
   'decimal-comma-detected': 'a decimal comma read as a decimal point',
   'duplicate-id': 'the same water-body id twice in the inventory',
+  'curve-duplicate-elevation': 'a storage curve with the same elevation twice',
+  'curve-falls': 'a storage curve whose area or volume falls as elevation rises',
+  'curve-too-short': 'a storage curve with fewer than two rows',
   'duplicate-row': 'the same body and month (and parameter) twice',
   'duplicate-time': 'the same time twice in one series',
   'field-count': 'a row with more or fewer fields than its header',

@@ -191,6 +191,22 @@ export const configSchema = z.strictObject({
         .describe('days either side of a satellite month within which a field sample is matched to it when its own month has no value'),
     })
     .default({ qualityWindowDays: 10 }),
+  storage: z
+    .strictObject({
+      interpolation: z
+        .enum(['pchip', 'linear'])
+        .default('pchip')
+        .describe(
+          'how a storage curve is read between its rows: monotone piecewise-cubic (PCHIP, Fritsch & Carlson 1980) or straight lines',
+        ),
+      minCurveShare: z
+        .number()
+        .min(0)
+        .max(1)
+        .default(0.5)
+        .describe("share of a group's reference area whose bodies need a storage curve before the group's storage is stated"),
+    })
+    .default({ interpolation: 'pchip', minCurveShare: 0.5 }),
   quality: z
     .strictObject({
       minValidPixels: z
@@ -265,6 +281,11 @@ export const configSchema = z.strictObject({
     distribution: z.string().min(1).optional().describe('path of the table of quality value distributions'),
     rainfall: z.string().min(1).optional().describe('path of the rainfall table'),
     field: z.string().min(1).optional().describe('path of the field measurements'),
+    storageCurves: z
+      .string()
+      .min(1)
+      .optional()
+      .describe('path of the area–elevation–volume curves of the reservoirs (storage figures are shown only with it)'),
     boundaries: z.string().min(1).describe('path of the sub-region boundaries (GeoJSON)'),
   }),
 });

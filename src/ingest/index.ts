@@ -15,12 +15,30 @@ import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
-import { readDistributionBins, readField, readInventory, readQuality, readRainfall, readSurfaceArea } from './tables.ts';
-import type { AreaTable, DistributionBin, FieldRecord, QualityTable, RainfallRecord, ReadContext, WaterBody } from './tableTypes.ts';
+import { readDistributionBins, readField, readInventory, readQuality, readRainfall, readStorageCurves, readSurfaceArea } from './tables.ts';
+import type {
+  AreaTable,
+  DistributionBin,
+  FieldRecord,
+  QualityTable,
+  RainfallRecord,
+  ReadContext,
+  StorageCurve,
+  WaterBody,
+} from './tableTypes.ts';
 
 export type { BulletinConfig } from './config.ts';
 export type { SubRegion } from './geojson.ts';
-export type { AreaTable, DistributionBin, FieldRecord, QualityParameter, QualityTable, RainfallRecord, WaterBody } from './tableTypes.ts';
+export type {
+  AreaTable,
+  DistributionBin,
+  FieldRecord,
+  QualityParameter,
+  QualityTable,
+  RainfallRecord,
+  StorageCurve,
+  WaterBody,
+} from './tableTypes.ts';
 export { QUALITY_PARAMETERS } from './tableTypes.ts';
 export { describeFound, InputError, formatProblem, problemPlace, ProblemList, type Problem } from './problems.ts';
 
@@ -49,6 +67,8 @@ export interface BulletinInputs {
   distribution: DistributionBin[];
   rainfall: RainfallRecord[];
   field: FieldRecord[];
+  /** Storage curves of the bodies that have one (inputs.storageCurves), in inventory order; empty without the table. */
+  storage: StorageCurve[];
   subRegions: SubRegion[];
   files: InputFile[];
   /** Editorial text by name (`foreword`, `foreword.fr`, `notes`), read and checked here. */
@@ -162,6 +182,8 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     : [];
   const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
+  const storage = paths.storageCurves ? await readStorageCurves(at(paths.storageCurves), label(paths.storageCurves), bodies, context) : [];
+  if (paths.storageCurves) checkAreasOnCurves(storage, bodies, area, label(paths.storageCurves), problems);
 
   crossCheck(config, bulletinMonth, bodies, area, subRegions, problems, label);
   checkTranslations(content, config, problems, label);
@@ -180,7 +202,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   ].sort((a, b) => a.path.localeCompare(b.path));
   const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));
   return {
-    inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, subRegions, files, content, sources },
+    inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, storage, subRegions, files, content, sources },
     problems,
   };
 }
@@ -196,6 +218,7 @@ const PUBLISHED_NAMES = {
   distribution: 'distribution',
   rainfall: 'rainfall',
   field: 'field-measurements',
+  storageCurves: 'storage-curves',
   boundaries: 'subregions',
 } as const;
 
@@ -289,6 +312,37 @@ function checkTranslations(
         params: { locale, translation: label(translation) },
       });
     }
+  }
+}
+
+/**
+ * Observed water areas outside a body's storage curve: the storage figures clamp them to the curve
+ * (never extrapolate), and one warning per body says how many months and the curve's range.
+ */
+function checkAreasOnCurves(curves: StorageCurve[], bodies: WaterBody[], area: AreaTable, file: string, problems: ProblemList): void {
+  const byBody = new Map(curves.map((curve) => [curve.body, curve]));
+  const outside = new Map<number, number>();
+  for (let k = 0; k < area.length; k++) {
+    const curve = byBody.get(area.body[k] as number);
+    const ha = area.waterHa[k] as number;
+    if (!curve || !Number.isFinite(ha)) continue;
+    if (ha < (curve.areaHa[0] as number) || ha > (curve.areaHa[curve.areaHa.length - 1] as number))
+      outside.set(curve.body, (outside.get(curve.body) ?? 0) + 1);
+  }
+  for (const [body, count] of [...outside.entries()].sort((a, b) => a[0] - b[0])) {
+    const curve = byBody.get(body) as StorageCurve;
+    const low = curve.areaHa[0] as number;
+    const high = curve.areaHa[curve.areaHa.length - 1] as number;
+    problems.warning({
+      code: 'area-outside-curve',
+      file,
+      line: curve.line,
+      column: 'area_ha',
+      value: (bodies[body] as WaterBody).id,
+      expected: `water areas from ${low} to ${high} ha`,
+      message: `${count} month(s) of observed water area lie outside the curve; storage is computed at the nearest end of the curve, never extrapolated`,
+      params: { count, low, high },
+    });
   }
 }
 

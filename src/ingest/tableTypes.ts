@@ -27,6 +27,21 @@ export interface AreaTable {
   scenes: Float64Array;
 }
 
+/**
+ * One body's area–elevation–volume curve (inputs.storageCurves), sorted by elevation: elevation
+ * strictly rising, area and volume never falling.
+ */
+export interface StorageCurve {
+  /** Position of the body in the inventory (in the file, without one). */
+  body: number;
+  id: string;
+  elevationM: Float64Array;
+  areaHa: Float64Array;
+  volumeHm3: Float64Array;
+  /** Line of the body's first row in the curves file. */
+  line: number;
+}
+
 export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
 export type QualityParameter = (typeof QUALITY_PARAMETERS)[number];
 /** Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). */

@@ -23,6 +23,7 @@ import {
   type QualityTable,
   type RainfallRecord,
   type ReadContext,
+  type StorageCurve,
   type WaterBody,
 } from './tableTypes.ts';
 
@@ -482,4 +483,113 @@ export async function readDistributionBins(
   );
   later.report();
   return bins;
+}
+
+/**
+ * The storage curves (inputs.storageCurves): several rows per body of elevation (m), area (ha) and
+ * volume (hm³). Per body, sorted by elevation: elevation must rise strictly, area and volume never
+ * fall, at least two rows. A bad curve is an error on the line and column that breaks it.
+ * `bodies` null (the storage command, which has no inventory): every id of the file is a body, in
+ * the order of its first row.
+ */
+export async function readStorageCurves(
+  path: string,
+  label: string,
+  bodies: Array<{ id: string }> | null,
+  context: ReadContext,
+): Promise<StorageCurve[]> {
+  const index = new Map((bodies ?? []).map((body, k) => [body.id, k]));
+  const ids = (bodies ?? []).map((body) => body.id);
+  const rows = new Map<number, Array<{ elevation: number; area: number; volume: number; line: number; text: string[] }>>();
+  const cells = new CellReader(label, context.problems, context.decimal);
+  await readTable(path, label, spec(context, ['body_id', 'elevation_m', 'area_ha', 'volume_hm3']), context.problems, (values, line, at) => {
+    cells.startRow();
+    const bodyId = cells.text(values, at.body_id!, 'body_id', line);
+    const elevation = cells.number(values, at.elevation_m!, 'elevation_m', line, -1000, 10000);
+    const area = cells.number(values, at.area_ha!, 'area_ha', line, 0);
+    const volume = cells.number(values, at.volume_hm3!, 'volume_hm3', line, 0);
+    if (!cells.rowOk) return;
+    if (bodies === null && !index.has(bodyId)) {
+      index.set(bodyId, ids.length);
+      ids.push(bodyId);
+    }
+    const body = index.get(bodyId);
+    if (body === undefined) {
+      cells.fail(
+        line,
+        'body_id',
+        bodyId,
+        'unknown-body',
+        'a water body of the inventory',
+        'the curve names a water body the inventory does not list',
+      );
+      return;
+    }
+    const list = rows.get(body) ?? [];
+    list.push({
+      elevation,
+      area,
+      volume,
+      line,
+      text: [values[at.elevation_m!] ?? '', values[at.area_ha!] ?? '', values[at.volume_hm3!] ?? ''],
+    });
+    rows.set(body, list);
+  });
+  const curves: StorageCurve[] = [];
+  for (const [body, list] of [...rows.entries()].sort((a, b) => a[0] - b[0])) {
+    const id = ids[body] as string;
+    const first = Math.min(...list.map((row) => row.line));
+    if (list.length < 2) {
+      cells.fail(first, 'body_id', id, 'curve-too-short', 'at least two rows per water body', 'a curve needs two or more elevations');
+      continue;
+    }
+    const sorted = [...list].sort((a, b) => a.elevation - b.elevation || a.line - b.line);
+    let ok = true;
+    for (let k = 1; k < sorted.length; k++) {
+      const before = sorted[k - 1]!;
+      const row = sorted[k]!;
+      const later = row.line > before.line ? row : before;
+      if (row.elevation === before.elevation) {
+        cells.fail(
+          later.line,
+          'elevation_m',
+          later.text[0]!,
+          'curve-duplicate-elevation',
+          'one row per elevation',
+          `the elevation already appears on line ${Math.min(row.line, before.line)} for ${id}`,
+        );
+        ok = false;
+      } else if (row.area < before.area) {
+        cells.fail(
+          row.line,
+          'area_ha',
+          row.text[1]!,
+          'curve-falls',
+          `an area of at least ${before.area} ha (line ${before.line}, a lower elevation)`,
+          `the area falls as the elevation rises for ${id}`,
+        );
+        ok = false;
+      } else if (row.volume < before.volume) {
+        cells.fail(
+          row.line,
+          'volume_hm3',
+          row.text[2]!,
+          'curve-falls',
+          `a volume of at least ${before.volume} hm³ (line ${before.line}, a lower elevation)`,
+          `the volume falls as the elevation rises for ${id}`,
+        );
+        ok = false;
+      }
+    }
+    if (!ok) continue;
+    curves.push({
+      body,
+      id,
+      elevationM: Float64Array.from(sorted, (row) => row.elevation),
+      areaHa: Float64Array.from(sorted, (row) => row.area),
+      volumeHm3: Float64Array.from(sorted, (row) => row.volume),
+      line: first,
+    });
+  }
+  return curves;
 }

@@ -26,6 +26,7 @@ import {
   type TrendTest,
 } from './trends.ts';
 import { validation, type ValidationSummary } from './validation.ts';
+import { storage, type StorageFigures } from './storage.ts';
 
 export type { Status } from './status.ts';
 export type { GroupMonth } from './aggregate.ts';
@@ -66,6 +67,8 @@ export interface IssueFigures {
   boundaries: Array<{ id: string; name: string; polygons: Array<Array<Array<[number, number]>>> }>;
   /** Method 'validation'. */
   validation: ValidationSummary[];
+  /** Method 'storage': level and volume from the reservoirs' curves; null without inputs.storageCurves. */
+  storage: StorageFigures | null;
   /** Bodies flagged for a page of their own, and how many of them got one (site.maxBodyPages, largest first). */
   pages: { flagged: number; shown: number };
   /**
@@ -164,6 +167,7 @@ export function issueFigures(inputs: BulletinInputs, prepared?: PreparedModel): 
     rainfall: rainfall(inputs),
     boundaries: inputs.subRegions.map(({ id, name, polygons }) => ({ id, name, polygons })),
     validation: validation(inputs),
+    storage: storage(inputs, series),
     pages: { flagged: flagged.length, shown: pageBodies.size },
     seenSharePercent: seenShare(inputs),
   };

@@ -21,6 +21,7 @@ export const METHOD_IDS = [
   'trophic',
   'who-levels',
   'validation',
+  'storage',
   'rainfall',
   'evidence',
 ] as const;

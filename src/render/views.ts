@@ -78,6 +78,7 @@ export function views(model: BulletinModel) {
   return {
     monitored: monitoredRows(model, f),
     surface: surfaceTables(model, f),
+    storage: storageTable(model),
     trendTables: trendTables(model, f),
     quality: qualityTables(model, f),
     validationTables: validationTables(model, f),
@@ -524,6 +525,69 @@ export function subRegionView(model: BulletinModel, id: string) {
   };
 }
 
+/** A reservoir's level and stored volume in the bulletin month, when it has a survey curve. */
+function storageRows(model: BulletinModel, index: number, locale: string): string[][] {
+  const own = model.storage?.bodies.find((entry) => entry.body === index);
+  if (!own) return [];
+  const { t, pct, num } = formatters(locale);
+  const mark = (text: string) => (own.clamped && text !== '–' ? t('view.storage.clamped', { value: text }) : text);
+  return [
+    [t('view.storage.level'), mark(num(own.levelM, 2))],
+    [t('view.storage.volume'), mark(num(own.volumeHm3, 2))],
+    [t('view.storage.capacity'), num(own.capacityHm3, 2)],
+    [t('view.storage.percentOfCapacity'), mark(pct(own.percentOfCapacity))],
+  ];
+}
+
+/** The surface-water page's storage table (region and sub-regions); null without survey curves. */
+export function storageTable(model: BulletinModel): TableView | null {
+  const storage = model.storage;
+  if (!storage) return null;
+  const locale = model.meta.locale;
+  const { t, pct, num, ranged, statusWords } = formatters(locale);
+  const row = (group: NonNullable<BulletinModel['storage']>['region']) => {
+    const status = group.status;
+    const stated = status?.kind === 'stated' ? status : null;
+    return [
+      group.name,
+      t('view.countOf', { count: group.bodiesWithCurve, total: group.bodies }),
+      // One decimal: a share just under the minimum must not print as the minimum itself.
+      pct(group.curveSharePercent, 1),
+      num(group.capacityHm3, 1),
+      group.volumeHm3 === null
+        ? '–'
+        : group.volumeRangeHm3 && num(group.volumeRangeHm3.low, 1) !== num(group.volumeRangeHm3.high, 1)
+          ? t('view.withRange', {
+              value: num(group.volumeHm3, 1),
+              low: num(group.volumeRangeHm3.low, 1),
+              high: num(group.volumeRangeHm3.high, 1),
+            })
+          : num(group.volumeHm3, 1),
+      status && status.kind !== 'low-coverage' ? ranged(status.fillingPercent, status.range.low, status.range.high) : '–',
+      ranged(stated?.percentOfBaseline, stated?.range.percentOfBaselineLow, stated?.range.percentOfBaselineHigh),
+      status ? statusWords(status) : t('view.storage.tooFewCurves'),
+      pct(status?.coveragePercent),
+    ];
+  };
+  return {
+    id: 'storage',
+    caption: t('view.storage.caption', { month: model.meta.monthName }),
+    columns: [
+      t('view.area'),
+      t('view.storage.curves'),
+      t('view.storage.curveShare'),
+      t('view.storage.capacity'),
+      t('view.storage.volume'),
+      t('view.storage.percentOfCapacity'),
+      t('ui.percentOfUsual'),
+      t('ui.status'),
+      t('view.seen'),
+    ],
+    rows: [row(storage.region), ...storage.subRegions.map(row)],
+    note: t('view.storage.note', { minShare: pct(storage.minCurveSharePercent) }),
+  };
+}
+
 /** One monitored water body's page, formatted. */
 export function bodyView(model: BulletinModel, index: number) {
   const locale = model.meta.locale;
@@ -544,6 +608,7 @@ export function bodyView(model: BulletinModel, index: number) {
       [t('view.location'), formatPosition(locale, body.lat, body.lon, 3)],
       [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
       [t('ui.status'), bodyStatusWords(own, 'view.body.lowCoverageMonth')],
+      ...storageRows(model, index, locale),
       [
         t('view.trendSinceFirst'),
         monitored?.slopePerYear === null || monitored?.slopePerYear === undefined

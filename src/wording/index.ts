@@ -67,6 +67,7 @@ export interface BulletinModel {
   rainfall: IssueFigures['rainfall'];
   boundaries: IssueFigures['boundaries'];
   validation: IssueFigures['validation'];
+  storage: IssueFigures['storage'];
   seenSharePercent: IssueFigures['seenSharePercent'];
   keyMessages: KeyMessage[];
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
@@ -119,6 +120,7 @@ export function wordModel(
     regionTrend: figures.trends.region.entries[0] ?? null,
     quality: waterQuality,
     statusBands: config.statusBands,
+    storage: figures.storage,
   });
 
   const monthName = formatMonth(locale, bulletinMonth);
@@ -134,6 +136,7 @@ export function wordModel(
     notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
   if (region.kind !== 'low-coverage' && region.estimatedPercent >= 1)
     notices.push({ kind: 'caveat', text: t('caveat.estimated', { month: monthName, estimated: pct(region.estimatedPercent) }) });
+  if (figures.storage) notices.push({ kind: 'caveat', text: t('caveat.storage') });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
   const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
   if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });
@@ -188,6 +191,7 @@ export function wordModel(
     rainfall: figures.rainfall,
     boundaries: figures.boundaries,
     validation: figures.validation,
+    storage: figures.storage,
     seenSharePercent: figures.seenSharePercent,
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',

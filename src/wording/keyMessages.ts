@@ -6,6 +6,8 @@
  *
  * Rules, in order:
  * 1. region: the regional status band and percent of usual (needs a stated status);
+ * 1c. storage: with survey curves covering at least storage.minCurveShare of the region, its
+ *    stored volume (two significant digits), share of capacity and percent of usual;
  * 1b. deficit: when the region has been below usual (the lower edge of the band holding 100 %)
  *    for at least DEFICIT_MONTHS months in a row, how long, since when, and the missing area
  *    summed month by month (hectare-months): a drought stated as such, apart from any trend;
@@ -29,6 +31,7 @@ import type { SurfaceWater } from '../model/surfaceWater.ts';
 import type { TrendSummary } from '../model/trends.ts';
 import type { MethodId } from '../model/methods.ts';
 import { bandFor } from '../model/status.ts';
+import type { StorageFigures } from '../model/storage.ts';
 import type { BulletinConfig } from '../ingest/index.ts';
 
 /** Months in a row below usual from which the deficit is a key message (a season: fewer are in the status words already). */
@@ -52,6 +55,8 @@ export interface KeyMessageInputs {
   bodyTrends: TrendSummary;
   regionTrend: TrendSummary['entries'][number] | null;
   quality: Quality | null;
+  /** Storage from the survey curves (rule 1c); null without curves. */
+  storage: StorageFigures | null;
   /** The configured status bands (rule 1 names another band its range reaches). */
   statusBands: BulletinConfig['statusBands'];
 }
@@ -96,6 +101,25 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
       }),
       figure: { value: deficit.months, unit: 'months in a row below usual', method: 'deficit' },
       link: 'surface-water/#status',
+    });
+  }
+
+  // 1c. storage: the region's stored volume against capacity and usual, when the curves cover enough of it.
+  const stored = input.storage?.region;
+  if (stored && stored.status?.kind === 'stated' && stored.volumeHm3 !== null) {
+    messages.push({
+      id: 'storage',
+      text: t('key.storage', {
+        // Two significant digits: a survey curve and a month of cloud support no more.
+        volume: formatNumber(input.locale, Number(stored.volumeHm3.toPrecision(2)), 0),
+        month,
+        percentOfCapacity: pct(stored.status.fillingPercent),
+        percentOfBaseline: pct(stored.status.percentOfBaseline),
+        calendarMonth,
+        curveShare: pct(stored.curveSharePercent),
+      }),
+      figure: { value: stored.volumeHm3, unit: 'hm³ stored', method: 'storage' },
+      link: 'surface-water/#storage',
     });
   }
 
@@ -200,6 +224,12 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
       figure: { value: change, unit: 'percentage points of reference area', method: 'status' },
       link: 'surface-water/#status',
     });
+  }
+  // At most six: the least telling go first (size class, then sub-region); the region, storage and health messages stay.
+  for (const id of ['size-class', 'sub-region', 'trend-count']) {
+    if (messages.length <= 6) break;
+    const at = messages.findIndex((message) => message.id === id);
+    if (at >= 0) messages.splice(at, 1);
   }
   return { messages: messages.slice(0, 6), caveats };
 }

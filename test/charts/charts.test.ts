@@ -32,6 +32,7 @@ beforeAll(async () => {
 
 const EXPECTED = [
   'regional-series',
+  'recent-months',
   'same-month',
   'anomaly-bars',
   'sub-regions',

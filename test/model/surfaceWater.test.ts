@@ -37,6 +37,7 @@ function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
     distribution: [],
     rainfall: [],
     field: [],
+    storage: [],
     subRegions: [],
     files: [],
     content: {},
