@@ -8,7 +8,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
 import { formatDegrees, formatNumber, formatPosition } from '../text/format.ts';
-import { BROWN_BLUE_GREEN_5, NO_DATA_FILL, OUTLINE } from './palettes.ts';
+import { NO_DATA_FILL, OUTLINE } from './palettes.ts';
 import { VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
 const SIZE = { width: 520, height: 420 };
@@ -187,9 +187,7 @@ function bandStyle(model: BulletinModel) {
   const t = translator(model.meta.locale);
   const keys = model.meta.statusBands;
   const labels = keys.map((key) => t(bandKey(key)));
-  const colours = keys.map(
-    (_, k) => BROWN_BLUE_GREEN_5[Math.round((k * (BROWN_BLUE_GREEN_5.length - 1)) / Math.max(1, keys.length - 1))] as string,
-  );
+  const colours = model.meta.statusColours;
   const shapes = keys.map(
     (_, k) =>
       ['triangle-down', 'triangle-down', 'circle', 'triangle-up', 'triangle-up'][

@@ -3,7 +3,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { BulletinModel } from '../wording/index.ts';
 import { translator, bandKey } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent } from '../text/format.ts';
-import { BROWN_BLUE_GREEN_5, GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
+import { GREY, OKABE_ITO, OUTLINE } from './palettes.ts';
 import { monthLabel } from '../common/months.ts';
 import { roundOrNull, VEGA_LITE_SCHEMA, type ChartDefinition } from './render.ts';
 
@@ -275,7 +275,10 @@ export function anomalyBarsChart(model: BulletinModel): ChartDefinition {
         field: 'sign',
         type: 'nominal',
         title: null,
-        scale: { domain: [belowWords, aboveWords], range: [BROWN_BLUE_GREEN_5[0], BROWN_BLUE_GREEN_5[4]] },
+        scale: {
+          domain: [belowWords, aboveWords],
+          range: [model.meta.statusColours[0] as string, model.meta.statusColours[model.meta.statusColours.length - 1] as string],
+        },
         legend: { orient: 'bottom' },
       },
     },

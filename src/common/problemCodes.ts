@@ -61,6 +61,7 @@ export const PROBLEM_CODES = {
   'series-too-long': 'a series longer than the trend command accepts',
   'subregion-without-boundary': 'a sub-region of the inventory without a boundary',
   'time-invalid': 'a time that is not a date, a month or a number',
+  'status-colours-close': 'configured status colours too close to each other or to the background',
   'time-not-monthly': 'a seasonal test asked for on times that are not months',
   'unit-mismatch': 'a unit other than the parameter’s documented one',
   'unknown-body': 'a row for a water body not in the inventory',

@@ -11,6 +11,7 @@ import { isolateBidi } from '../text/bidi.ts';
 
 /** The languages with a catalogue in content/locales/. */
 import { LOCALE_CODES } from '../text/locales.ts';
+import { paletteShortfalls, statusColours } from '../common/statusColours.ts';
 
 /** The configurable languages (src/text/locales.ts). */
 export const LOCALES = LOCALE_CODES;
@@ -83,6 +84,13 @@ const statusBand = z.strictObject({
       'short key in lower case, used in data files, CSS classes and the wording catalogue (`band.<key>` gives its words in each language)',
     ),
   fromPercent: z.number().nullable().describe('lower bound, percent of the baseline median, inclusive; `null` for the lowest band'),
+  colour: z
+    .string()
+    .regex(/^#[0-9a-fA-F]{6}$/)
+    .optional()
+    .describe(
+      'the band\'s colour on maps and charts, `#rrggbb`; the check warns when two bands, or a band and the page or "not stated", are hard to tell apart, also with simulated red–green colour blindness',
+    ),
 });
 
 export const configSchema = z.strictObject({
@@ -487,6 +495,21 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       expected: 'the first band with fromPercent null, then strictly rising bounds',
       message: 'status bands must cover all values in rising order',
     });
+  }
+  // Configured colours must stay apart for every reader (common/statusColours.ts): a warning, since the agency may have its reasons.
+  if (bands.some((band) => band.colour !== undefined)) {
+    const shortfalls = paletteShortfalls(statusColours(bands));
+    if (shortfalls.length > 0)
+      problems.warning({
+        code: 'status-colours-close',
+        file: label,
+        line: lineOfPath(text, ['statusBands']),
+        column: 'statusBands',
+        value: statusColours(bands).join(' '),
+        expected: 'status colours at least ΔE 20 apart, also with simulated deuteranopia and protanopia',
+        message: `status colours hard to tell apart: ${shortfalls.slice(0, 3).join('; ')}${shortfalls.length > 3 ? `; and ${shortfalls.length - 3} more` : ''}`,
+        params: { first: shortfalls[0] as string, count: shortfalls.length },
+      });
   }
   // Every band needs its words in every language of the bulletin (band.<key> in the catalogue).
   for (const locale of config.locales) {

@@ -4,6 +4,7 @@
  * them: key messages, notices, method texts, warnings, size-class and season names. The model is
  * written out as JSON beside the site, one per language; charts and pages read it.
  */
+import { statusColours } from '../common/statusColours.ts';
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, monthLabel } from '../common/months.ts';
 import { translator } from '../text/index.ts';
@@ -52,6 +53,8 @@ export interface BulletinModel {
     toolVersion: string;
     /** The configured status band keys, lowest first. */
     statusBands: string[];
+    /** One colour per band (configured, or the default palette, common/statusColours.ts). */
+    statusColours: string[];
     /** Percent of the baseline median below which a figure is "below usual" (the lower edge of the band holding 100 %). */
     usualFromPercent: number;
     /** site.bodiesPerListPage. */
@@ -177,6 +180,7 @@ export function wordModel(
       firstMonth: monthLabel(figures.firstMonth),
       toolVersion,
       statusBands: config.statusBands.map((band) => band.key),
+      statusColours: statusColours(config.statusBands),
       usualFromPercent: usualFrom(config.statusBands),
       bodiesPerListPage: config.site.bodiesPerListPage,
     },
