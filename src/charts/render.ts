@@ -45,9 +45,14 @@ export interface RenderedChart {
   table: DataTable;
 }
 
-/** PNG from SVG with sharp (libvips and the system fonts); `density` 144 doubles the 72-dpi size. */
+/**
+ * PNG from SVG with sharp (libvips and the system fonts); `density` 144 doubles the 72-dpi size.
+ * zlib level 6: on the example's 19 charts at 144 dpi (2-core machine, 2 December 2026) level 9
+ * took 1.09–1.12 s for 1.16 MB, level 6 0.43–0.47 s for 1.28 MB, level 3 0.38 s for 1.39 MB; 6 keeps
+ * most of the saving for 10 % more bytes. The output is the same bytes on every run.
+ */
 export async function svgToPng(svg: string, density = 72): Promise<Buffer> {
-  return sharp(Buffer.from(svg), { density }).png({ compressionLevel: 9, adaptiveFiltering: false }).toBuffer();
+  return sharp(Buffer.from(svg), { density }).png({ compressionLevel: 6, adaptiveFiltering: false }).toBuffer();
 }
 
 /** RFC 4180 CSV through csvField (formula-like texts neutralized), CRLF line ends. */
