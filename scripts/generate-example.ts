@@ -288,7 +288,9 @@ function main(): void {
   write('water-quality.csv', quality);
   write('rainfall.csv', rain.rows);
   write('field-measurements.csv', field);
-  write('storage-curves.csv', storageCurves(bodies));
+  const curves = storageCurves(bodies);
+  write('storage-curves.csv', curves.rows);
+  write('storage-fits.csv', storageFits(curves.unsurveyed.slice(0, 2)));
   writeFileSync(join(outDir, 'subregions.geojson'), `${geojson}\n`);
   if (outIndex < 0) writeArchive(join('example-bulletin'), { inventory, area, quality, rainfall: rain.rows, field }, geojson);
   process.stdout.write(
@@ -310,16 +312,20 @@ function main(): void {
  * example observes). One reservoir in five has no curve, as at an agency where some are unsurveyed.
  * 1 ha·m = 0.01 hm³.
  */
-function storageCurves(bodies: Body[]): string[] {
+function storageCurves(bodies: Body[]): { rows: string[]; unsurveyed: Body[] } {
   const draw = mulberry32(SEED + 18);
   const rows = ['body_id,elevation_m,area_ha,volume_hm3'];
+  const unsurveyed: Body[] = [];
   for (const body of bodies) {
     if (body.kind !== 'reservoir') continue;
     const skip = draw() < 0.2;
     const depth = 6 + draw() * 30;
     const power = 0.8 + draw() * 1.2;
     const bed = Math.round(180 + draw() * 400);
-    if (skip) continue;
+    if (skip) {
+      unsurveyed.push(body);
+      continue;
+    }
     const maxArea = 1.45 * body.referenceHa;
     for (let k = 0; k <= 8; k++) {
       const h = (depth * k) / 8;
@@ -328,6 +334,24 @@ function storageCurves(bodies: Body[]): string[] {
       const volume = (0.01 * maxArea * depth * share ** (power + 1)) / (power + 1);
       rows.push(`${body.id},${(bed + h).toFixed(2)},${area.toFixed(2)},${volume.toFixed(4)}`);
     }
+  }
+  return { rows, unsurveyed };
+}
+
+/**
+ * Fitted power laws V = a·A^b for two reservoirs without a curve, from the same basin shape with
+ * p = 1.5 and a depth of 15 m: h = H (A/Amax)^(1/p), so V = 0.01 Amax H / (p + 1) · (A/Amax)^((p+1)/p),
+ * that is b = (p + 1)/p and a = 0.01 Amax H / (p + 1) / Amax^b.
+ */
+function storageFits(bodies: Body[]): string[] {
+  const rows = ['body_id,coefficient,exponent,min_area_ha,max_area_ha'];
+  const power = 1.5;
+  const depth = 15;
+  for (const body of bodies) {
+    const maxArea = 1.45 * body.referenceHa;
+    const exponent = (power + 1) / power;
+    const coefficient = (0.01 * maxArea * depth) / (power + 1) / maxArea ** exponent;
+    rows.push(`${body.id},${coefficient.toPrecision(6)},${exponent.toPrecision(6)},0,${maxArea.toFixed(2)}`);
   }
   return rows;
 }
@@ -398,7 +422,7 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
     write('field-measurements.csv', upTo(tables.field, 1, issue.month));
     writeFileSync(join(folder, 'data', 'subregions.geojson'), `${geojson}\n`);
     // The survey curves arrived with the current issue: archived issues were published without them.
-    const { storageCurves: _curves, ...inputs } = config.inputs as Record<string, string>;
+    const { storageCurves: _curves, storageFits: _fits, ...inputs } = config.inputs as Record<string, string>;
     const issueConfig = {
       ...config,
       inputs,

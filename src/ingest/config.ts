@@ -294,6 +294,11 @@ export const configSchema = z.strictObject({
       .min(1)
       .optional()
       .describe('path of the area–elevation–volume curves of the reservoirs (storage figures are shown only with it)'),
+    storageFits: z
+      .string()
+      .min(1)
+      .optional()
+      .describe('path of fitted area–volume power laws V = a·A^b for reservoirs without a curve (an estimate: volume, no level)'),
     boundaries: z.string().min(1).describe('path of the sub-region boundaries (GeoJSON)'),
   }),
 });

@@ -15,7 +15,16 @@ import { readConfig, type BulletinConfig } from './config.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
-import { readDistributionBins, readField, readInventory, readQuality, readRainfall, readStorageCurves, readSurfaceArea } from './tables.ts';
+import {
+  readDistributionBins,
+  readField,
+  readInventory,
+  readQuality,
+  readRainfall,
+  readStorageCurves,
+  readStorageFits,
+  readSurfaceArea,
+} from './tables.ts';
 import type {
   AreaTable,
   DistributionBin,
@@ -24,6 +33,7 @@ import type {
   RainfallRecord,
   ReadContext,
   StorageCurve,
+  StorageFit,
   WaterBody,
 } from './tableTypes.ts';
 
@@ -37,6 +47,7 @@ export type {
   QualityTable,
   RainfallRecord,
   StorageCurve,
+  StorageFit,
   WaterBody,
 } from './tableTypes.ts';
 export { QUALITY_PARAMETERS } from './tableTypes.ts';
@@ -69,6 +80,8 @@ export interface BulletinInputs {
   field: FieldRecord[];
   /** Storage curves of the bodies that have one (inputs.storageCurves), in inventory order; empty without the table. */
   storage: StorageCurve[];
+  /** Fitted area–volume power laws of bodies without a curve (inputs.storageFits); empty without the table. */
+  storageFits: StorageFit[];
   subRegions: SubRegion[];
   files: InputFile[];
   /** Editorial text by name (`foreword`, `foreword.fr`, `notes`), read and checked here. */
@@ -183,7 +196,18 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
   const storage = paths.storageCurves ? await readStorageCurves(at(paths.storageCurves), label(paths.storageCurves), bodies, context) : [];
+  const storageFits = paths.storageFits
+    ? await readStorageFits(at(paths.storageFits), label(paths.storageFits), bodies, storage, context)
+    : [];
   if (paths.storageCurves) checkAreasOnCurves(storage, bodies, area, label(paths.storageCurves), problems);
+  if (paths.storageFits)
+    checkAreasOnCurves(
+      storageFits.map((fit) => ({ body: fit.body, line: fit.line, areaHa: Float64Array.from([fit.minAreaHa, fit.maxAreaHa]) })),
+      bodies,
+      area,
+      label(paths.storageFits),
+      problems,
+    );
 
   crossCheck(config, bulletinMonth, bodies, area, subRegions, problems, label);
   checkTranslations(content, config, problems, label);
@@ -202,7 +226,22 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
   ].sort((a, b) => a.path.localeCompare(b.path));
   const sources = Object.fromEntries(files.map((file) => [file.path, file.path === CONFIG_FILE ? configPath : at(file.path)]));
   return {
-    inputs: { config, bulletinMonth, bodies, area, quality, distribution, rainfall, field, storage, subRegions, files, content, sources },
+    inputs: {
+      config,
+      bulletinMonth,
+      bodies,
+      area,
+      quality,
+      distribution,
+      rainfall,
+      field,
+      storage,
+      storageFits,
+      subRegions,
+      files,
+      content,
+      sources,
+    },
     problems,
   };
 }
@@ -219,6 +258,7 @@ const PUBLISHED_NAMES = {
   rainfall: 'rainfall',
   field: 'field-measurements',
   storageCurves: 'storage-curves',
+  storageFits: 'storage-fits',
   boundaries: 'subregions',
 } as const;
 
@@ -319,7 +359,13 @@ function checkTranslations(
  * Observed water areas outside a body's storage curve: the storage figures clamp them to the curve
  * (never extrapolate), and one warning per body says how many months and the curve's range.
  */
-function checkAreasOnCurves(curves: StorageCurve[], bodies: WaterBody[], area: AreaTable, file: string, problems: ProblemList): void {
+function checkAreasOnCurves(
+  curves: Array<Pick<StorageCurve, 'body' | 'line' | 'areaHa'>>,
+  bodies: WaterBody[],
+  area: AreaTable,
+  file: string,
+  problems: ProblemList,
+): void {
   const byBody = new Map(curves.map((curve) => [curve.body, curve]));
   const outside = new Map<number, number>();
   for (let k = 0; k < area.length; k++) {
@@ -330,7 +376,7 @@ function checkAreasOnCurves(curves: StorageCurve[], bodies: WaterBody[], area: A
       outside.set(curve.body, (outside.get(curve.body) ?? 0) + 1);
   }
   for (const [body, count] of [...outside.entries()].sort((a, b) => a[0] - b[0])) {
-    const curve = byBody.get(body) as StorageCurve;
+    const curve = byBody.get(body) as Pick<StorageCurve, 'areaHa' | 'line'>;
     const low = curve.areaHa[0] as number;
     const high = curve.areaHa[curve.areaHa.length - 1] as number;
     problems.warning({

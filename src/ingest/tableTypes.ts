@@ -42,6 +42,21 @@ export interface StorageCurve {
   line: number;
 }
 
+/**
+ * A body's fitted area–volume power law (inputs.storageFits): V = coefficient × A^exponent, V in hm³
+ * and A in ha, valid from minAreaHa to maxAreaHa (the range of the survey it was fitted to). An
+ * estimate with no elevation, so it gives a volume but no level.
+ */
+export interface StorageFit {
+  body: number;
+  id: string;
+  coefficient: number;
+  exponent: number;
+  minAreaHa: number;
+  maxAreaHa: number;
+  line: number;
+}
+
 export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
 export type QualityParameter = (typeof QUALITY_PARAMETERS)[number];
 /** Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). */

@@ -24,6 +24,7 @@ import {
   type RainfallRecord,
   type ReadContext,
   type StorageCurve,
+  type StorageFit,
   type WaterBody,
 } from './tableTypes.ts';
 
@@ -592,4 +593,72 @@ export async function readStorageCurves(
     });
   }
   return curves;
+}
+
+/**
+ * Fitted area–volume power laws (inputs.storageFits): one row per body, V = coefficient × A^exponent
+ * (hm³ from ha) between min_area_ha and max_area_ha. A body may have a curve or a fit, not both.
+ */
+export async function readStorageFits(
+  path: string,
+  label: string,
+  bodies: Array<{ id: string }>,
+  curves: StorageCurve[],
+  context: ReadContext,
+): Promise<StorageFit[]> {
+  const index = new Map(bodies.map((body, k) => [body.id, k]));
+  const withCurve = new Set(curves.map((curve) => curve.body));
+  const seen = new Map<number, number>();
+  const fits: StorageFit[] = [];
+  const cells = new CellReader(label, context.problems, context.decimal);
+  await readTable(
+    path,
+    label,
+    spec(context, ['body_id', 'coefficient', 'exponent', 'min_area_ha', 'max_area_ha']),
+    context.problems,
+    (values, line, at) => {
+      cells.startRow();
+      const id = cells.text(values, at.body_id!, 'body_id', line);
+      const coefficient = cells.number(values, at.coefficient!, 'coefficient', line, Number.MIN_VALUE);
+      const exponent = cells.number(values, at.exponent!, 'exponent', line, Number.MIN_VALUE, 10);
+      const minAreaHa = cells.number(values, at.min_area_ha!, 'min_area_ha', line, 0);
+      const maxAreaHa = cells.number(values, at.max_area_ha!, 'max_area_ha', line, 0);
+      if (!cells.rowOk) return;
+      const body = index.get(id);
+      if (body === undefined) {
+        cells.fail(
+          line,
+          'body_id',
+          id,
+          'unknown-body',
+          'a water body of the inventory',
+          'the fit names a water body the inventory does not list',
+        );
+        return;
+      }
+      if (!(maxAreaHa > minAreaHa)) {
+        cells.fail(
+          line,
+          'max_area_ha',
+          values[at.max_area_ha!] ?? '',
+          'value-out-of-range',
+          `more than min_area_ha (${minAreaHa})`,
+          "the fit's area range is empty",
+        );
+        return;
+      }
+      if (withCurve.has(body)) {
+        cells.fail(line, 'body_id', id, 'duplicate-row', 'a curve or a fit per body, not both', 'the body already has a storage curve');
+        return;
+      }
+      const earlier = seen.get(body);
+      if (earlier !== undefined) {
+        cells.fail(line, 'body_id', id, 'duplicate-row', 'one fit per body', `the body already has a fit on line ${earlier}`);
+        return;
+      }
+      seen.set(body, line);
+      fits.push({ body, id, coefficient, exponent, minAreaHa, maxAreaHa, line });
+    },
+  );
+  return fits.sort((a, b) => a.body - b.body);
 }

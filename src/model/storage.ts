@@ -13,7 +13,7 @@
  * curve are not guessed: a group's storage is stated only when its bodies with a curve make up at
  * least `storage.minCurveShare` of its reference area, and the share is printed beside it.
  */
-import type { BulletinInputs, StorageCurve } from '../ingest/index.ts';
+import type { BulletinInputs, StorageCurve, StorageFit } from '../ingest/index.ts';
 import { Linear, Pchip } from '../stats/pchip.ts';
 import { aggregate, type GroupMonth } from './aggregate.ts';
 import { MISSING, type BodySeries } from './bodySeries.ts';
@@ -21,8 +21,41 @@ import { estimationBasisOf } from './estimate.ts';
 import type { MethodId } from './methods.ts';
 import { statusOf, type Status } from './status.ts';
 
+/** What turns a water area into storage: a survey curve (StorageReader) or a fitted power law (FitReader). */
+export interface VolumeReader {
+  readonly capacityHm3: number;
+  readonly minAreaHa: number;
+  readonly maxAreaHa: number;
+  readonly source: 'curve' | 'fit';
+  read(areaHa: number): { levelM: number | null; volumeHm3: number; clamped: boolean };
+}
+
+/**
+ * A fitted power law V = a·A^b (hm³ from ha), read inside its fitted area range and clamped to it;
+ * capacity is its volume at the top of the range. No elevation, so no level.
+ */
+export class FitReader implements VolumeReader {
+  readonly capacityHm3: number;
+  readonly minAreaHa: number;
+  readonly maxAreaHa: number;
+  readonly source = 'fit' as const;
+
+  constructor(private readonly fit: Pick<StorageFit, 'coefficient' | 'exponent' | 'minAreaHa' | 'maxAreaHa'>) {
+    this.minAreaHa = fit.minAreaHa;
+    this.maxAreaHa = fit.maxAreaHa;
+    this.capacityHm3 = fit.coefficient * fit.maxAreaHa ** fit.exponent;
+  }
+
+  read(areaHa: number): { levelM: null; volumeHm3: number; clamped: boolean } {
+    const clamped = areaHa < this.minAreaHa || areaHa > this.maxAreaHa;
+    const area = Math.min(this.maxAreaHa, Math.max(this.minAreaHa, areaHa));
+    return { levelM: null, volumeHm3: this.fit.coefficient * area ** this.fit.exponent, clamped };
+  }
+}
+
 /** One body's curve, ready to read both ways. */
-export class StorageReader {
+export class StorageReader implements VolumeReader {
+  readonly source = 'curve' as const;
   private readonly area: Pchip | Linear;
   private readonly volume: Pchip | Linear;
   readonly capacityHm3: number;
@@ -55,7 +88,9 @@ export interface BodyStorage {
   body: number;
   id: string;
   capacityHm3: number;
-  /** In the bulletin month (seen, or filled from a short gap); null when the body has no value then. */
+  /** A survey curve, or a fitted power law (an estimate, with no level). */
+  source: 'curve' | 'fit';
+  /** In the bulletin month (seen, or filled from a short gap); null when the body has no value then (and always for a fit). */
   levelM: number | null;
   volumeHm3: number | null;
   percentOfCapacity: number | null;
@@ -90,7 +125,7 @@ export interface StorageFigures {
 }
 
 /** Storage as percent of capacity per body and month, from the surface-area series (MISSING where area is). */
-function storageSeries(inputs: BulletinInputs, series: BodySeries, readers: Map<number, StorageReader>): BodySeries {
+function storageSeries(inputs: BulletinInputs, series: BodySeries, readers: Map<number, VolumeReader>): BodySeries {
   const filling = inputs.bodies.map(() => new Float64Array(series.months).fill(Number.NaN));
   const state = inputs.bodies.map(() => new Uint8Array(series.months));
   for (const [body, reader] of readers) {
@@ -110,36 +145,31 @@ function storageSeries(inputs: BulletinInputs, series: BodySeries, readers: Map<
 }
 
 export function storage(inputs: BulletinInputs, series: BodySeries): StorageFigures | null {
-  if (inputs.storage.length === 0) return null;
+  if (inputs.storage.length === 0 && inputs.storageFits.length === 0) return null;
   const { config, bulletinMonth } = inputs;
   const interpolation = config.storage.interpolation;
-  const readers = new Map(inputs.storage.map((curve) => [curve.body, new StorageReader(curve, interpolation)]));
+  const readers = new Map<number, VolumeReader>([
+    ...inputs.storage.map((curve) => [curve.body, new StorageReader(curve, interpolation)] as const),
+    ...inputs.storageFits.map((fit) => [fit.body, new FitReader(fit)] as const),
+  ]);
   const slot = bulletinMonth - series.firstMonth;
-  const bodies: BodyStorage[] = inputs.storage.map((curve) => {
-    const reader = readers.get(curve.body) as StorageReader;
-    const body = inputs.bodies[curve.body] as BulletinInputs['bodies'][number];
-    const seen = slot >= 0 && (series.state[curve.body] as Uint8Array)[slot] !== MISSING;
-    if (!seen)
+  const bodies: BodyStorage[] = [...readers.keys()]
+    .sort((a, b) => a - b)
+    .map((index) => {
+      const reader = readers.get(index) as VolumeReader;
+      const body = inputs.bodies[index] as BulletinInputs['bodies'][number];
+      const seen = slot >= 0 && (series.state[index] as Uint8Array)[slot] !== MISSING;
+      const base = { body: index, id: body.id, capacityHm3: reader.capacityHm3, source: reader.source };
+      if (!seen) return { ...base, levelM: null, volumeHm3: null, percentOfCapacity: null, clamped: false };
+      const read = reader.read((((series.filling[index] as Float64Array)[slot] as number) * body.referenceHa) / 100);
       return {
-        body: curve.body,
-        id: body.id,
-        capacityHm3: reader.capacityHm3,
-        levelM: null,
-        volumeHm3: null,
-        percentOfCapacity: null,
-        clamped: false,
+        ...base,
+        levelM: read.levelM,
+        volumeHm3: read.volumeHm3,
+        percentOfCapacity: reader.capacityHm3 > 0 ? (100 * read.volumeHm3) / reader.capacityHm3 : null,
+        clamped: read.clamped,
       };
-    const read = reader.read((((series.filling[curve.body] as Float64Array)[slot] as number) * body.referenceHa) / 100);
-    return {
-      body: curve.body,
-      id: body.id,
-      capacityHm3: reader.capacityHm3,
-      levelM: read.levelM,
-      volumeHm3: read.volumeHm3,
-      percentOfCapacity: reader.capacityHm3 > 0 ? (100 * read.volumeHm3) / reader.capacityHm3 : null,
-      clamped: read.clamped,
-    };
-  });
+    });
   const stored = storageSeries(inputs, series, readers);
   const capacity = new Float64Array(inputs.bodies.length);
   for (const [body, reader] of readers) capacity[body] = reader.capacityHm3;

@@ -532,7 +532,7 @@ function storageRows(model: BulletinModel, index: number, locale: string): strin
   const { t, pct, num } = formatters(locale);
   const mark = (text: string) => (own.clamped && text !== '–' ? t('view.storage.clamped', { value: text }) : text);
   return [
-    [t('view.storage.level'), mark(num(own.levelM, 2))],
+    [t('view.storage.level'), own.source === 'fit' ? t('view.storage.noLevel') : mark(num(own.levelM, 2))],
     [t('view.storage.volume'), mark(num(own.volumeHm3, 2))],
     [t('view.storage.capacity'), num(own.capacityHm3, 2)],
     [t('view.storage.percentOfCapacity'), mark(pct(own.percentOfCapacity))],

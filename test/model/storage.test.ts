@@ -114,3 +114,40 @@ describe('storage in the bulletin', () => {
     expect(model.notices.some((notice) => notice.text.includes('survey curve'))).toBe(false);
   });
 });
+
+describe('fitted power laws', () => {
+  async function withFits(lines: string[], curves: string[] | null = null) {
+    const inputs: Record<string, string> = { ...MINI_CONFIG.inputs, storageFits: 'fits.csv' };
+    if (curves) inputs.storageCurves = 'curves.csv';
+    const folder = writeMini({ 'bulletin.json': JSON.stringify({ ...MINI_CONFIG, inputs }) });
+    writeFileSync(join(folder, 'fits.csv'), `${lines.join('\n')}\n`);
+    if (curves) writeFileSync(join(folder, 'curves.csv'), `${curves.join('\n')}\n`);
+    return loadBulletin(folder);
+  }
+
+  it('gives a volume from V = a·A^b and no level', async () => {
+    const { inputs, problems } = await withFits(['body_id,coefficient,exponent,min_area_ha,max_area_ha', 'B,0.0002,2,0,250']);
+    if (!inputs) throw new Error(JSON.stringify(problems.errors));
+    const model = buildModel(inputs, problems.warnings, 'test');
+    const body = model.storage?.bodies[0];
+    // June 2020: 209 ha. 0.0002 × 209² = 8.7362 hm³; capacity 0.0002 × 250² = 12.5 hm³.
+    expect(body?.source).toBe('fit');
+    expect(body?.levelM).toBeNull();
+    expect(body?.volumeHm3).toBeCloseTo(0.0002 * 209 ** 2, 9);
+    expect(body?.capacityHm3).toBeCloseTo(12.5, 9);
+    expect(body?.percentOfCapacity).toBeCloseTo((100 * 8.7362) / 12.5, 9);
+  });
+
+  it('refuses a fit for a body that has a curve, a second fit and an empty area range, at their lines', async () => {
+    const { problems } = await withFits(
+      ['body_id,coefficient,exponent,min_area_ha,max_area_ha', 'B,0.0002,2,0,250', 'A,1,1,5,5', 'A,1,1,0,5', 'A,1,1,0,6'],
+      CURVE_B,
+    );
+    const found = problems.errors.map((problem) => `${problem.code} ${problem.file}:${problem.line} ${problem.column}`).sort();
+    expect(found).toEqual([
+      'duplicate-row fits.csv:2 body_id',
+      'duplicate-row fits.csv:5 body_id',
+      'value-out-of-range fits.csv:3 max_area_ha',
+    ]);
+  });
+});

@@ -38,6 +38,7 @@ function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
     rainfall: [],
     field: [],
     storage: [],
+    storageFits: [],
     subRegions: [],
     files: [],
     content: {},
