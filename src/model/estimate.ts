@@ -32,6 +32,7 @@
  */
 import type { BulletinInputs } from '../ingest/index.ts';
 import { quantileSorted } from '../stats/index.ts';
+import { selectRanks } from '../stats/selectRanks.ts';
 import { MISSING, OBSERVED, type BodySeries } from './bodySeries.ts';
 
 /** Fewest seen bodies whose ratios stand for an unseen one (common practice; this project's choice). */
@@ -124,24 +125,29 @@ export function estimationBasis(inputs: BulletinInputs, series: BodySeries): Est
   }
 
   // Usual filling: the median of the body's values (observed or filled) of each calendar month over the baseline years.
+  // Typed scratch buffers sorted in place (a numeric typed-array sort, no comparator): at 100,000
+  // bodies × 120 months the lists of numbers this replaced took 19 s, most of a national model stage.
   const usual = new Float64Array(n * 12).fill(Number.NaN);
-  const byMonth: number[][] = Array.from({ length: 12 }, () => []);
+  const perMonth = Math.ceil(series.months / 12) + 1;
+  const byMonth = new Float64Array(12 * perMonth);
+  const inMonth = new Int32Array(12);
   for (let body = 0; body < n; body++) {
     const states = series.state[body] as Uint8Array;
     const filling = series.filling[body] as Float64Array;
-    for (const list of byMonth) list.length = 0;
+    inMonth.fill(0);
     for (let slot = 0; slot < series.months; slot++) {
       if (states[slot] === MISSING) continue;
       const month = series.firstMonth + slot;
       const year = Math.floor(month / 12);
       if (year < firstYear || year > lastYear) continue;
-      (byMonth[month % 12] as number[]).push(filling[slot] as number);
+      const m = month % 12;
+      byMonth[m * perMonth + (inMonth[m] as number)] = filling[slot] as number;
+      inMonth[m] = (inMonth[m] as number) + 1;
     }
     for (let m = 0; m < 12; m++) {
-      const values = byMonth[m] as number[];
-      if (values.length < minYears) continue;
-      values.sort((a, b) => a - b);
-      usual[body * 12 + m] = quantileSorted(values, 0.5);
+      const count = inMonth[m] as number;
+      if (count < minYears) continue;
+      usual[body * 12 + m] = quantileSorted(byMonth.subarray(m * perMonth, m * perMonth + count).sort(), 0.5);
     }
   }
 
@@ -161,7 +167,7 @@ export function estimationBasis(inputs: BulletinInputs, series: BodySeries): Est
   // Each body's own spread of ratio changes over 1 … maxCarry months, from observed months only
   // (interpolated months would understate it).
   const ratio = new Float64Array(series.months);
-  const changes: number[] = [];
+  const changeBuffer = new Float64Array(series.months);
   for (let body = 0; body < n; body++) {
     const states = series.state[body] as Uint8Array;
     const filling = series.filling[body] as Float64Array;
@@ -170,13 +176,13 @@ export function estimationBasis(inputs: BulletinInputs, series: BodySeries): Est
       ratio[slot] = states[slot] === OBSERVED ? (filling[slot] as number) / u : Number.NaN;
     }
     for (let j = 1; j <= maxCarry; j++) {
-      changes.length = 0;
+      let count = 0;
       for (let slot = j; slot < series.months; slot++) {
         const change = (ratio[slot] as number) - (ratio[slot - j] as number);
-        if (Number.isFinite(change)) changes.push(change);
+        if (Number.isFinite(change)) changeBuffer[count++] = change;
       }
-      if (changes.length < MIN_CHANGE_PAIRS) continue;
-      changes.sort((a, b) => a - b);
+      if (count < MIN_CHANGE_PAIRS) continue;
+      const changes = changeBuffer.subarray(0, count).sort();
       basis.changeLow[body * maxCarry + j - 1] = quantileSorted(changes, LOW);
       basis.changeHigh[body * maxCarry + j - 1] = quantileSorted(changes, HIGH);
     }
@@ -186,13 +192,28 @@ export function estimationBasis(inputs: BulletinInputs, series: BodySeries): Est
   const levels = cells + subRegions + 1;
   basis.ratios = new Float64Array(series.months * levels * 3).fill(Number.NaN);
   basis.fillings = new Float64Array(series.months * levels * 3).fill(Number.NaN);
-  const ratioLists: number[][] = Array.from({ length: levels }, () => []);
-  const fillingLists: number[][] = Array.from({ length: levels }, () => []);
+  // One buffer per level, as long as the level has bodies, refilled every month.
+  const sizes = new Int32Array(levels);
+  for (let body = 0; body < n; body++) {
+    sizes[levels - 1] = (sizes[levels - 1] as number) + 1;
+    if ((cellOf[body] as number) >= 0) sizes[cellOf[body] as number] = (sizes[cellOf[body] as number] as number) + 1;
+    if ((subRegionOf[body] as number) >= 0)
+      sizes[cells + (subRegionOf[body] as number)] = (sizes[cells + (subRegionOf[body] as number)] as number) + 1;
+  }
+  const ratioLists = Array.from(sizes, (size) => new Float64Array(size));
+  const fillingLists = Array.from(sizes, (size) => new Float64Array(size));
+  const ratioCounts = new Int32Array(levels);
+  const fillingCounts = new Int32Array(levels);
+  const add = (level: number, value: number, u: number) => {
+    (fillingLists[level] as Float64Array)[fillingCounts[level] as number] = value;
+    fillingCounts[level] = (fillingCounts[level] as number) + 1;
+    if (!Number.isFinite(u)) return;
+    (ratioLists[level] as Float64Array)[ratioCounts[level] as number] = value / u;
+    ratioCounts[level] = (ratioCounts[level] as number) + 1;
+  };
   for (let slot = 0; slot < series.months; slot++) {
-    for (let level = 0; level < levels; level++) {
-      (ratioLists[level] as number[]).length = 0;
-      (fillingLists[level] as number[]).length = 0;
-    }
+    ratioCounts.fill(0);
+    fillingCounts.fill(0);
     const month = series.firstMonth + slot;
     for (let body = 0; body < n; body++) {
       if ((series.state[body] as Uint8Array)[slot] === MISSING) continue;
@@ -200,29 +221,34 @@ export function estimationBasis(inputs: BulletinInputs, series: BodySeries): Est
       const u = usualOf(basis, body, month);
       const cell = cellOf[body] as number;
       const subRegion = subRegionOf[body] as number;
-      add(fillingLists, ratioLists, levels - 1, value, u);
-      if (cell >= 0) add(fillingLists, ratioLists, cell, value, u);
-      if (subRegion >= 0) add(fillingLists, ratioLists, cells + subRegion, value, u);
+      add(levels - 1, value, u);
+      if (cell >= 0) add(cell, value, u);
+      if (subRegion >= 0) add(cells + subRegion, value, u);
     }
     for (let level = 0; level < levels; level++) {
-      summarize(ratioLists[level] as number[], basis.ratios, (slot * levels + level) * 3);
-      summarize(fillingLists[level] as number[], basis.fillings, (slot * levels + level) * 3);
+      summarize((ratioLists[level] as Float64Array).subarray(0, ratioCounts[level]), basis.ratios, (slot * levels + level) * 3);
+      summarize((fillingLists[level] as Float64Array).subarray(0, fillingCounts[level]), basis.fillings, (slot * levels + level) * 3);
     }
   }
   return basis;
 }
 
-function add(fillings: number[][], ratios: number[][], level: number, value: number, u: number): void {
-  (fillings[level] as number[]).push(value);
-  if (Number.isFinite(u)) (ratios[level] as number[]).push(value / u);
-}
-
-function summarize(values: number[], into: Float64Array, at: number): void {
-  if (values.length < MIN_NEIGHBOURS) return;
-  values.sort((a, b) => a - b);
-  into[at] = quantileSorted(values, 0.5);
-  into[at + 1] = quantileSorted(values, LOW);
-  into[at + 2] = quantileSorted(values, HIGH);
+/**
+ * Median, 10th and 90th percentiles (type 7, as quantileSorted) by selection rather than sorting:
+ * the six ranks either side of the three positions (selectRanks). `values` is reordered.
+ */
+function summarize(values: Float64Array, into: Float64Array, at: number): void {
+  const n = values.length;
+  if (n < MIN_NEIGHBOURS) return;
+  const positions = [0.5, LOW, HIGH].map((p) => (n - 1) * p);
+  const ranks = [...new Set(positions.flatMap((h) => [Math.floor(h), Math.min(n - 1, Math.floor(h) + 1)]))].sort((a, b) => a - b);
+  const selected = selectRanks(values, n, ranks);
+  const valueAt = (rank: number) => selected[ranks.indexOf(rank)] as number;
+  positions.forEach((h, k) => {
+    const below = Math.floor(h);
+    const low = valueAt(below);
+    into[at + k] = below + 1 >= n ? low : low + (h - below) * (valueAt(below + 1) - low);
+  });
 }
 
 /**

@@ -47,6 +47,22 @@ function endSlope(h0: number, h1: number, m0: number, m1: number): number {
   return d;
 }
 
+const BELOW = -1;
+const ABOVE = -2;
+
+/**
+ * For knot values that do not decrease: the first segment k with y_k < target ≤ y_k+1 (the lowest
+ * one where the values stay flat), or BELOW / ABOVE when the target lies at or beyond an end.
+ */
+function risingSegment(y: Float64Array, target: number): number {
+  const last = y.length - 1;
+  if (target <= (y[0] as number)) return BELOW;
+  if (target >= (y[last] as number)) return ABOVE;
+  let k = 0;
+  while (k < last - 1 && (y[k + 1] as number) < target) k++;
+  return k;
+}
+
 /** A PCHIP interpolant through (x, y): `at` inside [x₀, xₙ₋₁], clamped outside (callers say when they clamp). */
 export class Pchip {
   readonly x: Float64Array;
@@ -101,12 +117,9 @@ export class Pchip {
    * Clamped to the ends outside [y₀, yₙ₋₁]. Bisection on the segment to the last bit of precision.
    */
   inverse(target: number): number {
-    const { x, y } = this;
-    const last = x.length - 1;
-    if (target <= (y[0] as number)) return x[0] as number;
-    if (target >= (y[last] as number)) return x[last] as number;
-    let k = 0;
-    while (k < last - 1 && (y[k + 1] as number) < target) k++;
+    const { x } = this;
+    const k = risingSegment(this.y, target);
+    if (k < 0) return x[k === BELOW ? 0 : x.length - 1] as number;
     // Segment k holds the target (y_k < target ≤ y_k+1); the interpolant rises on it.
     let low = x[k] as number;
     let high = x[k + 1] as number;
@@ -144,11 +157,8 @@ export class Linear {
 
   inverse(target: number): number {
     const { x, y } = this;
-    const last = x.length - 1;
-    if (target <= (y[0] as number)) return x[0] as number;
-    if (target >= (y[last] as number)) return x[last] as number;
-    let k = 0;
-    while (k < last - 1 && (y[k + 1] as number) < target) k++;
+    const k = risingSegment(y, target);
+    if (k < 0) return x[k === BELOW ? 0 : x.length - 1] as number;
     const t = (target - (y[k] as number)) / ((y[k + 1] as number) - (y[k] as number));
     return (x[k] as number) + t * ((x[k + 1] as number) - (x[k] as number));
   }

@@ -14,33 +14,18 @@ const CONFIG = { statusBands: BANDS, baseline: { firstYear: 2018, lastYear: 2019
 
 /** 2018-01 … 2020-06: every month 50 % in the baseline years, then the given 2020 values. */
 function series(values2020: Array<number | null>): GroupMonth[] {
-  const rows: GroupMonth[] = [];
-  for (let k = 0; k < 24; k++)
-    rows.push({
-      month: 2018 * 12 + k,
-      fillingPercent: 50,
-      coveragePercent: 100,
-      filledPercent: 0,
-      estimatedPercent: 0,
-      lowPercent: null,
-      highPercent: null,
-      bodiesWithValue: 1,
-      bodiesEstimated: 0,
-    });
-  values2020.forEach((value, k) =>
-    rows.push({
-      month: 2020 * 12 + k,
-      fillingPercent: value,
-      coveragePercent: 100,
-      filledPercent: 0,
-      estimatedPercent: 0,
-      lowPercent: null,
-      highPercent: null,
-      bodiesWithValue: 1,
-      bodiesEstimated: 0,
-    }),
-  );
-  return rows;
+  const row = (month: number, fillingPercent: number | null): GroupMonth => ({
+    month,
+    fillingPercent,
+    coveragePercent: 100,
+    filledPercent: 0,
+    estimatedPercent: 0,
+    lowPercent: null,
+    highPercent: null,
+    bodiesWithValue: 1,
+    bodiesEstimated: 0,
+  });
+  return [...Array.from({ length: 24 }, (_, k) => row(2018 * 12 + k, 50)), ...values2020.map((value, k) => row(2020 * 12 + k, value))];
 }
 const JUNE_2020 = 2020 * 12 + 5;
 
