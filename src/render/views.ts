@@ -228,16 +228,26 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
     {
       id: 'grid',
       caption: t('view.grid.caption', { degrees: formatNumber(locale, model.grid.cellDegrees, 2), month: model.meta.monthName }),
-      columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('view.standardized'), t('view.grid.state')],
-      rows: model.grid.cells.map((cell) => [
-        formatPosition(locale, cell.south, cell.west, 2),
-        String(cell.bodies),
-        pct(cell.fillingPercent),
-        pct(cell.baselineMean),
-        standardizedText(cell.state === 'stated' ? cell.standardized : undefined),
-        t(`view.cell.${cell.state}`),
-      ]),
-      note: t('view.grid.note', { minBodies: model.grid.minBodies }),
+      columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('ui.percentOfUsual'), t('ui.status')],
+      // Only the cells with a figure: the others are counted in the note (and listed in the map's own data table).
+      rows: model.grid.cells
+        .filter((cell) => cell.state === 'stated')
+        .map((cell) => [
+          formatPosition(locale, cell.south, cell.west, 2),
+          String(cell.bodies),
+          pct(cell.fillingPercent),
+          pct(cell.baselineMean),
+          pct(cell.percentOfBaseline),
+          cell.bandKey ? t(bandKey(cell.bandKey)) : '–',
+        ]),
+      note: t('view.grid.noteCounts', {
+        minBodies: model.grid.minBodies,
+        stated: model.grid.cells.filter((cell) => cell.state === 'stated').length,
+        total: model.grid.cells.length,
+        tooFew: model.grid.cells.filter((cell) => cell.state === 'too-few-bodies').length,
+        lowCoverage: model.grid.cells.filter((cell) => cell.state === 'low-coverage').length,
+        shortBaseline: model.grid.cells.filter((cell) => cell.state === 'short-baseline').length,
+      }),
     },
   ];
   return { status, subRegions, sizeClasses, grid };

@@ -195,3 +195,54 @@ describe('changes since the previous issue', () => {
     for (const row of changes?.rows ?? []) expect(row.from).not.toBe(row.to);
   });
 });
+
+describe('the overview figures', () => {
+  it('prints each number from the model field it names, at the precision shown (the example, both languages)', async () => {
+    const { EXAMPLE } = await import('../support/exampleSite.ts');
+    const { inputs, problems } = await loadBulletin(EXAMPLE);
+    if (!inputs) throw new Error('the example does not load');
+    for (const locale of ['en', 'fr']) {
+      const model = JSON.parse(JSON.stringify(buildModel(inputs, problems.warnings, 'test', { locale }))) as BulletinModel;
+      const region = model.surfaceWater.region.status;
+      if (region.kind !== 'stated') throw new Error('the example states its region');
+      const own = model.bodyStatus;
+      // Each tile and the model fields (as in the JSON download) its numbers come from, in order.
+      const sources: Record<string, number[]> = {
+        percentOfBaseline: [
+          region.percentOfBaseline,
+          region.range.percentOfBaselineLow as number,
+          region.range.percentOfBaselineHigh as number,
+        ],
+        coverage: [region.coveragePercent],
+        seen: [model.seenSharePercent],
+        declines: [model.trends.bodies.declining, model.trends.bodies.tested],
+        shifted: [model.trends.bodies.shiftedDown, model.trends.bodies.tested],
+        unstated: [
+          own.filter((entry) => entry.state !== 'stated').length,
+          own.length,
+          own.filter((entry) => entry.state === 'low-coverage').length,
+          own.filter((entry) => entry.state === 'short-baseline').length,
+        ],
+        deficit: [model.surfaceWater.region.deficit.months],
+      };
+      const figures = views(model).figures as unknown as Record<string, string>;
+      for (const [name, values] of Object.entries(sources)) {
+        const text = (figures[name] as string).replace(/\u202f|\u00a0/g, ' ');
+        // Numbers as printed (a decimal comma in French); a year beside a month name is a date, not a figure.
+        const numbers = [...text.matchAll(/(?<![\p{L}\d])(\d[\d ,.]*\d|\d)(?![\p{L}\d])/gu)]
+          .map((match) => (match[1] as string).trim())
+          .filter((token) => !/^(19|20)\d\d$/.test(token));
+        // The range is left out when it rounds to the figure itself: then only the figure is printed.
+        expect(numbers.length, `${locale} ${name}: "${text}"`).toBeGreaterThan(0);
+        numbers.forEach((token, k) => {
+          const normal = locale === 'fr' ? token.replace(/ /g, '').replace(',', '.') : token.replace(/,/g, '');
+          const decimals = normal.includes('.') ? (normal.split('.')[1] as string).length : 0;
+          expect(
+            Math.abs(Number(normal) - (values[k] as number)),
+            `${locale} ${name}: ${token} in "${text}" against ${values[k]}`,
+          ).toBeLessThanOrEqual(0.5 * 10 ** -decimals + 1e-9);
+        });
+      }
+    }
+  });
+});
