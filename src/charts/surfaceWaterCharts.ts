@@ -11,33 +11,34 @@ const ENVELOPE = '#c6dbef';
 const round = (value: number | null | undefined, digits = 1) => roundOrNull(value, digits);
 const cell = (value: number | null) => (value === null ? '–' : value);
 
-export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
+/**
+ * The regional baseline band shared by the charts of the region's months: each month's usual values
+ * (median, low and high of its calendar month), the two layers that draw them (shaded band, dashed
+ * median) and their data-table columns. `range`: the band is the lowest–highest of fewer than 10
+ * baseline years, not percentiles, and the words say so.
+ */
+type Layer = Extract<TopLevelSpec, { layer: unknown }>['layer'][number];
+
+/** The time axis of the charts of the region's months. */
+interface MonthAxis {
+  field: 'month';
+  type: 'temporal';
+  timeUnit: 'yearmonth';
+  title: null;
+  axis: { format: string; tickCount: number | 'year'; labelAngle?: number };
+}
+
+function regionBand(model: BulletinModel) {
   const t = translator(model.meta.locale);
-  const series = model.surfaceWater.region.series;
   const envelope = model.surfaceWater.regionEnvelope;
-  const bulletinYear = Number(model.meta.month.slice(0, 4));
-  const values = series.map((entry) => {
-    const band = envelope[entry.month % 12];
-    return {
-      month: monthLabel(entry.month),
-      filling: round(entry.fillingPercent),
-      thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
-      coverage: round(entry.coveragePercent),
-      median: round(band?.median),
-      low: round(band?.low),
-      high: round(band?.high),
-    };
-  });
-  // Percentiles from 10 baseline years on; below that the range of the years, and the words say so.
   const range = envelope.some((band) => band.low !== null && band.kind === 'range');
-  const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
-  const spec: TopLevelSpec = {
-    $schema: VEGA_LITE_SCHEMA,
-    width: 640,
-    height: 240,
-    padding: 12,
-    data: { values },
-    layer: [
+  return {
+    range,
+    values: (month: number) => {
+      const band = envelope[month % 12];
+      return { median: round(band?.median), low: round(band?.low), high: round(band?.high) };
+    },
+    layers: (x: MonthAxis): Layer[] => [
       {
         mark: { type: 'area', color: ENVELOPE, opacity: 0.9 },
         encoding: { x, y: { field: 'low', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'high' } },
@@ -46,6 +47,38 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
         mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 },
         encoding: { x, y: { field: 'median', type: 'quantitative' } },
       },
+    ],
+    columns: [
+      t('chart.baselineMedian'),
+      t(range ? 'chart.baselineLowest' : 'chart.baselineP10'),
+      t(range ? 'chart.baselineHighest' : 'chart.baselineP90'),
+    ],
+    cells: (row: { median: number | null; low: number | null; high: number | null }) => [cell(row.median), cell(row.low), cell(row.high)],
+  };
+}
+
+export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
+  const t = translator(model.meta.locale);
+  const series = model.surfaceWater.region.series;
+  const band = regionBand(model);
+  const range = band.range;
+  const bulletinYear = Number(model.meta.month.slice(0, 4));
+  const values = series.map((entry) => ({
+    month: monthLabel(entry.month),
+    filling: round(entry.fillingPercent),
+    thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
+    coverage: round(entry.coveragePercent),
+    ...band.values(entry.month),
+  }));
+  const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
+  const spec: TopLevelSpec = {
+    $schema: VEGA_LITE_SCHEMA,
+    width: 640,
+    height: 240,
+    padding: 12,
+    data: { values },
+    layer: [
+      ...band.layers(x),
       { mark: { type: 'line', color: OKABE_ITO.blue, strokeWidth: 1.5 }, encoding: { x, y: { field: 'filling', type: 'quantitative' } } },
       {
         mark: { type: 'line', color: OKABE_ITO.vermillion, strokeWidth: 3, point: { filled: true, size: 30, color: OKABE_ITO.vermillion } },
@@ -63,22 +96,8 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     spec,
     table: {
       caption: t('chart.regional.caption'),
-      columns: [
-        t('chart.month'),
-        t('view.water'),
-        t('chart.coverage'),
-        t('chart.baselineMedian'),
-        t(range ? 'chart.baselineLowest' : 'chart.baselineP10'),
-        t(range ? 'chart.baselineHighest' : 'chart.baselineP90'),
-      ],
-      rows: values.map((row) => [
-        row.month,
-        row.filling ?? t('chart.notStated'),
-        row.coverage ?? 0,
-        cell(row.median),
-        cell(row.low),
-        cell(row.high),
-      ]),
+      columns: [t('chart.month'), t('view.water'), t('chart.coverage'), ...band.columns],
+      rows: values.map((row) => [row.month, row.filling ?? t('chart.notStated'), row.coverage ?? 0, ...band.cells(row)]),
     },
   };
 }
@@ -94,10 +113,10 @@ export const RECENT_MONTHS = 24;
 export function recentMonthsChart(model: BulletinModel): ChartDefinition {
   const t = translator(model.meta.locale);
   const series = model.surfaceWater.region.series.slice(-RECENT_MONTHS);
-  const envelope = model.surfaceWater.regionEnvelope;
+  const band = regionBand(model);
+  const range = band.range;
   const last = series[series.length - 1]?.month ?? null;
   const values = series.map((entry) => {
-    const band = envelope[entry.month % 12];
     const moved = entry.lowPercent !== null && entry.highPercent !== null && entry.highPercent - entry.lowPercent >= 0.05;
     return {
       month: monthLabel(entry.month),
@@ -105,13 +124,10 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
       rangeLow: moved ? round(entry.lowPercent) : null,
       rangeHigh: moved ? round(entry.highPercent) : null,
       estimated: round(entry.estimatedPercent, 0),
-      median: round(band?.median),
-      low: round(band?.low),
-      high: round(band?.high),
+      ...band.values(entry.month),
       bulletin: entry.month === last ? round(entry.fillingPercent) : null,
     };
   });
-  const range = envelope.some((band) => band.low !== null && band.kind === 'range');
   const x = {
     field: 'month',
     type: 'temporal',
@@ -126,14 +142,7 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
     padding: 12,
     data: { values },
     layer: [
-      {
-        mark: { type: 'area', color: ENVELOPE, opacity: 0.9 },
-        encoding: { x, y: { field: 'low', type: 'quantitative', title: t('view.water'), scale: { zero: false } }, y2: { field: 'high' } },
-      },
-      {
-        mark: { type: 'line', color: GREY, strokeDash: [4, 3], strokeWidth: 1.5 },
-        encoding: { x, y: { field: 'median', type: 'quantitative' } },
-      },
+      ...band.layers(x),
       {
         mark: { type: 'rule', color: OKABE_ITO.blue, strokeWidth: 2 },
         encoding: { x, y: { field: 'rangeLow', type: 'quantitative' }, y2: { field: 'rangeHigh' } },
@@ -155,25 +164,14 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
     spec,
     table: {
       caption: t('chart.recent.caption'),
-      columns: [
-        t('chart.month'),
-        t('view.water'),
-        t('chart.recent.low'),
-        t('chart.recent.high'),
-        t('view.estimated'),
-        t('chart.baselineMedian'),
-        t(range ? 'chart.baselineLowest' : 'chart.baselineP10'),
-        t(range ? 'chart.baselineHighest' : 'chart.baselineP90'),
-      ],
+      columns: [t('chart.month'), t('view.water'), t('chart.recent.low'), t('chart.recent.high'), t('view.estimated'), ...band.columns],
       rows: values.map((row) => [
         row.month,
         row.filling ?? t('chart.notStated'),
         cell(row.rangeLow),
         cell(row.rangeHigh),
         row.estimated ?? 0,
-        cell(row.median),
-        cell(row.low),
-        cell(row.high),
+        ...band.cells(row),
       ]),
     },
   };

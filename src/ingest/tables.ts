@@ -486,6 +486,12 @@ export async function readDistributionBins(
   return bins;
 }
 
+/** The quantities of a curve that must not fall as elevation rises, with their column and unit. */
+const CURVE_QUANTITIES = [
+  { key: 'area', column: 'area_ha', text: 1, unit: 'ha', article: 'an' },
+  { key: 'volume', column: 'volume_hm3', text: 2, unit: 'hm³', article: 'a' },
+] as const;
+
 /**
  * The storage curves (inputs.storageCurves): several rows per body of elevation (m), area (ha) and
  * volume (hm³). Per body, sorted by elevation: elevation must rise strictly, area and volume never
@@ -560,26 +566,20 @@ export async function readStorageCurves(
           `the elevation already appears on line ${Math.min(row.line, before.line)} for ${id}`,
         );
         ok = false;
-      } else if (row.area < before.area) {
-        cells.fail(
-          row.line,
-          'area_ha',
-          row.text[1]!,
-          'curve-falls',
-          `an area of at least ${before.area} ha (line ${before.line}, a lower elevation)`,
-          `the area falls as the elevation rises for ${id}`,
-        );
-        ok = false;
-      } else if (row.volume < before.volume) {
-        cells.fail(
-          row.line,
-          'volume_hm3',
-          row.text[2]!,
-          'curve-falls',
-          `a volume of at least ${before.volume} hm³ (line ${before.line}, a lower elevation)`,
-          `the volume falls as the elevation rises for ${id}`,
-        );
-        ok = false;
+      } else {
+        // Area, then volume: the first that falls is reported.
+        const falling = CURVE_QUANTITIES.find((quantity) => row[quantity.key] < before[quantity.key]);
+        if (falling) {
+          cells.fail(
+            row.line,
+            falling.column,
+            row.text[falling.text]!,
+            'curve-falls',
+            `${falling.article} ${falling.key} of at least ${before[falling.key]} ${falling.unit} (line ${before.line}, a lower elevation)`,
+            `the ${falling.key} falls as the elevation rises for ${id}`,
+          );
+          ok = false;
+        }
       }
     }
     if (!ok) continue;

@@ -25,6 +25,18 @@ function formatters(locale: string) {
   const missing = (value: number | null | undefined): value is null | undefined =>
     value === null || value === undefined || !Number.isFinite(value);
   const t = translator(locale);
+  const withRange = (
+    format: (value: number) => string,
+    value: number | null | undefined,
+    low: number | null | undefined,
+    high: number | null | undefined,
+  ) => {
+    if (missing(value)) return '–';
+    const shown = format(value);
+    if (missing(low) || missing(high)) return shown;
+    const [from, to] = [format(low), format(high)];
+    return from === to ? shown : t('view.withRange', { value: shown, low: from, high: to });
+  };
   return {
     t,
     /** A group's status in words: its band, or why none is stated. */
@@ -42,13 +54,11 @@ function formatters(locale: string) {
      * A percent with its range from the estimated bodies (fixed set), when estimates move it: the
      * range is left out when it rounds to the value itself.
      */
-    ranged: (value: number | null | undefined, low: number | null | undefined, high: number | null | undefined, digits = 0) => {
-      if (missing(value)) return '–';
-      const shown = formatPercent(locale, value, digits);
-      if (missing(low) || missing(high)) return shown;
-      const [from, to] = [formatPercent(locale, low, digits), formatPercent(locale, high, digits)];
-      return from === to ? shown : t('view.withRange', { value: shown, low: from, high: to });
-    },
+    ranged: (value: number | null | undefined, low: number | null | undefined, high: number | null | undefined, digits = 0) =>
+      withRange((x) => formatPercent(locale, x, digits), value, low, high),
+    /** The same for a plain number (volumes). */
+    rangedNumber: (value: number | null | undefined, low: number | null | undefined, high: number | null | undefined, digits = 1) =>
+      withRange((x) => formatNumber(locale, x, digits), value, low, high),
     num: (value: number | null | undefined, digits = 1) => (missing(value) ? '–' : formatNumber(locale, value, digits)),
     signed: (value: number | null | undefined, digits = 1) =>
       missing(value) ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${formatNumber(locale, Math.abs(value), digits)}`,
@@ -554,7 +564,7 @@ export function storageTable(model: BulletinModel): TableView | null {
   const storage = model.storage;
   if (!storage) return null;
   const locale = model.meta.locale;
-  const { t, pct, num, ranged, statusWords } = formatters(locale);
+  const { t, pct, num, ranged, rangedNumber, statusWords } = formatters(locale);
   const row = (group: NonNullable<BulletinModel['storage']>['region']) => {
     const status = group.status;
     const stated = status?.kind === 'stated' ? status : null;
@@ -564,15 +574,7 @@ export function storageTable(model: BulletinModel): TableView | null {
       // One decimal: a share just under the minimum must not print as the minimum itself.
       pct(group.curveSharePercent, 1),
       num(group.capacityHm3, 1),
-      group.volumeHm3 === null
-        ? '–'
-        : group.volumeRangeHm3 && num(group.volumeRangeHm3.low, 1) !== num(group.volumeRangeHm3.high, 1)
-          ? t('view.withRange', {
-              value: num(group.volumeHm3, 1),
-              low: num(group.volumeRangeHm3.low, 1),
-              high: num(group.volumeRangeHm3.high, 1),
-            })
-          : num(group.volumeHm3, 1),
+      rangedNumber(group.volumeHm3, group.volumeRangeHm3?.low, group.volumeRangeHm3?.high),
       status && status.kind !== 'low-coverage' ? ranged(status.fillingPercent, status.range.low, status.range.high) : '–',
       ranged(stated?.percentOfBaseline, stated?.range.percentOfBaselineLow, stated?.range.percentOfBaselineHigh),
       status ? statusWords(status) : t('view.storage.tooFewCurves'),

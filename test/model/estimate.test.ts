@@ -47,7 +47,7 @@ function scenario(seed: number, hiddenMonths = 1, hideSubRegion = 'A'): Scenario
     for (let t = 1; t < MONTHS; t++) x[t] = 0.85 * (x[t - 1] as number) + 0.05 * normal(random);
     return x;
   });
-  const truth = bodies.map((body, k) => {
+  const truth = bodies.map((body) => {
     const s = SUB_REGIONS.indexOf(body.subRegionId);
     const phase = 0.5 * random();
     let own = 0;
@@ -58,7 +58,6 @@ function scenario(seed: number, hiddenMonths = 1, hideSubRegion = 'A'): Scenario
       const usual = 60 + 20 * Math.sin((2 * Math.PI * (t % 12)) / 12 + phase);
       values[t] = Math.min(100, usual * Math.exp((drivers[s] as Float64Array)[t] as number) * Math.exp(own + drought));
     }
-    void k;
     return values;
   });
   const filling = truth.map((values) => Float64Array.from(values));
