@@ -2,9 +2,8 @@
  * The whole build as numbered stages, each handing the next a typed value:
  * 1 ingest (every issue of the folder) → 2 model (stats inside) → 3 charts → 4 render → 5 publish.
  */
-import { readFileSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { buildCharts, chartCount, type ChartSet } from './charts/index.ts';
 import { InputError, type BulletinInputs, type Problem } from './ingest/index.ts';
 import { monthLabel } from './common/months.ts';
@@ -16,6 +15,7 @@ import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type 
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
 import { lineProgress, seconds, silentProgress, type Progress } from './progress.ts';
 import { HashCache, listFiles } from './common/files.ts';
+import { StageError, toolVersion } from './common/tool.ts';
 
 export interface BuildOptions {
   bulletinFolder: string;
@@ -30,18 +30,6 @@ export interface BuildOptions {
   handleSignals?: boolean;
   /** Test hook: called at each pause point of the build and the swap. */
   pause?: (point: PausePoint) => Promise<void>;
-}
-
-/** A failure outside the inputs, with the stage it happened in (one line for a person; the cause keeps the stack). */
-export class StageError extends Error {
-  constructor(
-    readonly stage: string,
-    readonly reason: string,
-    options?: { cause?: unknown },
-  ) {
-    super(`${stage}: ${reason}`, options);
-    this.name = 'StageError';
-  }
 }
 
 /** What the build did, in figures: seconds per stage, table rows read, trend series, charts, and the site written. */
@@ -62,11 +50,6 @@ export interface BuildResult {
   warnings: Problem[];
   outDir: string;
   stats: BuildStats;
-}
-
-export function toolVersion(): string {
-  const pkg = JSON.parse(readFileSync(fileURLToPath(new URL('../package.json', import.meta.url)), 'utf8')) as { version: string };
-  return pkg.version;
 }
 
 /** Site path of each issue: the latest revision of a month at /issues/YYYY-MM/, earlier ones below it. */

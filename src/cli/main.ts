@@ -2,27 +2,24 @@
  * The `limnopress` command line. Exit codes: 0 success, 1 input errors or a failed run,
  * 2 a usage error.
  */
-import { StageError, toolVersion } from '../build.ts';
+import { StageError, toolVersion } from '../common/tool.ts';
 import { PublishError } from '../site/publish.ts';
-import { InputError } from '../ingest/index.ts';
-import { runBuild } from './build.ts';
-import { formatReport, runCheck } from './check.ts';
-import { runInit, runNewIssue } from './init.ts';
-import { runPreview } from './preview.ts';
-import { runStorage } from './storage.ts';
-import { runTrend } from './trend.ts';
-import { runVerify } from './verify.ts';
+import { InputError } from '../ingest/problems.ts';
 import { HELP, UsageError } from './usage.ts';
 
+/**
+ * Each command's module is loaded only when it runs, so `--version` and `--help` answer without
+ * loading the stages (Eleventy, Vega, sharp).
+ */
 const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
-  build: runBuild,
-  check: runCheck,
-  init: runInit,
-  'new-issue': runNewIssue,
-  preview: runPreview,
-  storage: runStorage,
-  trend: runTrend,
-  verify: runVerify,
+  build: async (args) => (await import('./build.ts')).runBuild(args),
+  check: async (args) => (await import('./check.ts')).runCheck(args),
+  init: async (args) => (await import('./init.ts')).runInit(args),
+  'new-issue': async (args) => (await import('./init.ts')).runNewIssue(args),
+  preview: async (args) => (await import('./preview.ts')).runPreview(args),
+  storage: async (args) => (await import('./storage.ts')).runStorage(args),
+  trend: async (args) => (await import('./trend.ts')).runTrend(args),
+  verify: async (args) => (await import('./verify.ts')).runVerify(args),
 };
 
 const isParseArgsError = (error: unknown) =>
@@ -69,6 +66,7 @@ export async function main(argv: string[]): Promise<number> {
     }
     if (error instanceof InputError) {
       const errors = error.problems.filter((problem) => problem.severity === 'error').length;
+      const { formatReport } = await import('./check.ts');
       process.stderr.write(formatReport(error.problems, { errors, warnings: error.problems.length - errors }));
       process.stderr.write(`limnopress: ${error.message}; nothing was written\n`);
       return 1;

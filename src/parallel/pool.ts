@@ -1,7 +1,7 @@
 /**
  * One pool of worker threads for the whole build, shared by the stages that split their work
  * (reading the large tables, the trend tests), so each thread pays its start-up (loading the
- * TypeScript sources, about a second here) once. The pool knows no stage: a stage declares a task
+ * modules) once. The pool knows no stage: a stage declares a task
  * with `defineTask(import.meta.url, 'exportName')` beside the function, and a worker imports that
  * module and calls the export. Tasks go to the first idle thread; results come back as the task's
  * promise. Idle threads do not keep the process alive.
@@ -46,6 +46,12 @@ interface Queued {
   transfer: Transferable[];
 }
 
+/**
+ * The thread's entry: the compiled worker when this module is compiled (dist/), or a small entry
+ * that registers tsx first when it runs from the TypeScript sources (tests, development).
+ */
+const WORKER_ENTRY = import.meta.url.endsWith('.ts') ? './workerEntry.js' : './worker.js';
+
 export class WorkerPool {
   private readonly slots: Slot[] = [];
   private readonly queue: Queued[] = [];
@@ -80,7 +86,7 @@ export class WorkerPool {
   }
 
   private spawn(): Slot {
-    const worker = new Worker(new URL('./workerEntry.js', import.meta.url));
+    const worker = new Worker(new URL(WORKER_ENTRY, import.meta.url));
     const slot: Slot = { worker, busy: false };
     worker.on('message', (message: { id: number; output?: unknown; error?: string }) => {
       const pending = this.pending.get(message.id);

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { EXAMPLE } from '../support/exampleSite.ts';
 import { miniFiles, writeMini } from '../support/miniBulletin.ts';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, 'check', ...args], { encoding: 'utf8' });
 
 describe('limnopress check', () => {

@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { build } from '../../src/build.ts';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
 
 describe('limnopress init and new-issue', () => {

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
 
 describe('limnopress command line', () => {

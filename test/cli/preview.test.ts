@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 
 /** Resolves with the first stdout line matching `pattern`; rejects once the process has ended without one (never on time alone). */
 function waitFor(output: { text: string; ended: boolean }, pattern: RegExp): Promise<RegExpExecArray> {

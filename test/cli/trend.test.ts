@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, 'trend', ...args], { encoding: 'utf8' });
 const table = (text: string) => {
   const path = join(mkdtempSync(join(tmpdir(), 'limnopress-trend-')), 'series.csv');

@@ -15,7 +15,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { mulberry32 } from '../../scripts/random.ts';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 /** Series per cell: enough that a cell's Monte Carlo standard error is under 0.01 at a rate of 0.08 (power cells get fewer). */
 const REPLICATES = 1000;
 const POWER_REPLICATES = 300;

@@ -29,7 +29,7 @@ import { isolateBidi } from '../../src/text/bidi.ts';
 import { MINI_CONFIG, writeMini } from '../support/miniBulletin.ts';
 import { treeHashes } from '../support/gates.ts';
 
-const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });
 const config = (change: (c: typeof MINI_CONFIG & Record<string, unknown>) => void) => {
   const c = structuredClone(MINI_CONFIG) as typeof MINI_CONFIG & Record<string, unknown>;

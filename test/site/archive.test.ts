@@ -111,7 +111,7 @@ describe('verify', () => {
   });
 
   it('limnopress verify exits 1 on a changed site and 0 on the built one', () => {
-    const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+    const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
     expect(spawnSync(process.execPath, [cli, 'verify', site], { encoding: 'utf8' }).status).toBe(0);
     const copy = `${site}-verify-cli`;
     cpSync(site, copy, { recursive: true, dereference: true });

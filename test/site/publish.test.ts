@@ -65,7 +65,7 @@ describe('build on bad input', () => {
     const root = scratch();
     const site = publishedSite(root);
     const before = treeHashes(site);
-    const cli = join(import.meta.dirname, '..', '..', 'bin', 'limnopress.js');
+    const cli = join(import.meta.dirname, '..', '..', 'scripts', 'limnopress-src.js');
     const child = spawn(process.execPath, [cli, 'build', EXAMPLE, '--out', site], { stdio: ['ignore', 'ignore', 'pipe'] });
     // Kill it as soon as it reports the page stage, while the staging folder is being written.
     await new Promise<void>((resolve) => {
