@@ -4,7 +4,7 @@
 // missing or older than src/, it runs the sources instead (with a note), so it is never out of date.
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const compiled = join(root, 'dist', 'cli', 'main.js');
@@ -23,7 +23,7 @@ const sources = join(root, 'src');
 const stamp = join(root, 'dist', '.built');
 const current = existsSync(compiled) && (!existsSync(sources) || (existsSync(stamp) && statSync(stamp).mtimeMs >= newest(sources)));
 if (current) {
-  const { main } = await import(new URL('../dist/cli/main.js', import.meta.url).href);
+  const { main } = await import(pathToFileURL(compiled).href);
   process.exitCode = await main(process.argv.slice(2));
 } else if (existsSync(sources)) {
   process.stderr.write('limnopress: dist/ is missing or older than src/, so the sources run (slower start); `npm run build:dist` compiles them\n');

@@ -15,7 +15,7 @@ rmSync(dist, { recursive: true, force: true });
 const tsc = createRequire(import.meta.url).resolve('typescript/bin/tsc');
 const result = spawnSync(process.execPath, [tsc, '-p', join(root, 'tsconfig.build.json')], { stdio: 'inherit' });
 if (result.status !== 0) {
-  process.stderr.write('build-dist: the TypeScript compile failed; dist/ is incomplete and the command runs the sources\n');
+  process.stderr.write('build-dist: the TypeScript compile failed; dist/ is removed, so the command runs the sources until it compiles\n');
   rmSync(dist, { recursive: true, force: true });
   process.exit(1);
 }
