@@ -16,6 +16,7 @@ const SYSTEM_TESTS = [
   'test/cli/**/*.test.ts',
   'test/site/publish.test.ts',
   'test/render/escape.test.ts',
+  'test/render/wording.test.ts',
   'test/model/pool.test.ts',
 ];
 

@@ -9,6 +9,7 @@ import { InputError, type BulletinInputs, type Problem } from './ingest/index.ts
 import { monthLabel } from './common/months.ts';
 import { loadIssues } from './ingest/issues.ts';
 import { issueFigures, prepareModel, trendSeriesCount } from './model/index.ts';
+import { withWording } from './text/index.ts';
 import { wordModel, type BulletinModel } from './wording/index.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
@@ -164,12 +165,15 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
   await pauseAt('model', options.pause);
   progress.end(`${count(seriesTotal)} trend series, ${count(seriesTotal / modelSeconds)} series/s`);
 
-  const chartTotal = localized.reduce((sum, { model }) => sum + chartCount(model), 0);
+  // Chart words come from the catalogue: each issue's charts are made under its folder's own wording.
+  const wordingOf = (issue: number) => (loaded[issue] as { inputs: BulletinInputs }).inputs.wording;
+  const chartTotal = localized.reduce((sum, { model, issue }) => sum + withWording(wordingOf(issue), () => chartCount(model)), 0);
   progress.begin('3/5', 'rendering charts', chartTotal);
   let chartsDone = 0;
   const chartSets: ChartSet[] = [];
   await stage('rendering charts', async () => {
-    for (const { model } of localized) chartSets.push(await buildCharts(model, (id) => progress.advance(++chartsDone, id)));
+    for (const { model, issue } of localized)
+      chartSets.push(await withWording(wordingOf(issue), () => buildCharts(model, (id) => progress.advance(++chartsDone, id))));
   });
   lap('charts');
   await pauseAt('charts', options.pause);
@@ -177,8 +181,8 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
 
   progress.begin('4/5', 'rendering pages');
   const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => {
-    const { content, sources } = (loaded[issue] as { inputs: BulletinInputs }).inputs;
-    return { model, charts: chartSets[k] as ChartSet, content, sources, inputsPath, siteLocale, firstLocale };
+    const { content, sources, wording } = (loaded[issue] as { inputs: BulletinInputs }).inputs;
+    return { model, charts: chartSets[k] as ChartSet, content, sources, inputsPath, siteLocale, firstLocale, wording };
   });
   let site = { files: 0, pages: 0, bytes: 0 };
   await stage('writing the site', () =>

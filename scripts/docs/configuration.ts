@@ -66,6 +66,10 @@ export function settingRows(): SettingRow[] {
       default: schema.default === undefined ? '' : JSON.stringify(schema.default),
       meaning: schema.description ?? '',
     });
+    // A list of objects: each field of its items gets a row of its own, as `list[].field`.
+    if (schema.type === 'array' && schema.items?.type === 'object' && schema.items.properties)
+      for (const [name, child] of Object.entries(schema.items.properties))
+        walk(child, `${prefix}[].${name}`, (schema.items.required ?? []).includes(name));
   };
   walk(root, '', true);
   return rows;

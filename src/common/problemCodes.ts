@@ -15,7 +15,7 @@ export const PROBLEM_CODES = {
   'column-duplicate': 'a column name appears twice in a header',
   'column-missing': 'a required column is missing',
   'column-unknown': 'a column the table does not use',
-  'config-band-words': 'a configured status band has no words in a configured language',
+  'config-band-words': 'a configured status band has no words in a configured language (tool catalogue or the folder’s content/locales/)',
   'config-baseline-order': 'the baseline ends before it starts',
   'config-invalid': 'a setting of bulletin.json has the wrong type or value',
   'config-missing': 'there is no bulletin.json',
@@ -71,6 +71,12 @@ export const PROBLEM_CODES = {
   'value-not-number': 'a cell that should hold a number',
   'value-out-of-range': 'a number outside its documented range',
   'value-too-long': 'a text longer than its limit',
+  'wording-drops-placeholder': 'the folder’s own words for a message leave out a figure or name the tool fills in',
+  'wording-invalid':
+    'the folder’s own wording (content/locales/<locale>.json) is unreadable, or has an unknown key, a value that is not one line of text or a placeholder the tool does not fill',
+  'wording-one-language': 'a message reworded in one language of the issue but not in another',
+  'wording-plural-variants': 'a message reworded without its forms by count (key.one, key.other…)',
+  'wording-unused': 'the folder has wording for a language the issue is not published in',
 } as const;
 
 export type ProblemCode = keyof typeof PROBLEM_CODES;

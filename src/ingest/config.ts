@@ -6,7 +6,6 @@
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { ProblemList } from './problems.ts';
-import { loadMessages } from '../text/index.ts';
 import { isolateBidi } from '../text/bidi.ts';
 
 /** The languages with a catalogue in content/locales/. */
@@ -81,7 +80,7 @@ const statusBand = z.strictObject({
     .regex(/^[a-z][a-z-]*$/)
     .max(40)
     .describe(
-      'short key in lower case, used in data files, CSS classes and the wording catalogue (`band.<key>` gives its words in each language)',
+      "short key in lower case, used in data files, CSS classes and the wording catalogue: `band.<key>` gives its words in each language, in the tool's catalogue or the folder's own `content/locales/<locale>.json`",
     ),
   fromPercent: z.number().nullable().describe('lower bound, percent of the baseline median, inclusive; `null` for the lowest band'),
   colour: z
@@ -108,7 +107,14 @@ export const configSchema = z.strictObject({
     // `text` in the issue's first language; `translations` the same note in the others ({"fr": "…"}).
     corrections: z
       .array(
-        z.strictObject({ date, text: z.string().min(1), translations: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional() }),
+        z.strictObject({
+          date: date.describe('day the correction was made, `YYYY-MM-DD`'),
+          text: z.string().min(1).describe("the correction note in the issue's first language"),
+          translations: z
+            .partialRecord(z.enum(LOCALES), z.string().min(1))
+            .optional()
+            .describe('the same note in the other languages, by locale (`{"fr": "…"}`)'),
+        }),
       )
       .default([])
       .describe(
@@ -228,9 +234,18 @@ export const configSchema = z.strictObject({
       seasons: z
         .array(
           z.strictObject({
-            key: z.string().regex(/^[a-z][a-z-]*$/),
-            months: z.array(z.number().int().min(1).max(12)).min(1),
-            names: z.partialRecord(z.enum(LOCALES), z.string().min(1)).optional(),
+            key: z
+              .string()
+              .regex(/^[a-z][a-z-]*$/)
+              .describe('short key in lower case, shown when a language has no name for the season'),
+            months: z
+              .array(z.number().int().min(1).max(12))
+              .min(1)
+              .describe('calendar months of the season, 1–12, in order (a season across the new year counts once)'),
+            names: z
+              .partialRecord(z.enum(LOCALES), z.string().min(1))
+              .optional()
+              .describe('name of the season in each language, by locale (`{"en": "dry", "fr": "sèche"}`)'),
           }),
         )
         .default([])
@@ -515,23 +530,6 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
         message: `status colours hard to tell apart: ${shortfalls.slice(0, 3).join('; ')}${shortfalls.length > 3 ? `; and ${shortfalls.length - 3} more` : ''}`,
         params: { first: shortfalls[0] as string, count: shortfalls.length },
       });
-  }
-  // Every band needs its words in every language of the bulletin (band.<key> in the catalogue).
-  for (const locale of config.locales) {
-    const messages = loadMessages(locale);
-    for (const band of bands) {
-      if (messages[`band.${band.key}`] === undefined) {
-        problems.error({
-          code: 'config-band-words',
-          file: label,
-          line: lineOfPath(text, ['statusBands']),
-          column: 'statusBands',
-          value: band.key,
-          expected: `a band key with wording in content/locales/${locale}.json (band.${band.key})`,
-          message: `the status band has no wording in ${locale}`,
-        });
-      }
-    }
   }
   return config;
 }

@@ -12,6 +12,8 @@ import { HashCache, sha256File } from '../common/files.ts';
 import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
+import { readWording } from './wording.ts';
+import type { WordingLayer } from '../text/index.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
 import { ProblemList } from './problems.ts';
@@ -86,6 +88,8 @@ export interface BulletinInputs {
   files: InputFile[];
   /** Editorial text by name (`foreword`, `foreword.fr`, `notes`), read and checked here. */
   content: Record<string, string>;
+  /** The folder's own wording over the tool's catalogue (content/locales/<locale>.json), by locale; empty without. */
+  wording: WordingLayer;
   /** Real path of each input file, by its path in `files`, resolved inside the folder. */
   sources: Record<string, string>;
 }
@@ -173,6 +177,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     }
   }
   const content = readContent(root, config, problems, label);
+  const wording = readWording(root, config, problems, label, readFileSync(configPath, 'utf8'));
   if (problems.errors.length > 0) return { inputs: null, problems };
   const at = (path: string) => real.get(path) as string;
   const bulletinMonth = parseMonth(config.issue.month) as number;
@@ -240,6 +245,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
       subRegions,
       files,
       content,
+      wording,
       sources,
     },
     problems,

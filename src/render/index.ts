@@ -12,7 +12,7 @@ import type { ChartSet } from '../charts/index.ts';
 
 import type { BulletinModel } from '../wording/index.ts';
 import { localeEntry } from '../text/locales.ts';
-import { fillMessage, formatMessage, loadMessages, type MessageKey } from '../text/index.ts';
+import { fillMessage, formatMessage, loadMessages, withWording, type MessageKey, type WordingLayer } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl, type SiteFile } from './siteFiles.ts';
 
@@ -34,6 +34,8 @@ export interface IssueBundle {
   siteLocale?: string;
   /** The issue's first language, the one its editorial text is written in unless a translation is given. */
   firstLocale?: string;
+  /** The issue folder's own wording over the tool's catalogue (ingest/wording.ts); the site-level pages use the current issue's. */
+  wording?: WordingLayer;
 }
 
 /** Each language's own name, for the language switch (in that language, as readers look for it). */
@@ -189,8 +191,9 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
   };
   // Downloads first: a large model's JSON is written and let go before the pages take their memory.
   for (const bundle of bundles) for (const file of downloadFiles(bundle.model, bundle.charts)) write(file);
-  const issues = bundles.map((bundle) => issueData(bundle, bundles));
-  const site = siteData(issues, bundles[bundles.length - 1]?.siteLocale);
+  const issues = bundles.map((bundle) => withWording(bundle.wording, () => issueData(bundle, bundles)));
+  const last = bundles[bundles.length - 1];
+  const site = withWording(last?.wording, () => siteData(issues, last?.siteLocale));
   const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
     configPath: join(projectRoot, '.eleventy.js'),
     quietMode: true,

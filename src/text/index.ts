@@ -2,6 +2,7 @@
  * User-facing wording lives in one catalogue per locale (content/locales/<locale>.json) so it can
  * be reviewed and translated in one place. This module imports nothing from src/: every stage may use it.
  */
+import { AsyncLocalStorage } from 'node:async_hooks';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type english from '../../content/locales/en.json';
@@ -21,16 +22,59 @@ export const configuredKey = (key: string) => key as MessageKey;
 /** The catalogue key of a configured status band's name. */
 export const bandKey = (band: string) => configuredKey(`band.${band}`);
 
-const cache = new Map<string, Messages>();
+/**
+ * A bulletin folder's own wording (content/locales/<locale>.json in the folder), by locale: entries
+ * that replace or add to the tool's catalogue for that folder's issue (read and checked by
+ * ingest/wording.ts).
+ */
+export type WordingLayer = Readonly<Record<string, Readonly<Messages>>>;
 
-export function loadMessages(locale: string): Messages {
-  let messages = cache.get(locale);
+const NO_LAYER: WordingLayer = Object.freeze({});
+const toolCache = new Map<string, Messages>();
+const layeredCache = new WeakMap<WordingLayer, Map<string, Messages>>();
+/**
+ * The layer in force for the work `withWording` runs: every lookup below it (the model's words,
+ * the charts, the page data) sees the issue's own wording without each function taking it as an
+ * argument. Scoped to that work and its promises, never process-wide, so two issues (or two
+ * builds in one process) with different words cannot see each other's.
+ */
+const scope = new AsyncLocalStorage<WordingLayer>();
+
+/** Runs `work` (and everything it awaits) with `layer` over the tool's catalogue. */
+export function withWording<T>(layer: WordingLayer | undefined, work: () => T): T {
+  return scope.run(layer ?? NO_LAYER, work);
+}
+
+/** The tool's own catalogue of a locale, without any bulletin folder's wording. */
+export function toolMessages(locale: string): Messages {
+  let messages = toolCache.get(locale);
   if (!messages) {
     const url = new URL(`../../content/locales/${locale}.json`, import.meta.url);
     messages = JSON.parse(readFileSync(fileURLToPath(url), 'utf8')) as Messages;
-    cache.set(locale, messages);
+    toolCache.set(locale, messages);
   }
   return messages;
+}
+
+/** The tool's catalogue of a locale with `layer`'s entries for that locale over it. */
+export function layeredMessages(locale: string, layer: WordingLayer): Messages {
+  const own = layer[locale];
+  if (own === undefined || Object.keys(own).length === 0) return toolMessages(locale);
+  let byLocale = layeredCache.get(layer);
+  if (!byLocale) layeredCache.set(layer, (byLocale = new Map()));
+  let messages = byLocale.get(locale);
+  if (!messages) byLocale.set(locale, (messages = { ...toolMessages(locale), ...own }));
+  return messages;
+}
+
+/** The catalogue of a locale as the current work sees it: the tool's, with the issue's own wording over it (see withWording). */
+export function loadMessages(locale: string): Messages {
+  return layeredMessages(locale, scope.getStore() ?? NO_LAYER);
+}
+
+/** The `{name}` placeholders of a message, in order of first use. */
+export function placeholdersOf(template: string): string[] {
+  return [...new Set([...template.matchAll(/\{(\w+)\}/g)].map((match) => match[1] as string))];
 }
 
 /** Fills `{name}` placeholders; a missing key or placeholder is a programming error and throws. */
@@ -85,4 +129,4 @@ export function translator(locale: string): (key: MessageKey, params?: Record<st
 }
 
 /** The placeholder foreword `limnopress init` and `new-issue` write, in one language (ingest refuses it in an issue that is not a draft). */
-export const placeholderForeword = (locale: string) => `${formatMessage(loadMessages(locale), 'init.foreword')}\n`;
+export const placeholderForeword = (locale: string) => `${formatMessage(toolMessages(locale), 'init.foreword')}\n`;

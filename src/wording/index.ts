@@ -7,7 +7,7 @@
 import { statusColours } from '../common/statusColours.ts';
 import type { BulletinInputs, InputFile, Problem } from '../ingest/index.ts';
 import { calendarMonthOf, monthLabel } from '../common/months.ts';
-import { translator } from '../text/index.ts';
+import { translator, withWording } from '../text/index.ts';
 import { formatCalendarMonth, formatDate, formatMonth, formatPercent } from '../text/format.ts';
 import { issueFigures, type IssueFigures, type PreparedModel } from '../model/index.ts';
 import { methodTexts, type MethodId } from '../model/methods.ts';
@@ -99,13 +99,26 @@ export function buildModel(inputs: BulletinInputs, warnings: Problem[], toolVers
   return wordModel(inputs, issueFigures(inputs, options.prepared), warnings, toolVersion, options);
 }
 
-/** The bulletin model of one language from the issue's figures (shared by reference, not copied). */
+/**
+ * The bulletin model of one language from the issue's figures (shared by reference, not copied),
+ * in the tool's words with the issue folder's own wording over them (inputs.wording).
+ */
 export function wordModel(
   inputs: BulletinInputs,
   figures: IssueFigures,
   warnings: Problem[],
   toolVersion: string,
   options: WordingOptions = {},
+): BulletinModel {
+  return withWording(inputs.wording, () => wordModelInScope(inputs, figures, warnings, toolVersion, options));
+}
+
+function wordModelInScope(
+  inputs: BulletinInputs,
+  figures: IssueFigures,
+  warnings: Problem[],
+  toolVersion: string,
+  options: WordingOptions,
 ): BulletinModel {
   const { config, bulletinMonth } = inputs;
   const locale = options.locale ?? config.locales[0] ?? 'en';

@@ -42,6 +42,7 @@ function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
     subRegions: [],
     files: [],
     content: {},
+    wording: {},
     sources: {},
   };
 }
