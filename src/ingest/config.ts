@@ -272,6 +272,22 @@ export const configSchema = z.strictObject({
         .describe('columns an export carries that no table uses, skipped in every table (CSV or Parquet) without a warning'),
     })
     .default({ ignoreColumns: [] }),
+  wording: z
+    .strictObject({
+      waterBodies: z
+        .enum(['auto', 'lakes', 'reservoirs', 'lakes-and-reservoirs', 'water-bodies'])
+        .default('auto')
+        .describe(
+          'what the key messages call the region\'s water bodies; `auto` reads the inventory\'s `kind` column: all `reservoir` gives "reservoirs", all `lake` "lakes", only those two "lakes and reservoirs", any other kind "water bodies"',
+        ),
+      healthAuthority: label(200)
+        .optional()
+        .describe('name of the local health authority, given in the algae and low-water cautions (the same name in every language)'),
+      waterAuthority: label(200)
+        .optional()
+        .describe('name of the local water authority or supplier, given in the low-water caution (the same name in every language)'),
+    })
+    .default({ waterBodies: 'auto' }),
   site: z.strictObject({
     baseUrl: baseUrl.describe(
       'where the site will be published: http or https, no user name, query or fragment (a trailing slash is added)',

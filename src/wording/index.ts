@@ -16,6 +16,7 @@ import { wordSurface, type SurfaceWater } from '../model/surfaceWater.ts';
 import { usualFrom } from '../model/deficit.ts';
 import { keyMessages, type KeyMessage } from './keyMessages.ts';
 import { warningText, type ShownWarning } from './warnings.ts';
+import { cautionTexts, waterBodiesKey, waterBodiesWord } from './region.ts';
 
 export type { KeyMessage } from './keyMessages.ts';
 export type { Status, GroupMonth, SurfaceWater, GroupSurface, SizeClassSurface } from '../model/index.ts';
@@ -76,6 +77,8 @@ export interface BulletinModel {
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
   headline: string;
   notices: Notice[];
+  /** The health cautions in this language, naming the configured authorities (wording in bulletin.json). */
+  cautions: { algae: string; lowWater: string };
   methods: Record<MethodId, string>;
   /** The input check's warnings, worded in the model's language where the catalogue can. */
   warnings: ShownWarning[];
@@ -127,7 +130,9 @@ function wordModelInScope(
 
   const surface = wordSurface(figures.surface, locale);
   const waterQuality = wordQuality(figures.quality, config, locale);
+  const cautions = cautionTexts(config.wording, locale, t);
   const key = keyMessages({
+    waterBodies: t(waterBodiesKey(waterBodiesWord(config.wording.waterBodies, inputs.bodies))),
     locale,
     bulletinMonth,
     firstYear: Math.floor(figures.firstMonth / 12),
@@ -158,8 +163,8 @@ function wordModelInScope(
   if (baselineYears < 10) notices.push({ kind: 'caveat', text: t('caveat.shortBaseline', { years: baselineYears, ...baselineParams }) });
   notices.push({ kind: 'caveat', text: t('caveat.optical', { minShare: pct(100 * config.coverage.minObservedShare) }) });
   if (waterQuality) notices.push({ kind: 'caveat', text: t('caveat.estimate') });
-  if (region.kind === 'stated' && region.percentOfBaseline < 90) notices.push({ kind: 'caution', text: t('caution.lowWater') });
-  if (waterQuality) notices.push({ kind: 'caution', text: t('caution.algae') });
+  if (region.kind === 'stated' && region.percentOfBaseline < 90) notices.push({ kind: 'caution', text: cautions.lowWater });
+  if (waterQuality) notices.push({ kind: 'caution', text: cautions.algae });
 
   return {
     meta: {
@@ -213,6 +218,7 @@ function wordModelInScope(
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,
+    cautions,
     methods: methodTexts(locale),
     warnings: warnings.map((problem) => warningText(problem, locale)),
     inputs: inputs.files,

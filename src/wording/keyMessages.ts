@@ -49,6 +49,8 @@ export interface KeyMessage {
 
 export interface KeyMessageInputs {
   locale: string;
+  /** What the region's water bodies are called ("reservoirs"; wording.waterBodies, src/wording/region.ts). */
+  waterBodies: string;
   bulletinMonth: number;
   firstYear: number;
   surface: SurfaceWater;
@@ -77,7 +79,13 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
     messages.push({
       id: 'region',
       text: [
-        t('key.region', { month, percentOfBaseline: pct(region.percentOfBaseline), calendarMonth, band: t(bandKey(region.bandKey)) }),
+        t('key.region', {
+          month,
+          waterBodies: input.waterBodies,
+          percentOfBaseline: pct(region.percentOfBaseline),
+          calendarMonth,
+          band: t(bandKey(region.bandKey)),
+        }),
         ...rangeSentences(region, input.statusBands, pct, t),
       ].join(' '),
       figure: { value: region.percentOfBaseline, unit: '% of baseline median', method: 'status' },

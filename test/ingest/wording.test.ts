@@ -66,16 +66,16 @@ describe("a bulletin folder's own wording", () => {
   });
 
   it('an unknown key is refused at its own line with the nearest known key', async () => {
-    const text = `{\n  "band.near": "about as usual",\n\n  "surface.headlin": "x"\n}\n`;
+    const text = `{\n  "band.near": "about as usual",\n\n  "key.regio": "x"\n}\n`;
     const { problems } = await loadBulletin(folderWith(() => {}, { en: text }));
     const [problem] = problems.errors;
     expect([problem?.code, problem?.file, problem?.line, problem?.column]).toEqual([
       'wording-invalid',
       'content/locales/en.json',
       4,
-      'surface.headlin',
+      'key.regio',
     ]);
-    expect(problem?.expected).toBe('did you mean "surface.headline"?');
+    expect(problem?.expected).toBe('did you mean "key.region"?');
   });
 
   it('a placeholder the tool does not fill is refused; one left out is a warning, since a figure would vanish', async () => {
@@ -83,10 +83,10 @@ describe("a bulletin folder's own wording", () => {
     expect(extra).toEqual(['error wording-invalid content/locales/en.json:2 site.home {publisher}']);
     const dropped = await problemsOf(
       folderWith(() => {}, {
-        en: JSON.stringify({ 'surface.headline': 'In {month}, the reservoirs held {percentOfBaseline}: {band}.' }, null, 2),
+        en: JSON.stringify({ 'key.region': 'In {month}, our {waterBodies} held {percentOfBaseline}: {band}.' }, null, 2),
       }),
     );
-    expect(dropped).toEqual(['warning wording-drops-placeholder content/locales/en.json:2 surface.headline {calendarMonth}']);
+    expect(dropped).toEqual(['warning wording-drops-placeholder content/locales/en.json:2 key.region {calendarMonth}']);
   });
 
   it('a message with forms by count reworded only in its base form is a warning naming the forms left', async () => {

@@ -90,6 +90,11 @@ describe('the example region', () => {
     expect(text).toContain('cannot see through cloud');
     expect(text).toContain('not a test for toxins');
     expect(text).toContain('local health authority');
+    // The example names its (invented) authorities in bulletin.json "wording"; the cautions name them and defer to them.
+    expect(model.cautions.algae).toContain('Your local health authority, Velduran Basin Health Office, decides');
+    expect(model.cautions.lowWater).toContain('authorities: Velduran Basin Health Office and Velduran Basin Water Office.');
+    // Lakes, reservoirs and ponds in the inventory: the key message says "water bodies", not "lakes and reservoirs".
+    expect(model.keyMessages.find((message) => message.id === 'region')?.text).toContain('the area covered by water in water bodies was');
     // The baseline is never called a normal: the word appears only to say that it is not one.
     const everything = [text, ...model.keyMessages.map((message) => message.text), ...Object.values(model.methods)].join('\n');
     expect(everything.replace(/not a long-term normal/g, '')).not.toMatch(/\bnormal\b/i);
