@@ -223,7 +223,7 @@ export function validationChart(model: BulletinModel, index: number): ChartDefin
   if (!entry || entry.pairs.length === 0) return null;
   const t = translator(model.meta.locale);
   const name = nameOf(model, entry);
-  const unit = entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU';
+  const unit = entry.unit;
   const values = entry.pairs.map((pair) => ({
     field: round(pair.field),
     satellite: round(pair.satellite),

@@ -200,6 +200,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     : [];
   const rainfall = paths.rainfall ? await readRainfall(at(paths.rainfall), label(paths.rainfall), regionIds, context) : [];
   const field = paths.field ? await readField(at(paths.field), label(paths.field), bodies, context) : [];
+  if (paths.field && quality) checkTurbidityUnits(field, quality, label(paths.field), problems);
   const storage = paths.storageCurves ? await readStorageCurves(at(paths.storageCurves), label(paths.storageCurves), bodies, context) : [];
   const storageFits = paths.storageFits
     ? await readStorageFits(at(paths.storageFits), label(paths.storageFits), bodies, storage, context)
@@ -396,6 +397,29 @@ function checkAreasOnCurves(
       params: { count, low, high },
     });
   }
+}
+
+/**
+ * Field turbidity in another unit than the satellite table's (NTU against FNU, or the other way)
+ * cannot be compared with it: those samples are left out of the comparison, with one warning.
+ */
+function checkTurbidityUnits(field: FieldRecord[], quality: QualityTable, label: string, problems: ProblemList): void {
+  if (!quality.turbidityUnit) return;
+  const other = field.filter((record) => record.parameter === 'turbidity' && record.turbidityUnit !== quality.turbidityUnit);
+  const first = other[0];
+  if (!first) return;
+  problems.warning({
+    code: 'turbidity-units-differ',
+    file: label,
+    line: first.line,
+    column: 'unit',
+    value: first.turbidityUnit ?? '',
+    expected: quality.turbidityUnit
+      ? `turbidity in ${quality.turbidityUnit}, the unit of the satellite table`
+      : 'satellite turbidity to compare with',
+    message: `${other.length} field turbidity sample(s) are in another unit than the satellite turbidity (NTU and FNU are not interchangeable) and are left out of the comparison`,
+    params: { count: other.length },
+  });
 }
 
 function crossCheck(

@@ -47,6 +47,8 @@ export async function readQualityFast(path: string, bodies: WaterBody[], context
     parameter: joined.parameter as Int32Array,
     median,
     validPixels: Float32Array.from(validPixels),
+    // The fast path takes turbidity in FNU only (plainScan.ts); a table in NTU takes the general reader.
+    turbidityUnit: joined.parameter?.includes(QUALITY_PARAMETERS.indexOf('turbidity')) ? 'FNU' : null,
   };
   return hasRepeats(table, bodies.length, context.bulletinMonth, table.parameter) ? null : table;
 }

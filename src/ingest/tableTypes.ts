@@ -59,11 +59,18 @@ export interface StorageFit {
 
 export const QUALITY_PARAMETERS = ['chlorophyll_a', 'turbidity'] as const;
 export type QualityParameter = (typeof QUALITY_PARAMETERS)[number];
-/** Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). */
+/**
+ * Accepted spellings of each parameter's unit (1 mg/m³ of chlorophyll-a is 1 µg/L). Turbidity may
+ * be in FNU (formazin nephelometric units: infrared light, ISO 7027) or NTU (nephelometric
+ * turbidity units: white light, US EPA Method 180.1). They are not interchangeable, so the unit is
+ * kept, one table holds one of them, and values in different units are never compared.
+ */
 export const QUALITY_UNITS: Record<QualityParameter, string[]> = {
   chlorophyll_a: ['ug/L', 'µg/L', 'μg/L', 'mg/m3', 'mg/m³'],
-  turbidity: ['FNU'],
+  turbidity: ['FNU', 'NTU'],
 };
+export const TURBIDITY_UNITS = ['FNU', 'NTU'] as const;
+export type TurbidityUnit = (typeof TURBIDITY_UNITS)[number];
 
 export interface QualityTable {
   length: number;
@@ -82,6 +89,8 @@ export interface QualityTable {
    * and at national scale the column costs 4 bytes a row rather than 8.
    */
   validPixels: Float32Array;
+  /** The unit of the table's turbidity rows (one unit a table); null when it has none. */
+  turbidityUnit: TurbidityUnit | null;
 }
 
 export interface RainfallRecord {
@@ -99,6 +108,8 @@ export interface FieldRecord {
   month: number;
   parameter: QualityParameter;
   value: number;
+  /** For turbidity, the sample's unit: compared only with satellite values in the same unit. */
+  turbidityUnit?: TurbidityUnit;
   line: number;
 }
 

@@ -19,6 +19,7 @@ import {
   type AreaTable,
   type DistributionBin,
   type FieldRecord,
+  type TurbidityUnit,
   type QualityParameter,
   type QualityTable,
   type RainfallRecord,
@@ -258,6 +259,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
   const lines = new GrowableInt32();
   const duplicates: Array<{ body: number; month: number; line: number }> = [];
   const duplicateParameters: number[] = [];
+  let turbidityUnit: { unit: TurbidityUnit; line: number } | null = null;
   await readTable(
     path,
     label,
@@ -294,6 +296,18 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
           QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].join(' or '),
           `the unit does not match ${name}`,
         );
+      } else if (name === 'turbidity' && unit !== '') {
+        // One turbidity unit a table: NTU and FNU are measured with different light and are not interchangeable.
+        if (turbidityUnit === null) turbidityUnit = { unit: unit as TurbidityUnit, line };
+        else if (unit !== turbidityUnit.unit)
+          cells.fail(
+            line,
+            'unit',
+            unit,
+            'unit-mixed',
+            `${turbidityUnit.unit}, the turbidity unit of this table since line ${turbidityUnit.line}`,
+            'the table mixes NTU and FNU turbidity, which are not interchangeable: give every row in one unit (the one the retrieval was calibrated in)',
+          );
       }
       const present = found.filter((value) => !Number.isNaN(value));
       if (present.some((value, k) => k > 0 && value < (present[k - 1] as number))) {
@@ -334,6 +348,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     parameter: parameter.done(),
     median: medians.done(),
     validPixels: Float32Array.from(pixels.done()),
+    turbidityUnit: (turbidityUnit as { unit: TurbidityUnit } | null)?.unit ?? null,
   };
   reportDuplicates(
     duplicates,
@@ -429,7 +444,16 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
       cells.fail(line, 'body_id', bodyId, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
       return;
     }
-    records.push({ bodyId, body, day, month, parameter, value, line });
+    records.push({
+      bodyId,
+      body,
+      day,
+      month,
+      parameter,
+      value,
+      line,
+      ...(parameter === 'turbidity' ? { turbidityUnit: unit as TurbidityUnit } : {}),
+    });
   });
   later.report();
   return records;

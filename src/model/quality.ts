@@ -226,7 +226,8 @@ function parameterSummary(
 
   return {
     parameter,
-    unit: parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU',
+    // Turbidity keeps the unit of the table (NTU or FNU: not interchangeable, so never converted).
+    unit: parameter === 'chlorophyll_a' ? 'µg/L' : (inputs.quality?.turbidityUnit ?? 'FNU'),
     monthly,
     distribution,
     bySizeClass,

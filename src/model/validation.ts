@@ -14,6 +14,8 @@ import { parameterMonths } from './quality.ts';
 
 export interface ValidationSummary {
   parameter: QualityParameter;
+  /** The unit both sides are in (µg/L; for turbidity the satellite table's NTU or FNU). */
+  unit: string;
   windowDays: number;
   pairs: Array<{ bodyId: string; date: string; field: number; satellite: number; satelliteMonth: number }>;
   /** Null where a measure is undefined (too few pairs, no spread): null is the model's only "no value". */
@@ -35,7 +37,11 @@ export function validation(inputs: BulletinInputs): ValidationSummary[] {
   if (!inputs.quality || inputs.field.length === 0) return [];
   const windowDays = inputs.config.validation.qualityWindowDays;
   return QUALITY_PARAMETERS.flatMap((parameter) => {
-    const samples = inputs.field.filter((record) => record.parameter === parameter);
+    // Turbidity in NTU is never compared with turbidity in FNU (ingest warns of the samples left out).
+    const satelliteUnit = inputs.quality?.turbidityUnit ?? null;
+    const samples = inputs.field.filter(
+      (record) => record.parameter === parameter && (parameter !== 'turbidity' || record.turbidityUnit === satelliteUnit),
+    );
     if (samples.length === 0) return [];
     const data = parameterMonths(inputs, parameter);
     const valueAt = (body: number, month: number) => {
@@ -63,6 +69,7 @@ export function validation(inputs: BulletinInputs): ValidationSummary[] {
     return [
       {
         parameter,
+        unit: parameter === 'chlorophyll_a' ? 'µg/L' : (satelliteUnit as string),
         windowDays,
         pairs,
         agreement: nullable(

@@ -323,7 +323,10 @@ function trendTables(model: BulletinModel, f: Formatters): TableView[] {
  * The water-quality page: each parameter's size classes by parameter, then the trophic classes,
  * the WHO levels and the seasonal trends; null without quality data.
  */
-function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Record<string, TableView>; others: TableView[] } | null {
+function qualityTables(
+  model: BulletinModel,
+  f: Formatters,
+): { byParameter: Record<string, TableView>; others: TableView[]; turbidityUnitNote: string } | null {
   const { t, pct, num, signed, p } = f;
   const quality = model.quality;
   const qualityTables: TableView[] = [];
@@ -399,7 +402,10 @@ function qualityTables(model: BulletinModel, f: Formatters): { byParameter: Reco
     }
   }
   const byParameter = Object.fromEntries(quality.parameters.map((parameter, k) => [parameter.parameter, qualityTables[k] as TableView]));
-  return { byParameter, others: qualityTables.slice(quality.parameters.length) };
+  // NTU and FNU are not interchangeable: the page says which one the figures are in.
+  const turbidity = quality.parameters.find((parameter) => parameter.parameter === 'turbidity');
+  const turbidityUnitNote = turbidity ? t('view.quality.turbidityUnit', { unit: turbidity.unit }) : '';
+  return { byParameter, others: qualityTables.slice(quality.parameters.length), turbidityUnitNote };
 }
 
 /** The field checks of the water-quality page. */
@@ -424,7 +430,7 @@ function validationTables(model: BulletinModel, f: Formatters): TableView[] {
             t('view.validation.r2log'),
           ],
           rows: model.validation.map((entry) => [
-            `${t(`parameter.${entry.parameter}`)} (${entry.parameter === 'chlorophyll_a' ? 'µg/L' : 'FNU'})`,
+            `${t(`parameter.${entry.parameter}`)} (${entry.unit})`,
             String(entry.agreement.n),
             signed(entry.agreement.bias, 2),
             num(entry.agreement.meanAbsoluteError, 2),
