@@ -2,7 +2,7 @@
 import { parseArgs } from 'node:util';
 import { build } from '../build.ts';
 import { barProgress, lineProgress, silentProgress } from '../progress.ts';
-import { formatProblem } from '../ingest/index.ts';
+import { foldAcrossIssues, formatFolded } from '../ingest/problems.ts';
 import { HELP, UsageError } from './usage.ts';
 
 export async function runBuild(args: string[]): Promise<number> {
@@ -34,7 +34,8 @@ export async function runBuild(args: string[]): Promise<number> {
     handleSignals: true,
     ...(values.force ? { force: true } : {}),
   });
-  for (const warning of result.warnings) if (!values.quiet) process.stderr.write(`${formatProblem(warning)}\n`);
+  // A warning found in the same place of several issues (a column every export carries) is named once.
+  if (!values.quiet) for (const entry of foldAcrossIssues(result.warnings)) process.stderr.write(`${formatFolded(entry)}\n`);
   if (!values.quiet) process.stdout.write(`Bulletin written to ${result.outDir}/index.html\n`);
   return 0;
 }

@@ -270,8 +270,14 @@ export const configSchema = z.strictObject({
         .max(200)
         .default([])
         .describe('columns an export carries that no table uses, skipped in every table (CSV or Parquet) without a warning'),
+      columnWarningsOnDataPage: z
+        .boolean()
+        .default(false)
+        .describe(
+          'list warnings about unknown input columns on the data page too; by default they go to `check` and the build log only, since readers cannot act on them',
+        ),
     })
-    .default({ ignoreColumns: [] }),
+    .default({ ignoreColumns: [], columnWarningsOnDataPage: false }),
   wording: z
     .strictObject({
       waterBodies: z

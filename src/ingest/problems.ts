@@ -137,6 +137,37 @@ export function formatProblem(problem: Problem): string {
   return `${problem.severity} ${where}${column}: ${problem.message}${found}`;
 }
 
+/** The folder of an archived issue a problem's file lies in (`archive/2026-10`), or '' for the current issue. */
+const ISSUE_PREFIX = /^(archive\/[^/]+)\//;
+
+/**
+ * The same problem at the same place of several issues' inputs (an archived issue keeps a copy of
+ * a table with the same extra column) folded into one entry: the problem as the latest issue has it
+ * (or the first found), with the issue folders it occurs in ('' for the current issue), in order.
+ */
+export function foldAcrossIssues(problems: Problem[]): Array<{ problem: Problem; issues: string[] }> {
+  const folded = new Map<string, { problem: Problem; issues: string[] }>();
+  for (const problem of problems) {
+    const issue = ISSUE_PREFIX.exec(problem.file)?.[1] ?? '';
+    const file = problem.file.slice(issue === '' ? 0 : issue.length + 1);
+    const key = [problem.severity, problem.code, file, problem.line, problem.column, problem.value, problem.message].join('\u0000');
+    const entry = folded.get(key);
+    if (!entry) folded.set(key, { problem, issues: [issue] });
+    else {
+      entry.issues.push(issue);
+      if (issue === '') entry.problem = problem;
+    }
+  }
+  return [...folded.values()];
+}
+
+/** One line for a problem found in one or more issues: formatProblem, and where else it occurs. */
+export function formatFolded({ problem, issues }: { problem: Problem; issues: string[] }): string {
+  if (issues.length < 2) return formatProblem(problem);
+  const names = issues.map((issue) => (issue === '' ? 'the current issue' : issue));
+  return `${formatProblem(problem)} (the same in ${issues.length} issues: ${names.join(', ')})`;
+}
+
 /** Thrown by the build when the inputs hold errors; carries the whole list. */
 export class InputError extends Error {
   constructor(readonly problems: Problem[]) {

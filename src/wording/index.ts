@@ -85,6 +85,9 @@ export interface BulletinModel {
   inputs: InputFile[];
 }
 
+/** Warnings about the inputs' columns: on the data page only with tables.columnWarningsOnDataPage. */
+const COLUMN_WARNINGS: ReadonlySet<string> = new Set(['column-unknown']);
+
 export interface WordingOptions {
   /** Site path of the issue; by default /issues/YYYY-MM/. Earlier revisions live below it. */
   issuePath?: string;
@@ -220,7 +223,9 @@ function wordModelInScope(
     notices,
     cautions,
     methods: methodTexts(locale),
-    warnings: warnings.map((problem) => warningText(problem, locale)),
+    warnings: warnings
+      .filter((problem) => config.tables.columnWarningsOnDataPage || !COLUMN_WARNINGS.has(problem.code))
+      .map((problem) => warningText(problem, locale)),
     inputs: inputs.files,
   };
 }
