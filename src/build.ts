@@ -11,6 +11,7 @@ import { loadIssues } from './ingest/issues.ts';
 import { issueFigures, prepareModel, trendSeriesCount } from './model/index.ts';
 import { withWording } from './text/index.ts';
 import { wordModel, type BulletinModel } from './wording/index.ts';
+import { printedEarlier } from './wording/revisions.ts';
 import { prefixOf, renderSite, type IssueBundle } from './render/index.ts';
 import { openTarget, pauseAt, PublishError, systemReason, type PausePoint, type Target } from './site/publish.ts';
 import { closeSharedPool, sharedPool } from './parallel/pool.ts';
@@ -159,6 +160,12 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
       loaded[k] = { inputs: { ...inputs, area: EMPTY_AREA, quality: null }, warnings: own };
     }
   });
+  // What earlier issues printed with another value: known only once every issue is worded, and needed by the charts' tables.
+  for (const { model } of localized)
+    model.revised = printedEarlier(
+      model,
+      localized.map((other) => other.model),
+    );
   // The worker threads have done their part (reading, trend tests): their memory goes back now.
   await closeSharedPool();
   const modelSeconds = lap('model');

@@ -57,10 +57,33 @@ function regionBand(model: BulletinModel) {
   };
 }
 
+/**
+ * A column for a chart's table saying which months an earlier issue printed with another value
+ * ("revised from 55.0 % in the September 2026 issue"), empty for the others; none at all when
+ * nothing was revised, so tables without revisions keep their shape.
+ */
+function revisedColumn(model: BulletinModel): { columns: string[]; cell: (month: string) => string[] } {
+  if (model.revised.length === 0) return { columns: [], cell: () => [] };
+  const t = translator(model.meta.locale);
+  const byMonth = new Map(model.revised.map((entry) => [entry.month, entry]));
+  return {
+    columns: [t('chart.revised.column')],
+    cell: (month) => {
+      const entry = byMonth.get(month);
+      return [
+        entry
+          ? t('chart.revised.from', { printed: formatPercent(model.meta.locale, entry.printedPercent, 1), issue: entry.issueMonthName })
+          : '',
+      ];
+    },
+  };
+}
+
 export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
   const t = translator(model.meta.locale);
   const series = model.surfaceWater.region.series;
   const band = regionBand(model);
+  const revised = revisedColumn(model);
   const range = band.range;
   const bulletinYear = Number(model.meta.month.slice(0, 4));
   const values = series.map((entry) => ({
@@ -96,8 +119,14 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     spec,
     table: {
       caption: t('chart.regional.caption'),
-      columns: [t('chart.month'), t('view.water'), t('chart.coverage'), ...band.columns],
-      rows: values.map((row) => [row.month, row.filling ?? t('chart.notStated'), row.coverage ?? 0, ...band.cells(row)]),
+      columns: [t('chart.month'), t('view.water'), t('chart.coverage'), ...band.columns, ...revised.columns],
+      rows: values.map((row) => [
+        row.month,
+        row.filling ?? t('chart.notStated'),
+        row.coverage ?? 0,
+        ...band.cells(row),
+        ...revised.cell(row.month),
+      ]),
     },
   };
 }
@@ -114,6 +143,7 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
   const t = translator(model.meta.locale);
   const series = model.surfaceWater.region.series.slice(-RECENT_MONTHS);
   const band = regionBand(model);
+  const revised = revisedColumn(model);
   const range = band.range;
   const last = series[series.length - 1]?.month ?? null;
   const values = series.map((entry) => {
@@ -164,7 +194,15 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
     spec,
     table: {
       caption: t('chart.recent.caption'),
-      columns: [t('chart.month'), t('view.water'), t('chart.recent.low'), t('chart.recent.high'), t('view.estimated'), ...band.columns],
+      columns: [
+        t('chart.month'),
+        t('view.water'),
+        t('chart.recent.low'),
+        t('chart.recent.high'),
+        t('view.estimated'),
+        ...band.columns,
+        ...revised.columns,
+      ],
       rows: values.map((row) => [
         row.month,
         row.filling ?? t('chart.notStated'),
@@ -172,6 +210,7 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
         cell(row.rangeHigh),
         row.estimated ?? 0,
         ...band.cells(row),
+        ...revised.cell(row.month),
       ]),
     },
   };

@@ -85,10 +85,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     sparklines: charts.sparklines,
     view: views(model),
     changes: changesSince(model, position > 0 ? (current[position - 1]?.model ?? null) : null),
-    revisedFigures: revisedFigures(
-      model,
-      sameLanguage.map((other) => other.model),
-    ),
+    revisedFigures: revisedFigures(model),
     content: renderMarkdown(bundle.content, locale, bundle.firstLocale ?? locale),
     cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
     pageUrl: siteUrl(model.meta.baseUrl, issue),

@@ -660,41 +660,20 @@ export function bodyView(model: BulletinModel, index: number) {
 
 export { slugOf } from '../text/slug.ts';
 
-/**
- * Figures this issue shows differently from an earlier issue that printed them: for each earlier
- * issue of the same language (its last revision), the regional area covered by water it printed
- * for its own month against the value this issue gives that month now. Values that print the same
- * to one decimal (the printed precision) are not revisions. Null when nothing was revised.
- */
-export function revisedFigures(model: BulletinModel, earlier: BulletinModel[]): TableView | null {
-  const locale = model.meta.locale;
-  const { t, pct } = formatters(locale);
-  const latest = new Map<string, BulletinModel>();
-  for (const other of earlier) {
-    if (other.meta.locale !== locale || other.meta.month >= model.meta.month) continue;
-    const seen = latest.get(other.meta.month);
-    if (!seen || other.meta.revision > seen.meta.revision) latest.set(other.meta.month, other);
-  }
-  const rows: string[][] = [];
-  for (const other of [...latest.values()].sort((a, b) => a.meta.month.localeCompare(b.meta.month))) {
-    const printed = other.surfaceWater.region.status;
-    if (printed.kind === 'low-coverage') continue;
-    const month = parseMonth(other.meta.month) as number;
-    const now = model.surfaceWater.region.series.find((row) => row.month === month)?.fillingPercent ?? null;
-    if (now === null || Math.round(now * 10) === Math.round(printed.fillingPercent * 10)) continue;
-    rows.push([
-      other.meta.monthName,
-      t('view.revised.issue', { month: other.meta.monthName, revision: other.meta.revision }),
-      pct(printed.fillingPercent, 1),
-      pct(now, 1),
-    ]);
-  }
-  if (rows.length === 0) return null;
+/** The months earlier issues printed with another value (model.revised), as the data page's table; null when none. */
+export function revisedFigures(model: BulletinModel): TableView | null {
+  const { t, pct } = formatters(model.meta.locale);
+  if (model.revised.length === 0) return null;
   return {
     id: 'revised',
     caption: t('view.revised.caption'),
     columns: [t('chart.month'), t('view.revised.printedIn'), t('view.revised.printed'), t('view.revised.now')],
-    rows,
+    rows: model.revised.map((entry) => [
+      entry.issueMonthName,
+      t('view.revised.issue', { month: entry.issueMonthName, revision: entry.revision }),
+      pct(entry.printedPercent, 1),
+      pct(entry.nowPercent, 1),
+    ]),
     note: t('view.revised.note'),
   };
 }

@@ -26,6 +26,19 @@ export interface Notice {
   text: string;
 }
 
+/** A month an earlier issue printed with another value than this issue gives (wording/revisions.ts). */
+export interface PrintedEarlier {
+  /** The month the figure is for, `YYYY-MM`. */
+  month: string;
+  /** Share of the reference area covered by water, in percent, as the earlier issue printed it. */
+  printedPercent: number;
+  /** The same figure in this issue. */
+  nowPercent: number;
+  /** The earlier issue (the issue of that month): its month's name and its last revision. */
+  issueMonthName: string;
+  revision: number;
+}
+
 export interface BulletinModel {
   meta: {
     title: string;
@@ -83,6 +96,8 @@ export interface BulletinModel {
   /** The input check's warnings, worded in the model's language where the catalogue can. */
   warnings: ShownWarning[];
   inputs: InputFile[];
+  /** Months an earlier issue printed with another value (wording/revisions.ts); set by the build once every issue is worded. */
+  revised: PrintedEarlier[];
 }
 
 /** Warnings about the inputs' columns: on the data page only with tables.columnWarningsOnDataPage. */
@@ -227,5 +242,6 @@ function wordModelInScope(
       .filter((problem) => config.tables.columnWarningsOnDataPage || !COLUMN_WARNINGS.has(problem.code))
       .map((problem) => warningText(problem, locale)),
     inputs: inputs.files,
+    revised: [],
   };
 }

@@ -10,6 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { loadBulletin } from '../../src/ingest/index.ts';
 import { buildModel, type BulletinModel } from '../../src/wording/index.ts';
 import { bodyView, changesSince, paginate, revisedFigures, subRegionView, views, type TableView } from '../../src/render/views.ts';
+import { printedEarlier } from '../../src/wording/revisions.ts';
+import { recentMonthsChart, regionalSeriesChart } from '../../src/charts/surfaceWaterCharts.ts';
 import { prefixOf, siteFiles, siteLocales, siteUrl } from '../../src/render/siteFiles.ts';
 import { translator } from '../../src/text/index.ts';
 import { MINI_CONFIG, miniFiles, writeMini } from '../support/miniBulletin.ts';
@@ -156,14 +158,36 @@ describe('revised figures', () => {
       kind: 'stated',
       fillingPercent: may.fillingPercent - 3,
     } as typeof earlier.surfaceWater.region.status;
-    const table = revisedFigures(current, [earlier]);
+    const revised = printedEarlier(current, [earlier]);
+    expect(revised).toEqual([
+      {
+        month: '2020-05',
+        printedPercent: may.fillingPercent - 3,
+        nowPercent: may.fillingPercent,
+        issueMonthName: 'May 2020',
+        revision: 1,
+      },
+    ]);
+    const table = revisedFigures({ ...current, revised });
     expect(table?.rows).toHaveLength(1);
     expect(table?.rows[0]?.[0]).toBe('May 2020');
+    expect(revisedFigures(current)).toBeNull();
+    // The charts' tables say it beside the month, in a column only tables with revisions carry.
+    for (const chart of [regionalSeriesChart, recentMonthsChart]) {
+      const { columns, rows } = chart({ ...current, revised }).table;
+      expect(columns[columns.length - 1]).toBe('Printed earlier');
+      const may = rows.find((row) => row[0] === '2020-05');
+      expect(may?.[may.length - 1]).toBe(
+        `revised from ${new Intl.NumberFormat('en', { style: 'percent', minimumFractionDigits: 1, maximumFractionDigits: 1 }).format(revised[0]!.printedPercent / 100)} in the May 2020 issue`,
+      );
+      expect(rows.filter((row) => row[row.length - 1] !== '')).toHaveLength(1);
+      expect(chart(current).table.columns).not.toContain('Printed earlier');
+    }
     // The same value to one decimal is no revision.
     (earlier.surfaceWater.region.status as { fillingPercent: number }).fillingPercent = may.fillingPercent + 0.01;
-    expect(revisedFigures(current, [earlier])).toBeNull();
+    expect(printedEarlier(current, [earlier])).toEqual([]);
     // A later issue is never compared with.
-    expect(revisedFigures(earlier, [current])).toBeNull();
+    expect(printedEarlier(earlier, [current])).toEqual([]);
   });
 });
 
