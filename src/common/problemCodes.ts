@@ -16,6 +16,7 @@ export const PROBLEM_CODES = {
   'column-missing': 'a required column is missing',
   'column-unknown': 'a column the table does not use',
   'config-band-words': 'a configured status band has no words in a configured language (tool catalogue or the folder’s content/locales/)',
+  'config-accent-contrast': 'the configured accent colour is below WCAG 2.2 AA contrast against the page or the header',
   'config-baseline-order': 'the baseline ends before it starts',
   'config-invalid': 'a setting of bulletin.json has the wrong type or value',
   'config-missing': 'there is no bulletin.json',

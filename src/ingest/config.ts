@@ -11,6 +11,13 @@ import { isolateBidi } from '../text/bidi.ts';
 /** The languages with a catalogue in content/locales/. */
 import { LOCALE_CODES } from '../text/locales.ts';
 import { paletteShortfalls, statusColours } from '../common/statusColours.ts';
+import { contrastRatio } from '../common/colourVision.ts';
+
+/**
+ * What an accent colour is read against (templates/assets/site.css): the page (--paper) and the
+ * header (--tint). The current menu item is white text (--accent-ink) on the accent: the page's pair.
+ */
+export const ACCENT_BACKGROUNDS = { page: '#ffffff', header: '#eaf4f4' } as const;
 
 /** The configurable languages (src/text/locales.ts). */
 export const LOCALES = LOCALE_CODES;
@@ -312,6 +319,13 @@ export const configSchema = z.strictObject({
       .min(1)
       .default(500)
       .describe('most water bodies listed on one page; a longer list gets numbered pages'),
+    accentColour: z
+      .string()
+      .regex(/^#[0-9a-fA-F]{6}$/)
+      .optional()
+      .describe(
+        "the agency's accent colour, `#rrggbb`, for links, the site title and the current menu item (the tool's teal by default); refused below WCAG 2.2 AA contrast (4.5:1) against the page, the header and the white text on it",
+      ),
   }),
   locales: z
     .array(z.enum(LOCALES))
@@ -537,6 +551,22 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       expected: 'the first band with fromPercent null, then strictly rising bounds',
       message: 'status bands must cover all values in rising order',
     });
+  }
+  // An accent colour is text on the page and on the header, and the background of white text (templates/assets/site.css).
+  const accent = config.site.accentColour;
+  if (accent !== undefined) {
+    const against = Object.entries(ACCENT_BACKGROUNDS).map(([name, colour]) => ({ name, ratio: contrastRatio(accent, colour) }));
+    const worst = against.reduce((low, entry) => (entry.ratio < low.ratio ? entry : low));
+    if (worst.ratio < 4.5)
+      problems.error({
+        code: 'config-accent-contrast',
+        file: label,
+        line: lineOfPath(text, ['site', 'accentColour']),
+        column: 'site.accentColour',
+        value: accent,
+        expected: `a colour with at least 4.5:1 contrast against ${against.map((entry) => `the ${entry.name} (${entry.ratio.toFixed(2)}:1)`).join(', ')}`,
+        message: `the accent colour is too light or too dark to read: ${worst.ratio.toFixed(2)}:1 against the ${worst.name}, below WCAG 2.2 AA (4.5:1)`,
+      });
   }
   // Configured colours must stay apart for every reader (common/statusColours.ts): a warning, since the agency may have its reasons.
   if (bands.some((band) => band.colour !== undefined)) {

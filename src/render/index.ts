@@ -3,7 +3,7 @@
  * pages inside a given folder; downloads, feeds, the sitemap and the manifests are written beside
  * them. Issue pages come from pagination over the issues, so each issue keeps its own path.
  */
-import { mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { copyHashed, HashCache } from '../common/files.ts';
 import { dirname, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -20,6 +20,8 @@ export { prefixOf, type SiteFile } from './siteFiles.ts';
 import { bodyView, changesSince, revisedFigures, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
+/** The tool's accent colour as templates/assets/site.css declares it; site.accentColour replaces it. */
+export const TOOL_ACCENT = '--accent: #0b5d6e;';
 
 export interface IssueBundle {
   model: BulletinModel;
@@ -233,6 +235,16 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
   // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
   eleventy.disableLogger();
   await eleventy.write();
+  // The agency's accent colour, from the current issue: set in the one stylesheet (the CSP allows no inline style).
+  const accent = bundles[bundles.length - 1]?.model.meta.accentColour ?? null;
+  if (accent !== null) {
+    const stylesheet = join(outDir, 'assets', 'site.css');
+    const css = readFileSync(stylesheet, 'utf8');
+    if (!css.includes(TOOL_ACCENT)) throw new Error(`templates/assets/site.css no longer sets ${TOOL_ACCENT}`);
+    // A new file in the staging folder, never a write through a link to the tool's own template.
+    rmSync(stylesheet);
+    writeFileSync(stylesheet, css.replace(TOOL_ACCENT, `--accent: ${accent};`));
+  }
   const known = copyInputs(bundles, outDir, hashes);
   for (const file of siteFiles(
     bundles.map((bundle) => bundle.model),

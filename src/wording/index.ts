@@ -73,6 +73,8 @@ export interface BulletinModel {
     usualFromPercent: number;
     /** site.bodiesPerListPage. */
     bodiesPerListPage: number;
+    /** site.accentColour, or null for the tool's own. */
+    accentColour: string | null;
   };
   bodies: IssueFigures['bodies'];
   surfaceWater: SurfaceWater;
@@ -219,6 +221,7 @@ function wordModelInScope(
       statusColours: statusColours(config.statusBands),
       usualFromPercent: usualFrom(config.statusBands),
       bodiesPerListPage: config.site.bodiesPerListPage,
+      accentColour: config.site.accentColour?.toLowerCase() ?? null,
     },
     // The order of the JSON fields as it has always been, figures and words interleaved.
     bodies: figures.bodies,

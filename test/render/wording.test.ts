@@ -9,6 +9,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { build } from '../../src/build.ts';
 import { toolMessages } from '../../src/text/index.ts';
+import { TOOL_ACCENT } from '../../src/render/index.ts';
+import { createHash } from 'node:crypto';
 import { MINI_CONFIG, writeMini } from '../support/miniBulletin.ts';
 
 describe("a bulletin folder's own wording, built", () => {
@@ -19,6 +21,8 @@ describe("a bulletin folder's own wording, built", () => {
     config.statusBands[1] = { key: 'near', fromPercent: 150 };
     config.statusBands[2] = { key: 'higher', fromPercent: 200 };
     config.locales = ['en', 'fr'];
+    // The agency's accent colour goes into the one stylesheet (tested here to share this build).
+    (config.site as Record<string, unknown>).accentColour = '#7A1F5C';
     const folder = writeMini({ 'bulletin.json': JSON.stringify(config, null, 2) });
     mkdirSync(join(folder, 'content', 'locales'), { recursive: true });
     const words = {
@@ -53,5 +57,13 @@ describe("a bulletin folder's own wording, built", () => {
     expect(read('issues', '2020-06', 'charts', 'bodies-map.vl.json')).toContain('below <b>our</b> usual');
     expect(read('fr', 'issues', '2020-06', 'charts', 'bodies-map.vl.json')).toContain('sous <b>notre</b> habitude');
     expect(toolMessages('en')['site.home']).toBe('Home');
+    // The stylesheet carries the accent, the manifest its new hash, and the tool's template keeps its own.
+    const css = read('assets', 'site.css');
+    expect(css).toContain('--accent: #7a1f5c;');
+    expect(css).not.toContain(TOOL_ACCENT);
+    const manifest = JSON.parse(read('manifest.json')) as { outputs: Array<{ path: string; sha256: string }> };
+    const listed = manifest.outputs.find((entry) => entry.path === 'assets/site.css');
+    expect(listed?.sha256).toBe(createHash('sha256').update(css).digest('hex'));
+    expect(readFileSync(new URL('../../templates/assets/site.css', import.meta.url), 'utf8')).toContain(TOOL_ACCENT);
   });
 });
