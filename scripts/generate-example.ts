@@ -400,6 +400,7 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
   const config = JSON.parse(readFileSync(join(root, 'bulletin.json'), 'utf8')) as Record<string, unknown> & {
     issue: Record<string, unknown>;
     inputs: Record<string, string>;
+    site: Record<string, unknown>;
   };
   rmSync(join(root, 'archive'), { recursive: true, force: true });
   for (const issue of ARCHIVE) {
@@ -423,8 +424,11 @@ function writeArchive(root: string, tables: Tables, geojson: string): void {
     writeFileSync(join(folder, 'data', 'subregions.geojson'), `${geojson}\n`);
     // The survey curves arrived with the current issue: archived issues were published without them.
     const { storageCurves: _curves, storageFits: _fits, ...inputs } = config.inputs as Record<string, string>;
+    // The logo too: archived issues were published before it (the site shows the current issue's on every page).
+    const { logo: _logo, ...site } = config.site as Record<string, unknown>;
     const issueConfig = {
       ...config,
+      site,
       inputs,
       issue: { ...config.issue, month: issue.month, published: issue.published, revision: issue.revision, corrections: issue.corrections },
     };

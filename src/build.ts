@@ -188,8 +188,8 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
 
   progress.begin('4/5', 'rendering pages');
   const bundles: IssueBundle[] = localized.map(({ model, issue, inputsPath, firstLocale }, k) => {
-    const { content, sources, wording } = (loaded[issue] as { inputs: BulletinInputs }).inputs;
-    return { model, charts: chartSets[k] as ChartSet, content, sources, inputsPath, siteLocale, firstLocale, wording };
+    const { content, sources, wording, logo } = (loaded[issue] as { inputs: BulletinInputs }).inputs;
+    return { model, charts: chartSets[k] as ChartSet, content, sources, inputsPath, siteLocale, firstLocale, wording, logo };
   });
   let site = { files: 0, pages: 0, bytes: 0 };
   await stage('writing the site', () =>

@@ -47,6 +47,7 @@ export const PROBLEM_CODES = {
   'geojson-unreadable': 'the boundaries are not JSON',
   'id-path-collision': 'two ids that would share one page path',
   'issue-twice': 'the same issue and revision twice in the archive',
+  'logo-invalid': 'the configured logo is missing, too large, not a PNG or SVG, or an SVG that does more than draw',
   'month-after-bulletin': 'rows after the bulletin month (ignored)',
   'month-invalid': 'a month that is not YYYY-MM',
   'month-out-of-range': 'a month before the earliest a table may hold',

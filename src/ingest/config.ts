@@ -319,6 +319,18 @@ export const configSchema = z.strictObject({
       .min(1)
       .default(500)
       .describe('most water bodies listed on one page; a longer list gets numbered pages'),
+    logo: z
+      .strictObject({
+        path: z
+          .string()
+          .min(1)
+          .describe(
+            'path of the logo in the bulletin folder: a PNG, or an SVG without scripts, event handlers or links to other files; at most 1 MiB',
+          ),
+        alt: label(200).describe("the logo's text alternative, such as the agency's name"),
+      })
+      .optional()
+      .describe("the agency's logo, shown in the header of every page beside the title and copied into the site's assets/"),
     accentColour: z
       .string()
       .regex(/^#[0-9a-fA-F]{6}$/)

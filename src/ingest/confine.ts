@@ -19,6 +19,8 @@ export const SIZE_LIMITS = {
   content: 1 << 20,
   /** GeoJSON boundaries (read whole, so held in memory once). */
   boundaries: 256 << 20,
+  /** The agency's logo (site.logo), PNG or SVG. */
+  logo: 1 << 20,
   /** A CSV or Parquet table, or one Parquet partition (read in a stream). */
   table: 64 * 2 ** 30,
 } as const;

@@ -13,6 +13,7 @@ import { parquetParts } from './csv.ts';
 import { join } from 'node:path';
 import { readConfig, type BulletinConfig } from './config.ts';
 import { readWording } from './wording.ts';
+import { readLogo, type Logo } from './logo.ts';
 import type { WordingLayer } from '../text/index.ts';
 import { readBoundaries, type SubRegion } from './geojson.ts';
 import { monthLabel, parseMonth, yearOf } from '../common/months.ts';
@@ -88,6 +89,8 @@ export interface BulletinInputs {
   files: InputFile[];
   /** Editorial text by name (`foreword`, `foreword.fr`, `notes`), read and checked here. */
   content: Record<string, string>;
+  /** The agency's logo (site.logo), read and checked; null without one. */
+  logo: Logo | null;
   /** The folder's own wording over the tool's catalogue (content/locales/<locale>.json), by locale; empty without. */
   wording: WordingLayer;
   /** Real path of each input file, by its path in `files`, resolved inside the folder. */
@@ -177,7 +180,9 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     }
   }
   const content = readContent(root, config, problems, label);
-  const wording = readWording(root, config, problems, label, readFileSync(configPath, 'utf8'));
+  const configText = readFileSync(configPath, 'utf8');
+  const wording = readWording(root, config, problems, label, configText);
+  const logo = readLogo(root, config, problems, configLabel, configText);
   if (problems.errors.length > 0) return { inputs: null, problems };
   const at = (path: string) => real.get(path) as string;
   const bulletinMonth = parseMonth(config.issue.month) as number;
@@ -247,6 +252,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
       files,
       content,
       wording,
+      logo,
       sources,
     },
     problems,

@@ -11,6 +11,7 @@ import Eleventy from '@11ty/eleventy';
 import type { ChartSet } from '../charts/index.ts';
 
 import type { BulletinModel } from '../wording/index.ts';
+import type { Logo } from '../ingest/logo.ts';
 import { localeEntry } from '../text/locales.ts';
 import { fillMessage, formatMessage, loadMessages, withWording, type MessageKey, type WordingLayer } from '../text/index.ts';
 import { renderMarkdown } from './markdown.ts';
@@ -36,6 +37,8 @@ export interface IssueBundle {
   siteLocale?: string;
   /** The issue's first language, the one its editorial text is written in unless a translation is given. */
   firstLocale?: string;
+  /** The agency's logo, as ingest read and checked it; the site shows the current issue's. */
+  logo?: Logo | null;
   /** The issue folder's own wording over the tool's catalogue (ingest/wording.ts); the site-level pages use the current issue's. */
   wording?: WordingLayer;
 }
@@ -193,6 +196,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
   const issues = bundles.map((bundle) => withWording(bundle.wording, () => issueData(bundle, bundles)));
   const last = bundles[bundles.length - 1];
   const site = withWording(last?.wording, () => siteData(issues, last?.siteLocale));
+  const logo = last?.logo ?? null;
   const eleventy = new Eleventy(join(projectRoot, 'templates'), outDir, {
     configPath: join(projectRoot, '.eleventy.js'),
     quietMode: true,
@@ -230,6 +234,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
       eleventyConfig.addGlobalData('site', site);
       eleventyConfig.addGlobalData('sites', site.sites);
       eleventyConfig.addGlobalData('t', site.t);
+      eleventyConfig.addGlobalData('siteLogo', logo ? { href: `/assets/logo.${logo.type}`, alt: logo.alt } : null);
     },
   });
   // Its closing "Wrote N files" line is forced past quiet mode; the build reports progress itself.
@@ -245,6 +250,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
     rmSync(stylesheet);
     writeFileSync(stylesheet, css.replace(TOOL_ACCENT, `--accent: ${accent};`));
   }
+  if (logo) writeFileSync(join(outDir, 'assets', `logo.${logo.type}`), logo.bytes);
   const known = copyInputs(bundles, outDir, hashes);
   for (const file of siteFiles(
     bundles.map((bundle) => bundle.model),

@@ -43,6 +43,7 @@ function inputs(area: Array<[string, number, number, number]>): BulletinInputs {
     files: [],
     content: {},
     wording: {},
+    logo: null,
     sources: {},
   };
 }

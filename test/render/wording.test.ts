@@ -23,7 +23,11 @@ describe("a bulletin folder's own wording, built", () => {
     config.locales = ['en', 'fr'];
     // The agency's accent colour goes into the one stylesheet (tested here to share this build).
     (config.site as Record<string, unknown>).accentColour = '#7A1F5C';
+    // And its logo, with markup in its alt text.
+    (config.site as Record<string, unknown>).logo = { path: 'logo.svg', alt: '<b>Test</b> office' };
+    const logo = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><circle cx="5" cy="5" r="4"/></svg>';
     const folder = writeMini({ 'bulletin.json': JSON.stringify(config, null, 2) });
+    writeFileSync(join(folder, 'logo.svg'), logo);
     mkdirSync(join(folder, 'content', 'locales'), { recursive: true });
     const words = {
       en: { 'band.below-usual': 'below <b>our</b> usual', 'site.home': '<i>Start</i> & "go"' },
@@ -65,5 +69,10 @@ describe("a bulletin folder's own wording, built", () => {
     const listed = manifest.outputs.find((entry) => entry.path === 'assets/site.css');
     expect(listed?.sha256).toBe(createHash('sha256').update(css).digest('hex'));
     expect(readFileSync(new URL('../../templates/assets/site.css', import.meta.url), 'utf8')).toContain(TOOL_ACCENT);
+    // The logo: copied as it is, listed in the manifest, shown on every page with its alt text escaped.
+    expect(read('assets', 'logo.svg')).toBe(logo);
+    expect(manifest.outputs.map((entry) => entry.path)).toContain('assets/logo.svg');
+    for (const page of [['index.html'], ['fr', 'issues', '2020-06', 'trends', 'index.html']])
+      expect(read(...page)).toContain('<img class="logo" src="/assets/logo.svg" alt="&lt;b&gt;Test&lt;/b&gt; office" height="40">');
   });
 });
