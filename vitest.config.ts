@@ -17,6 +17,7 @@ const SYSTEM_TESTS = [
   'test/site/publish.test.ts',
   'test/render/escape.test.ts',
   'test/render/wording.test.ts',
+  'test/render/longNames.test.ts',
   'test/model/pool.test.ts',
 ];
 
