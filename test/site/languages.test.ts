@@ -37,7 +37,7 @@ describe('the French edition', () => {
     expect(page).toContain('<html lang="fr">');
     expect(page).toContain('<meta property="og:locale" content="fr_FR">\n<meta property="og:locale:alternate" content="en_GB">');
     expect(page).toMatch(
-      /<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, la surface couverte d&#39;eau des lacs/,
+      /<meta property="og:image:alt" content="Velduran Lakeland Water Bulletin: novembre 2026\. En novembre 2026, la surface couverte d&#39;eau des plans d&#39;eau/,
     );
     expect(page).toContain('<link rel="alternate" hreflang="en" href="https://bulletin.example.org/issues/2026-11/trends/">');
     expect(page).toContain('<link rel="alternate" hreflang="fr" href="https://bulletin.example.org/fr/issues/2026-11/trends/">');
@@ -110,7 +110,10 @@ describe('the French edition', () => {
   it('shows the health cautions in French too', () => {
     const quality = read('fr/issues/2026-11/water-quality/index.html');
     expect(quality).toContain('<strong>Précaution\u00a0:</strong> Là où la chlorophylle a est élevée');
-    expect(quality).toContain('L&#39;autorité sanitaire locale décide de la sécurité de la baignade et de l&#39;eau potable');
+    // The example names its (invented) health authority in bulletin.json "wording", and the caution still defers to it.
+    expect(quality).toContain(
+      'L&#39;autorité sanitaire locale, Velduran Basin Health Office, décide de la sécurité de la baignade et de l&#39;eau potable',
+    );
   });
 
   it('lists each page with its other-language version in the sitemap', () => {
