@@ -21,6 +21,8 @@ export { prefixOf, type SiteFile } from './siteFiles.ts';
 import { bodyView, changesSince, revisedFigures, subRegionView, views } from './views.ts';
 
 const projectRoot = fileURLToPath(new URL('../../', import.meta.url));
+/** Tables with more rows than this fold behind a summary line that names them (templates/_includes/table.njk). */
+export const TABLE_FOLD_ROWS = 8;
 /** The tool's accent colour as templates/assets/site.css declares it; site.accentColour replaces it. */
 export const TOOL_ACCENT = '--accent: #0b5d6e;';
 
@@ -234,6 +236,7 @@ export async function renderSite(bundles: IssueBundle[], outDir: string, hashes:
       eleventyConfig.addGlobalData('site', site);
       eleventyConfig.addGlobalData('sites', site.sites);
       eleventyConfig.addGlobalData('t', site.t);
+      eleventyConfig.addGlobalData('tableFoldRows', TABLE_FOLD_ROWS);
       eleventyConfig.addGlobalData('siteLogo', logo ? { href: `/assets/logo.${logo.type}`, alt: logo.alt } : null);
     },
   });

@@ -18,6 +18,8 @@ export interface TableView {
   /** The first cell of each row is its header cell. */
   rows: string[][];
   note?: string;
+  /** A table the page leads with: shown open however long (others over TABLE_FOLD_ROWS rows fold). */
+  lead?: true;
 }
 
 /** The page formatters of one locale: a missing or undefined figure always prints as "–". */
@@ -170,6 +172,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
   const [status, subRegions, sizeClasses, grid]: [TableView, TableView, TableView, TableView] = [
     {
       id: 'status',
+      lead: true,
       caption: t('view.status.caption', {
         month: model.meta.monthName,
         calendarMonth: model.meta.calendarMonthName,

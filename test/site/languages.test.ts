@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { build } from '../../src/build.ts';
 import { renderMarkdown } from '../../src/render/markdown.ts';
+import { TABLE_FOLD_ROWS } from '../../src/render/index.ts';
 import { listFiles } from '../../src/common/files.ts';
 import { checkLinks } from '../support/gates.ts';
 import { EXAMPLE } from '../support/exampleSite.ts';
@@ -105,6 +106,20 @@ describe('the French edition', () => {
     expect(read('issues/2026-10/index.html')).toContain(
       '<time datetime="2026-11-10">10 November 2026</time>: <span>The October 2026 water area of water body WB079',
     );
+  });
+
+  it('folds a long table behind a summary that names it and counts its rows, in both languages, and keeps the lead table open', () => {
+    for (const [prefix, words] of [
+      ['', /<details class="table-fold">\n<summary>Grid cells of [^<]*: show the table \((\d+) rows\)<\/summary>/],
+      ['fr/', /<details class="table-fold">\n<summary>Mailles de [^<]*\u00a0: afficher le tableau \((\d+) lignes\)<\/summary>/],
+    ] as const) {
+      const page = read(`${prefix}issues/2026-11/surface-water/index.html`);
+      const rows = Number(words.exec(page)?.[1]);
+      expect(rows).toBeGreaterThan(TABLE_FOLD_ROWS);
+      // The region's status table leads the page: open, although it too is longer than the fold.
+      const status = /<section class="table-block" id="status"[^>]*>\n(<[a-z]+)/.exec(page)?.[1];
+      expect(status).toBe('<div');
+    }
   });
 
   it('shows the health cautions in French too', () => {
