@@ -161,11 +161,8 @@ async function buildStages(options: BuildOptions, target: Target): Promise<Build
     }
   });
   // What earlier issues printed with another value: known only once every issue is worded, and needed by the charts' tables.
-  for (const { model } of localized)
-    model.revised = printedEarlier(
-      model,
-      localized.map((other) => other.model),
-    );
+  const every = localized.map(({ model }) => model);
+  for (const model of every) model.revised = printedEarlier(model, every);
   // The worker threads have done their part (reading, trend tests): their memory goes back now.
   await closeSharedPool();
   const modelSeconds = lap('model');

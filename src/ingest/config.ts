@@ -472,8 +472,14 @@ function keyLines(text: string): Map<string, number> {
   return found;
 }
 
-/** Reads and validates a configuration file; returns null when it cannot be used. */
-export function readConfig(path: string, label: string, problems: ProblemList): BulletinConfig | null {
+/** The 1-based line a JSON.parse error points at (its "position N"), or 0 when it names none. */
+export function jsonErrorLine(text: string, error: unknown): number {
+  const position = /position (\d+)/.exec(error instanceof Error ? error.message : String(error));
+  return position ? text.slice(0, Number(position[1])).split('\n').length : 0;
+}
+
+/** Reads and validates a configuration file, with its text (for the lines of later checks); null when it cannot be used. */
+export function readConfig(path: string, label: string, problems: ProblemList): { config: BulletinConfig; text: string } | null {
   let text: string;
   let raw: unknown;
   try {
@@ -494,12 +500,10 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
     raw = JSON.parse(text);
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    const position = /position (\d+)/.exec(message);
-    const line = position ? text.slice(0, Number(position[1])).split('\n').length : 0;
     problems.error({
       code: 'config-not-json',
       file: label,
-      line,
+      line: jsonErrorLine(text, error),
       column: '',
       value: '',
       expected: 'valid JSON',
@@ -595,5 +599,5 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
         params: { first: shortfalls[0] as string, count: shortfalls.length },
       });
   }
-  return config;
+  return { config, text };
 }

@@ -155,8 +155,9 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     });
     return { inputs: null, problems };
   }
-  const config = readConfig(configPath, configLabel, problems);
-  if (!config) return { inputs: null, problems };
+  const read = readConfig(configPath, configLabel, problems);
+  if (!read) return { inputs: null, problems };
+  const { config, text: configText } = read;
 
   const paths = config.inputs;
   const label = (path: string) => `${labelPrefix}${path}`;
@@ -180,7 +181,6 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
     }
   }
   const content = readContent(root, config, problems, label);
-  const configText = readFileSync(configPath, 'utf8');
   const wording = readWording(root, config, problems, label, configText);
   const logo = readLogo(root, config, problems, configLabel, configText);
   if (problems.errors.length > 0) return { inputs: null, problems };
@@ -420,9 +420,7 @@ function checkTurbidityUnits(field: FieldRecord[], quality: QualityTable, label:
     line: first.line,
     column: 'unit',
     value: first.turbidityUnit ?? '',
-    expected: quality.turbidityUnit
-      ? `turbidity in ${quality.turbidityUnit}, the unit of the satellite table`
-      : 'satellite turbidity to compare with',
+    expected: `turbidity in ${quality.turbidityUnit}, the unit of the satellite table`,
     message: `${other.length} field turbidity sample(s) are in another unit than the satellite turbidity (NTU and FNU are not interchangeable) and are left out of the comparison`,
     params: { count: other.length },
   });

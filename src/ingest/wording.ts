@@ -13,7 +13,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BulletinConfig } from './config.ts';
-import { didYouMean, lineOfPath } from './config.ts';
+import { didYouMean, jsonErrorLine, lineOfPath } from './config.ts';
 import { ConfinementError, resolveInside } from './confine.ts';
 import { isLink } from '../common/paths.ts';
 import type { ProblemList } from './problems.ts';
@@ -61,14 +61,7 @@ export function readWording(
       raw = JSON.parse(text);
     } catch (caught) {
       const message = caught instanceof Error ? caught.message : String(caught);
-      const position = /position (\d+)/.exec(message);
-      error(
-        position ? text.slice(0, Number(position[1])).split('\n').length : 0,
-        '',
-        '',
-        'valid JSON',
-        `the wording is not valid JSON: ${message}`,
-      );
+      error(jsonErrorLine(text, caught), '', '', 'valid JSON', `the wording is not valid JSON: ${message}`);
       continue;
     }
     if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
