@@ -120,12 +120,13 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
   const t = style.t;
   const notEnough = t('map.notEnough');
   const cells = model.grid.cells.map((cell) => {
-    const label = cell.bandKey === null ? notEnough : style.label(cell.bandKey);
+    const percent = cell.status.kind === 'stated' ? cell.status.percentOfBaseline : null;
+    const label = cell.status.kind === 'stated' ? style.label(cell.status.bandKey) : notEnough;
     const e = cell.west + cell.size;
     const n = cell.south + cell.size;
     return {
       type: 'Feature',
-      properties: { label, bodies: cell.bodies, percent: cell.percentOfBaseline === null ? null : Math.round(cell.percentOfBaseline) },
+      properties: { label, bodies: cell.bodies, percent: percent === null ? null : Math.round(percent) },
       geometry: {
         type: 'Polygon',
         coordinates: [
@@ -158,8 +159,9 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     },
     { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
   ]);
-  const stated = model.grid.cells.filter((cell) => cell.percentOfBaseline !== null);
-  const belowCount = stated.filter((cell) => (cell.percentOfBaseline as number) < model.meta.usualFromPercent).length;
+  const stated = cells.filter((cell) => cell.properties.percent !== null);
+  const statedPercents = model.grid.cells.flatMap((cell) => (cell.status.kind === 'stated' ? [cell.status.percentOfBaseline] : []));
+  const belowCount = statedPercents.filter((percent) => percent < model.meta.usualFromPercent).length;
   return {
     id: 'grid-map',
     title: t('map.grid.title', { month: model.meta.monthName }),
@@ -176,8 +178,8 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
       rows: model.grid.cells.map((cell, k) => [
         formatPosition(model.meta.locale, cell.south, cell.west, 2),
         cell.bodies,
-        cell.percentOfBaseline === null ? '–' : Math.round(cell.percentOfBaseline),
-        (cells[k] as { properties: { label: string } }).properties.label,
+        (cells[k] as (typeof cells)[number]).properties.percent ?? '–',
+        (cells[k] as (typeof cells)[number]).properties.label,
       ]),
     },
   };
@@ -292,7 +294,7 @@ export function bodiesMapChart(model: BulletinModel): ChartDefinition {
       lon: body.lon,
       lat: body.lat,
       area: Math.round(body.referenceHa * 10) / 10,
-      status: style.label(status?.bandKey ?? null),
+      status: style.label(status?.kind === 'stated' ? status.bandKey : null),
     };
   });
   const t = style.t;

@@ -7,9 +7,8 @@
  */
 import type { BulletinInputs } from '../ingest/index.ts';
 import type { BodySeries } from './bodySeries.ts';
+import type { Status } from './status.ts';
 import { groupStatus } from './surfaceWater.ts';
-
-export type CellState = 'stated' | 'too-few-bodies' | 'low-coverage' | 'short-baseline';
 
 export interface GridCell {
   /** South-west corner. */
@@ -17,17 +16,8 @@ export interface GridCell {
   south: number;
   size: number;
   bodies: number;
-  state: CellState;
-  fillingPercent: number | null;
-  baselineMean: number | null;
-  baselineStandardDeviation: number | null;
-  /** (filling − baseline mean) / baseline sd; null unless stated with enough baseline years (STANDARDIZED_MIN_YEARS). */
-  standardized: number | null;
-  /** Percent of the baseline median and its status band, as for every other group; null unless stated. */
-  percentOfBaseline: number | null;
-  bandKey: string | null;
-  /** Filling minus baseline median, percentage points. */
-  anomalyPoints: number | null;
+  /** The cell's status, the same shape as every other group's; `too-few-bodies` below `grid.minBodies`. */
+  status: Status;
 }
 
 export interface Grid {
@@ -53,34 +43,16 @@ export function grid(inputs: BulletinInputs, series: BodySeries): Grid {
     method: 'grid',
     cellDegrees,
     minBodies,
-    cells: sorted.map(({ column, row, members }) => {
-      const base = { west: round(column * cellDegrees), south: round(row * cellDegrees), size: cellDegrees, bodies: members.length };
-      const empty = {
-        fillingPercent: null,
-        baselineMean: null,
-        baselineStandardDeviation: null,
-        standardized: null,
-        percentOfBaseline: null,
-        bandKey: null,
-        anomalyPoints: null,
-      };
-      if (members.length < minBodies) return { ...base, state: 'too-few-bodies' as const, ...empty };
-      const status = groupStatus(inputs, series, members);
-      if (status.kind === 'low-coverage') return { ...base, state: 'low-coverage' as const, ...empty };
-      if (status.kind === 'short-baseline')
-        return { ...base, state: 'short-baseline' as const, ...empty, fillingPercent: status.fillingPercent };
-      return {
-        ...base,
-        state: 'stated' as const,
-        fillingPercent: status.fillingPercent,
-        baselineMean: status.baseline.mean,
-        baselineStandardDeviation: status.baseline.standardDeviation,
-        standardized: status.standardized,
-        percentOfBaseline: status.percentOfBaseline,
-        bandKey: status.bandKey,
-        anomalyPoints: status.anomalyPoints,
-      };
-    }),
+    cells: sorted.map(({ column, row, members }) => ({
+      west: round(column * cellDegrees),
+      south: round(row * cellDegrees),
+      size: cellDegrees,
+      bodies: members.length,
+      status:
+        members.length < minBodies
+          ? { kind: 'too-few-bodies' as const, bodies: members.length, minBodies }
+          : groupStatus(inputs, series, members),
+    })),
   };
 }
 

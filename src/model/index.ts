@@ -10,7 +10,7 @@ import { QUALITY_PARAMETERS } from '../ingest/index.ts';
 import { aggregate, statusMonths } from './aggregate.ts';
 import { bodySeries, type BodySeries } from './bodySeries.ts';
 import type { WorkerPool } from '../parallel/pool.ts';
-import { statusOf } from './status.ts';
+import { statusOf, type GroupStatus } from './status.ts';
 import { grid, type Grid } from './grid.ts';
 import { prepareQuality, quality, type PreparedQuality, type QualityFigures } from './quality.ts';
 import { rainfall, type RainfallSummary } from './rainfall.ts';
@@ -28,7 +28,7 @@ import {
 import { validation, type ValidationSummary } from './validation.ts';
 import { storage, type StorageFigures } from './storage.ts';
 
-export type { Status } from './status.ts';
+export type { GroupStatus, Status } from './status.ts';
 export type { GroupMonth } from './aggregate.ts';
 export type { SurfaceWater, SurfaceFigures, GroupSurface, SizeClassSurface } from './surfaceWater.ts';
 
@@ -49,7 +49,8 @@ export interface IssueFigures {
     ownPage: boolean;
   }>;
   /** Each body's own status in the bulletin month (its band, or why none), in inventory order. */
-  bodyStatus: Array<{ bandKey: string | null; percentOfBaseline: number | null; state: 'stated' | 'low-coverage' | 'short-baseline' }>;
+  /** Each water body's own status in the bulletin month, the same shape as a group's. */
+  bodyStatus: GroupStatus[];
   /** Water bodies flagged for their own page: the last 36 months of filling (observed or filled) and the trend. */
   monitored: Array<{
     body: number;
@@ -130,16 +131,9 @@ export function issueFigures(inputs: BulletinInputs, prepared?: PreparedModel): 
       lat,
       ownPage,
     })),
-    bodyStatus: inputs.bodies.map((_, k) => {
-      const status = statusOf(
-        aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus),
-        bulletinMonth,
-        config,
-      );
-      return status.kind === 'stated'
-        ? { bandKey: status.bandKey, percentOfBaseline: status.percentOfBaseline, state: 'stated' as const }
-        : { bandKey: null, percentOfBaseline: null, state: status.kind };
-    }),
+    bodyStatus: inputs.bodies.map((_, k) =>
+      statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config),
+    ),
     monitored: inputs.bodies.flatMap((body, k) => {
       if (!pageBodies.has(k)) return [];
       const from = Math.max(0, series.months - 36);

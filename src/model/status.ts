@@ -70,7 +70,12 @@ export type Status =
       range: FigureRange;
       usableYears: number;
       neededYears: number;
-    };
+    }
+  /** A grid cell with fewer bodies than `grid.minBodies`: no figure is formed. */
+  | { kind: 'too-few-bodies'; bodies: number; minBodies: number };
+
+/** The status of a group that has a figure at all (every group but a thin grid cell). */
+export type GroupStatus = Exclude<Status, { kind: 'too-few-bodies' }>;
 
 /**
  * Where a figure could lie given its estimated bodies: filling with every estimated body at the low
@@ -90,7 +95,7 @@ export function bandFor(percentOfBaseline: number, bands: Array<{ key: string; f
   return key;
 }
 
-export function statusOf(series: GroupMonth[], bulletinMonth: number, config: BulletinConfig): Status {
+export function statusOf(series: GroupMonth[], bulletinMonth: number, config: BulletinConfig): GroupStatus {
   const current = series.find((entry) => entry.month === bulletinMonth);
   const thresholdPercent = 100 * config.coverage.minRegionCoverage;
   if (!current || current.fillingPercent === null)

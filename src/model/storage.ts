@@ -19,7 +19,7 @@ import { aggregate, type GroupMonth } from './aggregate.ts';
 import { MISSING, type BodySeries } from './bodySeries.ts';
 import { estimationBasisOf } from './estimate.ts';
 import type { MethodId } from './methods.ts';
-import { statusOf, type Status } from './status.ts';
+import { statusOf, type GroupStatus } from './status.ts';
 
 /** What turns a water area into storage: a survey curve (StorageReader) or a fitted power law (FitReader). */
 export interface VolumeReader {
@@ -109,7 +109,7 @@ export interface StorageGroup {
   /** Storage in percent of capacity, month by month (GroupMonth of the bodies with a curve, weighted by capacity). */
   series: GroupMonth[];
   /** Against the baseline as for surface area; null when the curves cover too little of the group (storage.minCurveShare). */
-  status: Status | null;
+  status: GroupStatus | null;
   /** Stored volume in the bulletin month and its range from the estimates, hm³; null when no figure is stated. */
   volumeHm3: number | null;
   volumeRangeHm3: { low: number; high: number } | null;

@@ -9,7 +9,7 @@ import type { BulletinInputs } from '../ingest/index.ts';
 import { climatology } from '../stats/index.ts';
 import { aggregate, statusMonths, type GroupMonth } from './aggregate.ts';
 import type { BodySeries } from './bodySeries.ts';
-import { envelopeOf, statusOf, type Status } from './status.ts';
+import { envelopeOf, statusOf, type GroupStatus } from './status.ts';
 import { estimationBasisOf } from './estimate.ts';
 import { deficitOf, type Deficit } from './deficit.ts';
 import { sizeClassLabel } from '../text/index.ts';
@@ -20,7 +20,7 @@ export interface GroupSurface {
   bodies: number;
   referenceHa: number;
   series: GroupMonth[];
-  status: Status;
+  status: GroupStatus;
   /** Months in a row below usual up to the bulletin month, and the shortfall over them (deficit.ts). */
   deficit: Deficit;
 }
@@ -72,7 +72,7 @@ export function referenceAreasOf(inputs: BulletinInputs): Float64Array {
 }
 
 /** The status alone of a group (grid cells): only the months it reads are aggregated. */
-export function groupStatus(inputs: BulletinInputs, series: BodySeries, members: number[]): Status {
+export function groupStatus(inputs: BulletinInputs, series: BodySeries, members: number[]): GroupStatus {
   const monthly = aggregate(
     series,
     members,

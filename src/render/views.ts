@@ -11,6 +11,12 @@ import type { TrendEntry } from '../model/trends.ts';
 import { bandKey, translator, type MessageKey } from '../text/index.ts';
 import { formatMonth, formatNumber, formatPercent, formatPosition } from '../text/format.ts';
 
+/** A water body's own status has its own words for the reasons it has none (not a group's). */
+const BODY_WORDS = { lowCoverage: 'view.body.lowCoverage', shortBaseline: 'view.cell.short-baseline' } as const satisfies Record<
+  string,
+  MessageKey
+>;
+
 export interface TableView {
   id: string;
   caption: string;
@@ -41,16 +47,18 @@ function formatters(locale: string) {
   };
   return {
     t,
-    /** A group's status in words: its band, or why none is stated. */
-    statusWords: (status: Status | undefined) =>
+    /**
+     * A status in words: its band, or why none is stated. `words` names other wording for the
+     * reasons (a body's own page says "not seen well enough this month" rather than a group's words).
+     */
+    statusWords: (status: Status | undefined, words: { lowCoverage?: MessageKey; shortBaseline?: MessageKey } = {}) =>
       status?.kind === 'stated'
         ? t(bandKey(status.bandKey))
         : status?.kind === 'low-coverage'
-          ? t('view.notStated.lowCoverage')
-          : t('view.notStated.shortBaseline'),
-    /** One water body's own status in words; `lowCoverage` names the words for a body not seen well enough. */
-    bodyStatusWords: (own: BulletinModel['bodyStatus'][number] | undefined, lowCoverage: MessageKey = 'view.body.lowCoverage') =>
-      own?.bandKey ? t(bandKey(own.bandKey)) : own?.state === 'low-coverage' ? t(lowCoverage) : t('view.cell.short-baseline'),
+          ? t(words.lowCoverage ?? 'view.notStated.lowCoverage')
+          : status?.kind === 'too-few-bodies'
+            ? t('map.notEnough')
+            : t(words.shortBaseline ?? 'view.notStated.shortBaseline'),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
     /**
      * A percent with its range from the estimated bodies (fixed set), when estimates move it: the
@@ -109,10 +117,10 @@ export function views(model: BulletinModel) {
       shifted: t('view.countOf', { count: model.trends.bodies.shiftedDown, total: model.trends.bodies.tested }),
       deficit: deficitWords(model.surfaceWater.region.deficit, f, locale),
       unstated: t('view.unstated.value', {
-        count: model.bodyStatus.filter((own) => own.state !== 'stated').length,
+        count: model.bodyStatus.filter((own) => own.kind !== 'stated').length,
         total: model.bodyStatus.length,
-        lowCoverage: model.bodyStatus.filter((own) => own.state === 'low-coverage').length,
-        shortBaseline: model.bodyStatus.filter((own) => own.state === 'short-baseline').length,
+        lowCoverage: model.bodyStatus.filter((own) => own.kind === 'low-coverage').length,
+        shortBaseline: model.bodyStatus.filter((own) => own.kind === 'short-baseline').length,
       }),
       minObservedShare: pct(100 * model.meta.minObservedShare),
       firstMonthName: formatMonth(locale, parseMonth(model.meta.firstMonth) as number),
@@ -128,6 +136,7 @@ export function views(model: BulletinModel) {
 function surfaceTables(model: BulletinModel, f: Formatters) {
   const locale = model.meta.locale;
   const { t, pct, ranged, signed, statusWords } = f;
+  const cellsOf = (kind: Status['kind']) => model.grid.cells.filter((cell) => cell.status.kind === kind).length;
   // One decimal at most: a baseline of 10 to 30 years supports no more. Below 10 years there is none (STANDARDIZED_MIN_YEARS).
   // `value` undefined: no figure at all ('–'); null: a figure, but too few baseline years for this one.
   const standardizedText = (value: number | null | undefined) =>
@@ -243,23 +252,27 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       caption: t('view.grid.caption', { degrees: formatNumber(locale, model.grid.cellDegrees, 2), month: model.meta.monthName }),
       columns: [t('view.grid.cell'), t('ui.bodies'), t('view.water'), t('view.baselineMean'), t('ui.percentOfUsual'), t('ui.status')],
       // Only the cells with a figure: the others are counted in the note (and listed in the map's own data table).
-      rows: model.grid.cells
-        .filter((cell) => cell.state === 'stated')
-        .map((cell) => [
-          formatPosition(locale, cell.south, cell.west, 2),
-          String(cell.bodies),
-          pct(cell.fillingPercent),
-          pct(cell.baselineMean),
-          pct(cell.percentOfBaseline),
-          cell.bandKey ? t(bandKey(cell.bandKey)) : '–',
-        ]),
+      rows: model.grid.cells.flatMap(({ south, west, bodies, status: cell }) =>
+        cell.kind === 'stated'
+          ? [
+              [
+                formatPosition(locale, south, west, 2),
+                String(bodies),
+                pct(cell.fillingPercent),
+                pct(cell.baseline.mean),
+                pct(cell.percentOfBaseline),
+                t(bandKey(cell.bandKey)),
+              ],
+            ]
+          : [],
+      ),
       note: t('view.grid.noteCounts', {
         minBodies: model.grid.minBodies,
-        stated: model.grid.cells.filter((cell) => cell.state === 'stated').length,
+        stated: cellsOf('stated'),
         total: model.grid.cells.length,
-        tooFew: model.grid.cells.filter((cell) => cell.state === 'too-few-bodies').length,
-        lowCoverage: model.grid.cells.filter((cell) => cell.state === 'low-coverage').length,
-        shortBaseline: model.grid.cells.filter((cell) => cell.state === 'short-baseline').length,
+        tooFew: cellsOf('too-few-bodies'),
+        lowCoverage: cellsOf('low-coverage'),
+        shortBaseline: cellsOf('short-baseline'),
       }),
     },
   ];
@@ -451,7 +464,7 @@ function validationTables(model: BulletinModel, f: Formatters): TableView[] {
 
 /** The monitored water bodies of the surface-water page. */
 function monitoredRows(model: BulletinModel, f: Formatters) {
-  const { t, pct, signed, bodyStatusWords } = f;
+  const { t, pct, signed, statusWords } = f;
   return model.monitored.map((entry) => {
     const status = model.bodyStatus[entry.body];
     const last = [...entry.filling].reverse().find((value) => value !== null) ?? null;
@@ -459,7 +472,7 @@ function monitoredRows(model: BulletinModel, f: Formatters) {
       id: entry.id,
       name: entry.name,
       last: pct(last),
-      status: bodyStatusWords(status),
+      status: statusWords(status, BODY_WORDS),
       trend:
         entry.slopePerYear === null
           ? t('view.notTested')
@@ -497,7 +510,7 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
   const f = formatters(locale);
-  const { t, pct, ranged, statusWords, bodyStatusWords } = f;
+  const { t, pct, ranged, statusWords } = f;
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -512,8 +525,8 @@ export function subRegionView(model: BulletinModel, id: string) {
         name: body.name,
         kind: body.kind,
         area: formatNumber(locale, body.referenceHa, 1),
-        status: bodyStatusWords(own),
-        percent: pct(own?.percentOfBaseline),
+        status: statusWords(own, BODY_WORDS),
+        percent: pct(own?.kind === 'stated' ? own.percentOfBaseline : null),
         href: body.ownPage ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null,
       };
     });
@@ -612,7 +625,7 @@ export function storageTable(model: BulletinModel): TableView | null {
 /** One monitored water body's page, formatted. */
 export function bodyView(model: BulletinModel, index: number) {
   const locale = model.meta.locale;
-  const { t, pct, bodyStatusWords } = formatters(locale);
+  const { t, pct, statusWords } = formatters(locale);
   const body = model.bodies[index] as BulletinModel['bodies'][number];
   const own = model.bodyStatus[index];
   const monitored = model.monitored.find((entry) => entry.body === index);
@@ -627,8 +640,8 @@ export function bodyView(model: BulletinModel, index: number) {
       [t('ui.kind'), body.kind],
       [t('view.referenceArea'), `${formatNumber(locale, body.referenceHa, 1)} ha`],
       [t('view.location'), formatPosition(locale, body.lat, body.lon, 3)],
-      [t('ui.percentOfUsual'), pct(own?.percentOfBaseline)],
-      [t('ui.status'), bodyStatusWords(own, 'view.body.lowCoverageMonth')],
+      [t('ui.percentOfUsual'), pct(own?.kind === 'stated' ? own.percentOfBaseline : null)],
+      [t('ui.status'), statusWords(own, { ...BODY_WORDS, lowCoverage: 'view.body.lowCoverageMonth' })],
       ...storageRows(model, index, locale),
       [
         t('view.trendSinceFirst'),
@@ -691,7 +704,7 @@ export const CHANGES_LARGEST_BODIES = 10;
  */
 export function changesSince(model: BulletinModel, previous: BulletinModel | null) {
   if (!previous) return null;
-  const { statusWords, bodyStatusWords } = formatters(model.meta.locale);
+  const { statusWords } = formatters(model.meta.locale);
   const rows: Array<{ name: string; href: string | null; from: string; to: string }> = [];
   const push = (name: string, href: string | null, from: string, to: string) => {
     if (from !== to) rows.push({ name, href, from, to });
@@ -719,8 +732,8 @@ export function changesSince(model: BulletinModel, previous: BulletinModel | nul
     push(
       body.name,
       paged.has(body.id) ? `${model.meta.issuePath}water-bodies/${slugOf(body.id)}/` : null,
-      bodyStatusWords(previous.bodyStatus[before]),
-      bodyStatusWords(model.bodyStatus[k]),
+      statusWords(previous.bodyStatus[before], BODY_WORDS),
+      statusWords(model.bodyStatus[k], BODY_WORDS),
     );
   }
   return { month: previous.meta.monthName, href: previous.meta.issuePath, rows };

@@ -38,11 +38,11 @@ describe('buildModel on the small bulletin', () => {
     const model = await modelOf();
     // Both bodies (10.1° E 50.1° N and 10.2° E 50.2° N) fall in the 0.25° cell with corner 10° E, 50° N.
     expect(model.grid.cells).toHaveLength(1);
-    expect(model.grid.cells[0]).toMatchObject({ west: 10, south: 50, size: 0.25, bodies: 2, state: 'stated' });
+    expect(model.grid.cells[0]).toMatchObject({ west: 10, south: 50, size: 0.25, bodies: 2, status: { kind: 'stated' } });
     const lonely = await modelOf({
       'bodies.csv': base['bodies.csv'].replace('B,Two Reservoir,R1,10.2,50.2', 'B,Two Reservoir,R1,10.6,50.2'),
     });
-    expect(lonely.grid.cells.map((cell) => cell.state)).toEqual(['too-few-bodies', 'too-few-bodies']);
+    expect(lonely.grid.cells.map((cell) => cell.status.kind)).toEqual(['too-few-bodies', 'too-few-bodies']);
   });
 
   it('a monthly median from fewer than quality.minValidPixels valid pixels is no value, and is counted', async () => {

@@ -205,7 +205,7 @@ describe('changes since the previous issue', () => {
     const largest = [...current.bodies.keys()].sort(
       (a, b) => (current.bodies[b]?.referenceHa ?? 0) - (current.bodies[a]?.referenceHa ?? 0) || a - b,
     )[0] as number;
-    previous.bodyStatus[largest] = { bandKey: null, percentOfBaseline: null, state: 'low-coverage' };
+    previous.bodyStatus[largest] = { kind: 'low-coverage', coveragePercent: 10, thresholdPercent: 50 };
     const changes = changesSince(current, previous);
     expect(changes?.month).toBe('April 2020');
     expect(changes?.href).toBe('/issues/2020-04/');
@@ -242,10 +242,10 @@ describe('the overview figures', () => {
         declines: [model.trends.bodies.declining, model.trends.bodies.tested],
         shifted: [model.trends.bodies.shiftedDown, model.trends.bodies.tested],
         unstated: [
-          own.filter((entry) => entry.state !== 'stated').length,
+          own.filter((entry) => entry.kind !== 'stated').length,
           own.length,
-          own.filter((entry) => entry.state === 'low-coverage').length,
-          own.filter((entry) => entry.state === 'short-baseline').length,
+          own.filter((entry) => entry.kind === 'low-coverage').length,
+          own.filter((entry) => entry.kind === 'short-baseline').length,
         ],
         deficit: [model.surfaceWater.region.deficit.months],
       };
