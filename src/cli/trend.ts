@@ -125,7 +125,7 @@ export async function runTrend(args: string[]): Promise<number> {
 
   const labelled = rows.map((row, k) => ({
     ...row,
-    changePointTime: row.changePointIndex >= 0 ? (series[k]?.labels[row.changePointIndex] ?? '') : '',
+    changePointTime: row.changePointIndex === null ? null : (series[k]?.labels[row.changePointIndex] ?? null),
   }));
   if (values.format === 'json') {
     const clean = labelled.map((row) =>
@@ -142,7 +142,7 @@ export async function runTrend(args: string[]): Promise<number> {
     const lines = [
       header.join(','),
       ...labelled.map((row) =>
-        [...COLUMNS.map(([, key]) => csvField(row[key] as string | number | boolean)), csvField(row.changePointTime)].join(','),
+        [...COLUMNS.map(([, key]) => csvField(row[key] as string | number | boolean | null)), csvField(row.changePointTime)].join(','),
       ),
     ];
     process.stdout.write(`${lines.join('\n')}\n`);

@@ -58,8 +58,8 @@ export interface TrendRow {
   autocorrelationZ: number;
   autocorrelationP: number;
   changePointK: number;
-  /** Index (0-based, in the series as given) of the first value after the change; -1 when none. */
-  changePointIndex: number;
+  /** Index (0-based, in the series as given) of the first value after the change; null when none. */
+  changePointIndex: number | null;
   changePointP: number;
   seasonalS: number;
   seasonalVarianceS: number;
@@ -71,7 +71,8 @@ export interface TrendRow {
   /** The decision's p adjusted across series (Benjamini-Hochberg), and whether it is within the false discovery rate. */
   pAdjusted: number;
   rejected: boolean;
-  reason: string;
+  /** Why a test could not be made, test by test; null when every test was made. */
+  reason: string | null;
 }
 
 /** Every statistic for one series; cost O(n²). */
@@ -122,7 +123,7 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
     autocorrelationZ: corrected.z,
     autocorrelationP: corrected.p,
     changePointK: change.k,
-    changePointIndex: change.reason === null ? (observedIndex[change.location] ?? -1) : -1,
+    changePointIndex: change.reason === null ? (observedIndex[change.location] ?? null) : null,
     changePointP: change.p,
     seasonalS: seasonal?.s ?? Number.NaN,
     seasonalVarianceS: seasonal?.varianceS ?? Number.NaN,
@@ -131,7 +132,7 @@ export function trendRow(series: TrendSeries, options: TrendOptions): Omit<Trend
     seasonalSlopePerYear: seasonal?.slope ?? Number.NaN,
     seasonalCovarianceZ: seasonal?.covariance.applied ? seasonal.covariance.z : Number.NaN,
     seasonalCovarianceP: seasonal?.covariance.applied ? seasonal.covariance.p : Number.NaN,
-    reason: reasons.join('; '),
+    reason: reasons.length > 0 ? reasons.join('; ') : null,
   };
 }
 

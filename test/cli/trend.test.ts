@@ -40,6 +40,9 @@ describe('limnopress trend', () => {
     // Three series: the adjusted p can only be at least the raw p.
     for (const row of out) expect(row.p_adjusted as number).toBeGreaterThanOrEqual(row.p as number);
     expect(out[1]!.n).toBe(10);
+    // null is the only "no value" in the JSON: no empty strings, no -1 sentinels.
+    for (const row of out) for (const value of Object.values(row)) expect(value).not.toBe('');
+    expect(out.map((row) => row.reason)).toEqual([null, null, null]);
   });
 
   it('limnopress trend reports a non-numeric value with file, line and column, and exits 1', () => {

@@ -153,11 +153,15 @@ describe('the wording stage in a second language', () => {
 });
 
 describe('no value is null', () => {
-  /** Paths (indices folded) of every number in the model that is NaN or infinite. */
+  /**
+   * Paths (indices folded) of every stand-in for "no value" in the model: a number that is NaN or
+   * infinite, or a text that is empty or a dash (formatting prints a dash; the model holds null).
+   */
   const notFinite = (model: unknown) => {
     const found = new Set<string>();
     const walk = (value: unknown, path: string) => {
       if (typeof value === 'number' && !Number.isFinite(value)) found.add(path);
+      else if (typeof value === 'string' && ['', '-', '–', '—'].includes(value.trim())) found.add(`${path} = "${value}"`);
       else if (Array.isArray(value)) for (const item of value) walk(item, `${path}[]`);
       else if (value && typeof value === 'object') for (const [key, item] of Object.entries(value)) walk(item, `${path}.${key}`);
     };
@@ -165,7 +169,7 @@ describe('no value is null', () => {
     return [...found];
   };
 
-  it('the model holds no NaN or Infinity, so its JSON never turns one into null unnoticed (the example, and a month nobody saw)', async () => {
+  it('the model holds no NaN, Infinity, empty text or dash, so null is its only "no value" and JSON never turns one into null unnoticed (the example, and a month nobody saw)', async () => {
     const { inputs, problems } = await loadBulletin(EXAMPLE);
     if (!inputs) throw new Error('example does not load');
     expect(notFinite(buildModel(inputs, problems.warnings, 'test'))).toEqual([]);
