@@ -6,7 +6,17 @@ import { cpSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { auditAccessibility, checkLinks, diffTrees, htmlPages, launchChromium, validateHtml } from '../support/gates.ts';
+import {
+  auditAccessibility,
+  auditedPages,
+  checkLinks,
+  diffTrees,
+  htmlPages,
+  launchChromium,
+  onePagePerTemplate,
+  templateOf,
+  validateHtml,
+} from '../support/gates.ts';
 import { buildExample, EXAMPLE } from '../support/exampleSite.ts';
 
 const BASE_URL = (JSON.parse(readFileSync(join(EXAMPLE, 'bulletin.json'), 'utf8')) as { site: { baseUrl: string } }).site.baseUrl;
@@ -85,10 +95,25 @@ describe('example site', () => {
     expect(pages).toBe(htmlPages(site).length);
   });
 
-  it('auditAccessibility(site) finds no WCAG 2.x A or AA violation', async () => {
-    const { pages, violations } = await auditAccessibility(site, browser);
+  it(`auditAccessibility(site) finds no WCAG 2.x A or AA violation (${process.env.LIMNOPRESS_AXE === 'quick' ? 'one page per template and language' : 'every page'})`, async () => {
+    const audited = auditedPages(site);
+    const { pages, violations } = await auditAccessibility(site, browser, audited);
     expect(violations).toEqual([]);
-    expect(pages).toBe(htmlPages(site).length);
+    expect(pages).toBe(audited.length);
+  });
+
+  it('the quick audit covers every template in both languages: each page’s template has one audited page', () => {
+    const all = htmlPages(site);
+    const quick = onePagePerTemplate(all);
+    expect(new Set(quick.map(templateOf))).toEqual(new Set(all.map(templateOf)));
+    expect(quick.length).toBe(new Set(all.map(templateOf)).size);
+    // A body page, a sub-region's list page and a revision are folded into their templates.
+    expect(templateOf('fr/issues/2026-10/revisions/1/water-bodies/b-12/index.html')).toBe('fr/issues/*/water-bodies/*/index.html');
+    expect(templateOf('issues/2026-11/sub-regions/north/water-bodies/page-2/index.html')).toBe(
+      'issues/*/sub-regions/*/water-bodies/page-*/index.html',
+    );
+    expect(templateOf('issues/2026-11/water-bodies/index.html')).toBe('issues/*/water-bodies/index.html');
+    expect(quick.filter((page) => page.startsWith('fr/')).length).toBeGreaterThan(0);
   });
 
   it('no page repeats an id, though every chart of the page is inlined', () => {

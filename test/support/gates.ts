@@ -24,6 +24,30 @@ export function treeHashes(dir: string): Record<string, string> {
 
 export const htmlPages = (dir: string) => listFiles(dir).filter((file) => file.endsWith('.html'));
 
+/**
+ * The template a page is rendered from, read off its path: the issue, revision, sub-region,
+ * water-body and list-page parts are folded, the language prefix kept (`fr/issues/…/trends/`).
+ */
+export const templateOf = (page: string) =>
+  page
+    .replace(/issues\/\d{4}-\d{2}\//, 'issues/*/')
+    .replace(/revisions\/\d+\//, '')
+    .replace(/(water-bodies|sub-regions)\/(?!index\.html|page-\d+\/)[^/]+\//g, '$1/*/')
+    .replace(/page-\d+\//, 'page-*/');
+
+/** One page per template and language: the last in path order (the newest issue's). */
+export function onePagePerTemplate(pages: string[]): string[] {
+  const chosen = new Map<string, string>();
+  for (const page of [...pages].sort()) chosen.set(templateOf(page), page);
+  return [...chosen.values()].sort();
+}
+
+/**
+ * Which pages the accessibility audit opens: every page unless LIMNOPRESS_AXE=quick asks for one per
+ * template and language (the contributor's loop; .ci/run and a plain `npm test` audit them all).
+ */
+export const auditedPages = (dir: string) => (process.env.LIMNOPRESS_AXE === 'quick' ? onePagePerTemplate(htmlPages(dir)) : htmlPages(dir));
+
 async function freePort(): Promise<number> {
   const server = createServer();
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -139,12 +163,14 @@ export async function auditAccessibility(
       lanes.map(async (lane) => {
         // The site's Content-Security-Policy allows no script, axe's included: the audit injects it
         // past the policy (the policy itself is checked by its own test in test/site/archive.test.ts).
+        // axe is an init script of the context and each lane reuses one tab: injecting 650 KB of
+        // script into a fresh tab per page cost about 0.7 s a page, three times the audit itself.
         const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, bypassCSP: true });
+        await context.addInitScript({ content: axeSource });
         try {
+          const page = await context.newPage();
           for (const pagePath of lane) {
-            const page = await context.newPage();
             await page.goto(`${server.origin}/${pagePath}`);
-            await page.addScriptTag({ content: axeSource });
             const result = (await page.evaluate(async (tags) => {
               // Runs in the page; typed loosely so the project needs no DOM library types.
               const scope = globalThis as unknown as { axe: { run: (context: unknown, options: object) => Promise<unknown> } };
@@ -164,7 +190,6 @@ export async function auditAccessibility(
                 targets: violation.nodes.flatMap((node) => node.target.map(String)),
               });
             }
-            await page.close();
           }
         } finally {
           await context.close();
