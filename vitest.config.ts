@@ -19,6 +19,7 @@ const SYSTEM_TESTS = [
   'test/render/wording.test.ts',
   'test/render/longNames.test.ts',
   'test/model/pool.test.ts',
+  'test/model/estimateSimulation.test.ts',
 ];
 
 export default defineConfig({
@@ -28,7 +29,9 @@ export default defineConfig({
     hookTimeout: 0,
     pool: 'forks',
     projects: [
-      { extends: true, test: { name: 'unit', include: ['test/**/*.test.ts'], exclude: [...SITE_TESTS, ...SYSTEM_TESTS] } },
+      // isolate: false: the unit files share one module graph per worker, so the tree is imported
+      // twice, not 47 times (54.7 s to 18.9 s wall here); a unit test leaves no mocks or state behind.
+      { extends: true, test: { name: 'unit', isolate: false, include: ['test/**/*.test.ts'], exclude: [...SITE_TESTS, ...SYSTEM_TESTS] } },
       { extends: true, test: { name: 'system', include: SYSTEM_TESTS } },
       { extends: true, test: { name: 'site', include: SITE_TESTS, globalSetup: ['test/support/globalSetup.ts'] } },
     ],
