@@ -1,5 +1,6 @@
 /** `limnopress storage`: water level and stored volume from surface areas, through each reservoir's survey curve. */
 import { parseArgs } from 'node:util';
+import { say } from '../common/problemMessages.ts';
 import { InputError, ProblemList } from '../ingest/index.ts';
 import { CellReader } from '../ingest/cells.ts';
 import { readTable } from '../ingest/csv.ts';
@@ -57,14 +58,7 @@ export async function runStorage(args: string[]): Promise<number> {
       const areaHa = empty ? null : cells.number(cellsOfRow, at.water_area_ha!, 'water_area_ha', line, 0);
       if (!cells.rowOk) return;
       if (!readers.has(id)) {
-        cells.fail(
-          line,
-          'body_id',
-          id,
-          'unknown-body',
-          `a body of ${curvesPath}`,
-          'the water body has no curve (or its curve has a problem above)',
-        );
+        cells.fail(line, 'body_id', id, 'unknown-body', `a body of ${curvesPath}`, say('curve-missing-for-body'));
         return;
       }
       rows.push({ id, month, areaHa, line });

@@ -1,5 +1,6 @@
 /** `limnopress trend`: trend statistics for the series of one table. */
 import { parseArgs } from 'node:util';
+import { say } from '../common/problemMessages.ts';
 import { InputError, ProblemList } from '../ingest/index.ts';
 import { readSeriesTable } from '../ingest/seriesTable.ts';
 import { parallelTrends } from '../model/parallelTrends.ts';
@@ -104,7 +105,7 @@ export async function runTrend(args: string[]): Promise<number> {
           column: values.time,
           value: entry.key,
           expected: 'YYYY-MM or YYYY-MM-DD times',
-          message: `--seasonal needs monthly times; series "${entry.key}" has plain numbers`,
+          message: say('time-not-monthly', { key: entry.key }),
         });
       }
     }

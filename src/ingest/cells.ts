@@ -4,6 +4,7 @@
  * marker (NaN, null) that the table reader uses to drop the row; the row's other cells are still
  * checked, so one pass reports everything.
  */
+import { say, type ProblemText } from '../common/problemMessages.ts';
 import type { ProblemCode } from '../common/problemCodes.ts';
 import { parseMonth } from '../common/months.ts';
 import type { ProblemList } from './problems.ts';
@@ -26,7 +27,7 @@ export class CellReader {
     this.rowOk = true;
   }
 
-  fail(line: number, column: string, value: string, code: ProblemCode, expected: string, message: string): void {
+  fail(line: number, column: string, value: string, code: ProblemCode, expected: string, message: ProblemText): void {
     this.rowOk = false;
     this.problems.error({ code, file: this.file, line, column, value, expected, message });
   }
@@ -34,7 +35,7 @@ export class CellReader {
   text(values: string[], position: number, column: string, line: number): string {
     const cell = values[position] ?? '';
     const value = cell.length > 0 && cell.charCodeAt(0) > 32 && cell.charCodeAt(cell.length - 1) > 32 ? cell : cell.trim();
-    if (value === '') this.fail(line, column, value, 'value-empty', 'a value', 'the value is empty');
+    if (value === '') this.fail(line, column, value, 'value-empty', 'a value', say('value-empty'));
     return value;
   }
 
@@ -47,19 +48,19 @@ export class CellReader {
     if (value !== value) {
       let raw = cell.trim();
       if (raw === '') {
-        if (!optional) this.fail(line, column, raw, 'value-empty', 'a number', 'the value is empty');
+        if (!optional) this.fail(line, column, raw, 'value-empty', 'a number', say('value-empty'));
         return Number.NaN;
       }
       if (this.decimal === ',' || (this.decimal === 'auto' && raw.includes(','))) raw = this.decimalComma(raw, line, column);
       value = isPlainDecimal(raw) ? +raw : Number.NaN;
       if (value !== value) {
-        this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', 'the value is not a number');
+        this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', say('value-not-number'));
         return Number.NaN;
       }
     }
     if (!Number.isFinite(value)) {
       // Plain decimal notation can still overflow (1e999).
-      this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', 'the value is not a finite number');
+      this.fail(line, column, cell, 'value-not-number', 'a finite decimal number', say('value-not-finite'));
       return Number.NaN;
     }
     if (value < min || value > max) {
@@ -69,7 +70,7 @@ export class CellReader {
         cell,
         'value-out-of-range',
         max === Infinity ? `at least ${min}` : `from ${min} to ${max}`,
-        'the value is out of range',
+        say('value-out-of-range'),
       );
       return Number.NaN;
     }
@@ -86,7 +87,7 @@ export class CellReader {
         column,
         value: raw,
         expected: 'a decimal point, or csv.decimal set to "," in bulletin.json',
-        message: 'a decimal comma was read as a decimal point',
+        message: say('decimal-comma'),
         params: {},
       });
     }
@@ -110,9 +111,7 @@ export class CellReader {
         raw,
         'month-invalid',
         'a month as YYYY-MM (or YYYY-MM-01)',
-        day
-          ? 'a day other than the first: a monthly table takes one row per month, dated YYYY-MM or YYYY-MM-01'
-          : 'the month cannot be read',
+        day ? say('month-not-first-day') : say('month-invalid'),
       );
       return Number.NaN;
     }
@@ -125,7 +124,7 @@ export class CellReader {
     const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(raw);
     const days = match ? Date.UTC(Number(match[1]), Number(match[2]) - 1, Number(match[3])) / 86_400_000 : Number.NaN;
     if (!match || !Number.isFinite(days) || new Date(days * 86_400_000).toISOString().slice(0, 10) !== raw) {
-      this.fail(line, column, raw, 'date-invalid', 'a date as YYYY-MM-DD', 'the date cannot be read');
+      this.fail(line, column, raw, 'date-invalid', 'a date as YYYY-MM-DD', say('date-invalid'));
       return Number.NaN;
     }
     return days;
@@ -148,7 +147,7 @@ export class CellReader {
       column,
       value,
       expected: 'yes or no (or true/false, 1/0)',
-      message: 'the value is not yes or no',
+      message: say('value-not-flag'),
     });
     return false;
   }

@@ -3,6 +3,7 @@
  * source of truth: the TypeScript type is inferred from it, and validation turns every schema issue
  * into a Problem with the line of the key in the file and, for an unknown key, the nearest known one.
  */
+import { say } from '../common/problemMessages.ts';
 import { readFileSync } from 'node:fs';
 import { z } from 'zod';
 import { ProblemList } from './problems.ts';
@@ -492,7 +493,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       column: '',
       value: '',
       expected: 'a bulletin.json in the bulletin folder',
-      message: 'the configuration file cannot be read',
+      message: say('config-unreadable'),
     });
     return null;
   }
@@ -507,7 +508,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       column: '',
       value: '',
       expected: 'valid JSON',
-      message: `the configuration is not valid JSON: ${message}`,
+      message: say('config-not-json', { detail: message }),
     });
     return null;
   }
@@ -524,7 +525,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
             column: [...issue.path, key].join('.'),
             value: key,
             expected: suggestion ? `did you mean "${suggestion}"?` : `one of ${knownKeys(issue.path).join(', ')}`,
-            message: 'the configuration has an unknown key',
+            message: say('config-unknown-key'),
           });
         }
         continue;
@@ -536,7 +537,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
         column: issue.path.join('.'),
         value: '',
         expected: '',
-        message: issue.message,
+        message: say('config-invalid', { detail: issue.message }),
       });
     }
     return null;
@@ -550,7 +551,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       column: 'baseline',
       value: `${config.baseline.firstYear}-${config.baseline.lastYear}`,
       expected: 'firstYear no later than lastYear',
-      message: 'the baseline period ends before it starts',
+      message: say('config-baseline-order'),
     });
   }
   const bands = config.statusBands;
@@ -565,7 +566,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
       column: 'statusBands',
       value: '',
       expected: 'the first band with fromPercent null, then strictly rising bounds',
-      message: 'status bands must cover all values in rising order',
+      message: say('config-status-bands'),
     });
   }
   // An accent colour is text on the page and on the header, and the background of white text (templates/assets/site.css).
@@ -581,7 +582,7 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
         column: 'site.accentColour',
         value: accent,
         expected: `a colour with at least 4.5:1 contrast against ${against.map((entry) => `the ${entry.name} (${entry.ratio.toFixed(2)}:1)`).join(', ')}`,
-        message: `the accent colour is too light or too dark to read: ${worst.ratio.toFixed(2)}:1 against the ${worst.name}, below WCAG 2.2 AA (4.5:1)`,
+        message: say('config-accent-contrast', { ratio: worst.ratio.toFixed(2), against: worst.name }),
       });
   }
   // Configured colours must stay apart for every reader (common/statusColours.ts): a warning, since the agency may have its reasons.
@@ -595,7 +596,9 @@ export function readConfig(path: string, label: string, problems: ProblemList): 
         column: 'statusBands',
         value: statusColours(bands).join(' '),
         expected: 'status colours at least ΔE 20 apart, also with simulated deuteranopia and protanopia',
-        message: `status colours hard to tell apart: ${shortfalls.slice(0, 3).join('; ')}${shortfalls.length > 3 ? `; and ${shortfalls.length - 3} more` : ''}`,
+        message: say('status-colours-close', {
+          pairs: `${shortfalls.slice(0, 3).join('; ')}${shortfalls.length > 3 ? `; and ${shortfalls.length - 3} more` : ''}`,
+        }),
         params: { first: shortfalls[0] as string, count: shortfalls.length },
       });
   }

@@ -4,6 +4,7 @@
  * hang a read or never end), and stay under the size limit of its kind. Paths are relative, without
  * a NUL byte, and at most MAX_PATH_LENGTH characters.
  */
+import { say, type ProblemText } from '../common/problemMessages.ts';
 import { lstatSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { isAbsolute, join, relative, sep } from 'node:path';
 import { isInside } from '../common/paths.ts';
@@ -28,9 +29,10 @@ export const SIZE_LIMITS = {
 export type FileKind = keyof typeof SIZE_LIMITS;
 
 export class ConfinementError extends Error {
+  declare readonly message: ProblemText;
   constructor(
     readonly code: 'path-invalid' | 'path-outside' | 'file-missing' | 'not-regular-file' | 'file-too-large',
-    message: string,
+    message: ProblemText,
     readonly expected: string,
   ) {
     super(message);
@@ -45,49 +47,30 @@ export class ConfinementError extends Error {
  */
 export function resolveInside(root: string, path: string, kind: FileKind, allowFolder = false): string {
   if (path === '' || path.includes('\0') || path.length > MAX_PATH_LENGTH) {
-    throw new ConfinementError(
-      'path-invalid',
-      'the path is empty, too long or holds a NUL byte',
-      `a relative path of at most ${MAX_PATH_LENGTH} characters`,
-    );
+    throw new ConfinementError('path-invalid', say('path-invalid'), `a relative path of at most ${MAX_PATH_LENGTH} characters`);
   }
   if (isAbsolute(path) || /^[a-zA-Z]:[\\/]/.test(path)) {
-    throw new ConfinementError(
-      'path-outside',
-      'the path is absolute; inputs are named relative to the bulletin folder',
-      'a path relative to the bulletin folder',
-    );
+    throw new ConfinementError('path-outside', say('path-absolute'), 'a path relative to the bulletin folder');
   }
   const joined = join(root, path);
-  if (!isInside(root, joined))
-    throw new ConfinementError('path-outside', 'the path leads out of the bulletin folder', 'a path inside the bulletin folder');
+  if (!isInside(root, joined)) throw new ConfinementError('path-outside', say('path-outside'), 'a path inside the bulletin folder');
   let real: string;
   try {
     real = realpathSync(joined);
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
-    if (code === 'ELOOP')
-      throw new ConfinementError('path-invalid', 'the path is a loop of symbolic links', 'a file inside the bulletin folder');
-    throw new ConfinementError('file-missing', 'the file does not exist', 'an existing file');
+    if (code === 'ELOOP') throw new ConfinementError('path-invalid', say('path-link-loop'), 'a file inside the bulletin folder');
+    throw new ConfinementError('file-missing', say('file-missing'), 'an existing file');
   }
-  if (!isInside(root, real))
-    throw new ConfinementError(
-      'path-outside',
-      'the path is a symbolic link that leads out of the bulletin folder',
-      'a file inside the bulletin folder',
-    );
+  if (!isInside(root, real)) throw new ConfinementError('path-outside', say('path-link-outside'), 'a file inside the bulletin folder');
   const stat = statSync(real);
   if (stat.isDirectory() && allowFolder) return real;
   if (!stat.isFile())
-    throw new ConfinementError(
-      'not-regular-file',
-      stat.isDirectory() ? 'the path is a folder' : 'the path is not a regular file (a pipe, device or socket)',
-      'a regular file',
-    );
+    throw new ConfinementError('not-regular-file', stat.isDirectory() ? say('path-folder') : say('path-not-regular'), 'a regular file');
   if (stat.size > SIZE_LIMITS[kind])
     throw new ConfinementError(
       'file-too-large',
-      `the file is ${stat.size} bytes, above the limit of ${SIZE_LIMITS[kind]} for this kind`,
+      say('file-too-large', { size: stat.size, limit: SIZE_LIMITS[kind] }),
       `at most ${SIZE_LIMITS[kind]} bytes`,
     );
   return real;

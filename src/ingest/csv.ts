@@ -5,6 +5,7 @@
  * array of texts with its line number (CSV: the header is line 1; Parquet: row k is line k + 1, so
  * numbers mean the same in both) and a map from column name to position.
  */
+import { say } from '../common/problemMessages.ts';
 import { createReadStream, existsSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { listRegularFiles } from './confine.ts';
@@ -46,7 +47,7 @@ export async function readTable(
         column: '',
         value: '',
         expected: 'partitions as regular files inside the folder',
-        message: 'a symbolic link in a folder of partitions is not followed',
+        message: say('partition-link'),
       });
     }
     if (links.length > 0) return 0;
@@ -59,7 +60,7 @@ export async function readTable(
         column: '',
         value: '',
         expected: 'a file, or a folder with .parquet partitions',
-        message: 'the folder holds no .parquet file',
+        message: say('partition-none'),
       });
       return 0;
     }
@@ -80,7 +81,7 @@ export async function readTable(
       column: '',
       value: '',
       expected: 'an existing file',
-      message: 'the file does not exist',
+      message: say('file-missing'),
     });
     return 0;
   }
@@ -134,7 +135,7 @@ export async function readCsv(
                 column: '',
                 value: String(values.length),
                 expected: `${header.length} fields, as in the header`,
-                message: 'the row has the wrong number of fields',
+                message: say('field-count'),
               });
               continue;
             }
@@ -156,7 +157,7 @@ export async function readCsv(
       column: '',
       value: '',
       expected: 'UTF-8 text',
-      message: `the file is not UTF-8${guess}`,
+      message: say('file-not-utf8', { guess }),
     });
     return rows;
   }
@@ -176,7 +177,7 @@ async function readParquet(path: string, label: string, columns: ColumnSpec[], p
       column: '',
       value: '',
       expected: 'a Parquet file',
-      message: `cannot read the Parquet file: ${error instanceof Error ? error.message : String(error)}`,
+      message: say('parquet-unreadable', { detail: error instanceof Error ? error.message : String(error) }),
     });
     return 0;
   }
@@ -189,7 +190,7 @@ async function readParquet(path: string, label: string, columns: ColumnSpec[], p
       column: '',
       value: '',
       expected: 'at least one data row',
-      message: 'the file has no data rows',
+      message: say('file-no-rows'),
     });
     return 0;
   }
@@ -225,7 +226,7 @@ function finish(hadHeader: boolean, usable: boolean, rows: number, label: string
       column: '',
       value: '',
       expected: 'a header line and data rows',
-      message: 'the file is empty',
+      message: say('file-empty'),
     });
   } else if (usable && rows === 0) {
     problems.error({
@@ -235,7 +236,7 @@ function finish(hadHeader: boolean, usable: boolean, rows: number, label: string
       column: '',
       value: '',
       expected: 'at least one data row',
-      message: 'the file has a header but no data rows',
+      message: say('file-header-only'),
     });
   }
 }
@@ -251,7 +252,7 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
         column: column.name,
         value: '',
         expected: `a column named ${column.name}`,
-        message: 'a required column is missing',
+        message: say('column-missing'),
       });
       usable = false;
     }
@@ -266,7 +267,7 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
         column: name,
         value: name,
         expected: 'each column once',
-        message: 'a column name appears twice',
+        message: say('column-duplicate'),
       });
       usable = false;
     }
@@ -279,7 +280,7 @@ function checkHeader(header: string[], label: string, columns: ColumnSpec[], pro
         column: name,
         value: name,
         expected: columns.map((c) => c.name).join(', '),
-        message: 'an unknown column is ignored',
+        message: say('column-unknown'),
         params: { columns: columns.map((c) => c.name).join(', ') },
       });
     }

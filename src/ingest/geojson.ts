@@ -2,6 +2,7 @@
  * Sub-region boundaries from GeoJSON (RFC 7946). Rings are checked for closure and rewound to
  * clockwise exterior rings, the order d3-geo (and so Vega) expects; RFC 7946 asks the reverse.
  */
+import { say } from '../common/problemMessages.ts';
 import { readFileSync } from 'node:fs';
 import type { ProblemList } from './problems.ts';
 import { slugOf } from '../text/slug.ts';
@@ -69,7 +70,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
       column: '',
       value: '',
       expected: 'a GeoJSON FeatureCollection',
-      message: `cannot read the GeoJSON: ${message}`,
+      message: say('geojson-unreadable', { detail: message }),
     });
     return [];
   }
@@ -82,7 +83,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
       column: 'type',
       value: '',
       expected: 'a FeatureCollection',
-      message: 'the file is not a GeoJSON FeatureCollection',
+      message: say('geojson-not-collection'),
     });
     return [];
   }
@@ -99,7 +100,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         column: at,
         value: '',
         expected: 'a GeoJSON Feature object',
-        message: 'a feature is not an object',
+        message: say('geojson-feature'),
       });
       return;
     }
@@ -114,7 +115,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         column: `${at}.properties`,
         value: '',
         expected: 'subregion_id and name as text',
-        message: 'a feature lacks its sub-region id or name',
+        message: say('geojson-properties'),
       });
       return;
     }
@@ -126,7 +127,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         column: `${at}.properties`,
         value: id,
         expected: `an id of at most ${MAX_ID_LENGTH} and a name of at most ${MAX_NAME_LENGTH} characters`,
-        message: 'the sub-region id or name is too long',
+        message: say('geojson-too-long'),
       });
       return;
     }
@@ -141,7 +142,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         column: `${at}.properties.subregion_id`,
         value: id,
         expected: `an id that differs from "${other}" in more than case or punctuation`,
-        message: 'two sub-region ids would share one page address',
+        message: say('geojson-id-collision'),
       });
       return;
     }
@@ -156,7 +157,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
         column: `${at}.geometry`,
         value: String(geometry?.type ?? ''),
         expected: 'Polygon or MultiPolygon',
-        message: 'the feature has no polygon geometry',
+        message: say('geojson-geometry'),
       });
       return;
     }
@@ -170,7 +171,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
           column: `${at}.geometry`,
           value: '',
           expected: 'a polygon of at least one ring',
-          message: 'a polygon has no rings',
+          message: say('geojson-no-rings'),
         });
         return;
       }
@@ -186,7 +187,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
             column: `${at}.geometry`,
             value: '',
             expected: `at most ${MAX_POSITIONS} positions in all`,
-            message: 'the boundaries hold too many positions; simplify them',
+            message: say('geojson-too-large'),
           });
           return;
         }
@@ -199,7 +200,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
             column: `${at}.geometry`,
             value: JSON.stringify(list[bad]) ?? '',
             expected: 'a position [longitude, latitude] in degrees, longitude −180 to 180, latitude −90 to 90',
-            message: 'a position is not a valid longitude and latitude',
+            message: say('geojson-position'),
           });
           return;
         }
@@ -214,7 +215,7 @@ export function readBoundaries(path: string, label: string, problems: ProblemLis
             column: `${at}.geometry`,
             value: String(points.length),
             expected: 'a closed ring of at least 4 positions, the last equal to the first',
-            message: 'a polygon ring is not closed',
+            message: say('geojson-ring-open'),
           });
           return;
         }

@@ -2,6 +2,7 @@
  * Stage 1, ingest: reads a bulletin folder (configuration, tables, boundaries) into typed inputs
  * and one list of problems. Nothing here computes a statistic.
  */
+import { say } from '../common/problemMessages.ts';
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import { placeholderForeword } from '../text/index.ts';
@@ -151,7 +152,7 @@ export async function loadBulletin(folder: string, options: LoadOptions = {}): P
       column: '',
       value: '',
       expected,
-      message: error instanceof ConfinementError && code !== 'config-missing' ? error.message : 'the configuration file cannot be read',
+      message: error instanceof ConfinementError && code !== 'config-missing' ? error.message : say('config-unreadable'),
     });
     return { inputs: null, problems };
   }
@@ -313,7 +314,7 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
             column: '',
             value: '',
             expected: 'UTF-8 text',
-            message: 'the file is not UTF-8; convert it to UTF-8',
+            message: say('file-not-utf8-convert'),
           });
         else throw error;
       }
@@ -331,7 +332,7 @@ function readContent(root: string, config: BulletinConfig, problems: ProblemList
         column: '',
         value: text.trim(),
         expected: 'the foreword of this issue, or "draft": true in issue of bulletin.json',
-        message: 'the foreword is still the placeholder that limnopress init wrote; write the foreword, or keep the issue a draft',
+        message: say('content-placeholder'),
       });
     }
   }
@@ -361,7 +362,7 @@ function checkTranslations(
         column: '',
         value: locale,
         expected: label(translation),
-        message: `no ${locale} translation: the ${locale} pages show this text in the first language`,
+        message: say('content-untranslated', { locale }),
         params: { locale, translation: label(translation) },
       });
     }
@@ -399,7 +400,7 @@ function checkAreasOnCurves(
       column: 'area_ha',
       value: (bodies[body] as WaterBody).id,
       expected: `water areas from ${low} to ${high} ha`,
-      message: `${count} month(s) of observed water area lie outside the curve; storage is computed at the nearest end of the curve, never extrapolated`,
+      message: say('area-outside-curve', { count }),
       params: { count, low, high },
     });
   }
@@ -421,7 +422,7 @@ function checkTurbidityUnits(field: FieldRecord[], quality: QualityTable, label:
     column: 'unit',
     value: first.turbidityUnit ?? '',
     expected: `turbidity in ${quality.turbidityUnit}, the unit of the satellite table`,
-    message: `${other.length} field turbidity sample(s) are in another unit than the satellite turbidity (NTU and FNU are not interchangeable) and are left out of the comparison`,
+    message: say('turbidity-units-differ', { count: other.length }),
     params: { count: other.length },
   });
 }
@@ -452,7 +453,7 @@ function crossCheck(
           column: 'subregion_id',
           value: id,
           expected: `a feature with this subregion_id in ${paths.boundaries}`,
-          message: 'the sub-region has no boundary',
+          message: say('subregion-without-boundary'),
         });
       }
     }
@@ -478,7 +479,7 @@ function crossCheck(
         column: 'body_id',
         value: body.id,
         expected: `rows in ${paths.surfaceArea}`,
-        message: 'the water body has no surface-area data',
+        message: say('body-without-data'),
         params: { table: paths.surfaceArea },
       });
   });
@@ -490,7 +491,7 @@ function crossCheck(
       column: 'issue.month',
       value: config.issue.month,
       expected: `a month present in ${paths.surfaceArea}`,
-      message: 'the surface-area table has no row for the bulletin month',
+      message: say('bulletin-month-without-data'),
     });
   }
   const { firstYear: baselineFirst, lastYear: baselineLast } = config.baseline;
@@ -502,7 +503,7 @@ function crossCheck(
       column: 'baseline',
       value: `${baselineFirst}-${baselineLast}`,
       expected: `years within ${firstYear}-${lastYear}, the years of ${paths.surfaceArea}`,
-      message: 'the baseline period reaches beyond the surface-area data',
+      message: say('baseline-outside-data'),
     });
   }
   if (baselineLast >= yearOf(bulletinMonth)) {
@@ -513,7 +514,7 @@ function crossCheck(
       column: 'baseline.lastYear',
       value: String(baselineLast),
       expected: `a baseline ending before ${yearOf(bulletinMonth)}`,
-      message: `the baseline includes the bulletin year, so ${monthLabel(bulletinMonth)} is partly compared with itself`,
+      message: say('baseline-includes-bulletin-year', { month: monthLabel(bulletinMonth) }),
       params: { year: String(yearOf(bulletinMonth)), month: monthLabel(bulletinMonth) },
     });
   }

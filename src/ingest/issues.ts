@@ -4,6 +4,7 @@
  * with its own inputs so it can be rebuilt exactly as published. Each issue's inputs stay inside
  * its own folder; an entry of `archive/` that is a symbolic link is refused, never followed.
  */
+import { say } from '../common/problemMessages.ts';
 import { existsSync, lstatSync, readdirSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import type { HashCache } from '../common/files.ts';
@@ -75,7 +76,7 @@ export async function loadIssues(
       column: '',
       value: '',
       expected: 'an archived issue as a folder inside the bulletin folder',
-      message: 'an archive entry is a symbolic link; it is not followed',
+      message: say('archive-link'),
     });
   const seen = new Map<string, string>();
   for (const { folder: issueFolder, inputs } of issues) {
@@ -92,7 +93,7 @@ export async function loadIssues(
         column: 'issue',
         value: `${monthLabel(inputs.bulletinMonth)} revision ${inputs.config.issue.revision}`,
         expected: 'each month and revision once',
-        message: `the same issue and revision is also in ${other}`,
+        message: say('issue-twice', { other }),
       });
     seen.set(key, name);
   }

@@ -4,6 +4,7 @@
  * on its own; so an SVG with a script, an event handler, a javascript: address, embedded HTML or a
  * reference to anything but itself or an embedded image is refused, never cleaned.
  */
+import { say, type ProblemText } from '../common/problemMessages.ts';
 import { readFileSync } from 'node:fs';
 import { lineOfPath, type BulletinConfig } from './config.ts';
 import { ConfinementError, resolveInside } from './confine.ts';
@@ -33,7 +34,7 @@ const SVG_REFUSED: Array<[RegExp, string]> = [
 export function readLogo(root: string, config: BulletinConfig, problems: ProblemList, configLabel: string, configText = ''): Logo | null {
   const logo = config.site.logo;
   if (!logo) return null;
-  const fail = (value: string, expected: string, message: string) => {
+  const fail = (value: string, expected: string, message: ProblemText) => {
     problems.error({
       code: 'logo-invalid',
       file: configLabel,
@@ -57,17 +58,16 @@ export function readLogo(root: string, config: BulletinConfig, problems: Problem
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {
-    return fail(logo.path, 'a PNG or an SVG (UTF-8 text)', 'the logo is neither a PNG nor an SVG');
+    return fail(logo.path, 'a PNG or an SVG (UTF-8 text)', say('logo-not-image'));
   }
-  if (!/<svg[\s>]/.test(text.slice(0, 4096)))
-    return fail(logo.path, 'a PNG or an SVG (UTF-8 text)', 'the logo is neither a PNG nor an SVG');
+  if (!/<svg[\s>]/.test(text.slice(0, 4096))) return fail(logo.path, 'a PNG or an SVG (UTF-8 text)', say('logo-not-image'));
   for (const [pattern, what] of SVG_REFUSED) {
     const found = pattern.exec(text);
     if (found)
       return fail(
         found[0].trim().slice(0, 60),
         'an SVG that only draws: no scripts, event handlers, embedded HTML or links to other files',
-        `the SVG logo holds ${what} (line ${text.slice(0, found.index).split('\n').length}); remove it, or export the logo as PNG`,
+        say('logo-svg-active', { what, line: text.slice(0, found.index).split('\n').length }),
       );
   }
   return { bytes, type: 'svg', alt: logo.alt };

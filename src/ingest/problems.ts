@@ -4,6 +4,7 @@
  * data & methods page.
  */
 import type { ProblemCode } from '../common/problemCodes.ts';
+import { say, type ProblemText } from '../common/problemMessages.ts';
 
 export type Severity = 'error' | 'warning';
 
@@ -17,7 +18,8 @@ export interface Problem {
   column: string;
   value: string;
   expected: string;
-  message: string;
+  /** The catalogue's words (src/common/problemMessages.ts). */
+  message: ProblemText;
   /**
    * For warnings, which the site shows in every language: the figures of the message, to fill the
    * catalogue's `warning.<code>` sentence (the value found is always there as `value`).
@@ -87,7 +89,7 @@ export class ProblemList {
         column: '',
         value: '',
         expected: '',
-        message: `${count - PROBLEMS_KEPT_PER_KIND} more problem(s) of this kind (${sample.code}) not listed`,
+        message: say('more-problems', { count: count - PROBLEMS_KEPT_PER_KIND, code: sample.code }),
       });
     }
     return [...this.items, ...more].sort(

@@ -3,6 +3,7 @@
  * column, a value column and optionally a column naming the series. Every bad cell is a problem
  * with file, line and column; an empty value cell is a missing value.
  */
+import { say } from '../common/problemMessages.ts';
 import { readTable } from './csv.ts';
 import type { ProblemList } from './problems.ts';
 
@@ -80,7 +81,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
         column: columns.time,
         value: timeText,
         expected: `a time of at most ${MAX_MAGNITUDE} in size`,
-        message: 'the time is too large for the trend arithmetic',
+        message: say('time-too-large'),
       });
       return;
     }
@@ -92,7 +93,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
         column: columns.time,
         value: timeText,
         expected: 'YYYY-MM, YYYY-MM-DD or a number of years',
-        message: 'the time cannot be read',
+        message: say('time-invalid'),
       });
       return;
     }
@@ -107,7 +108,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
           column: columns.value,
           value: valueText,
           expected: 'a finite number, or nothing for a missing value',
-          message: 'the value is not a number',
+          message: say('value-not-number'),
         });
         return;
       }
@@ -119,7 +120,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
           column: columns.value,
           value: valueText,
           expected: `a number of at most ${MAX_MAGNITUDE} in size (rescale the unit)`,
-          message: 'the value is too large for the trend arithmetic',
+          message: say('value-too-large'),
         });
         return;
       }
@@ -139,7 +140,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
         column: columns.time,
         value: key,
         expected: `at most ${MAX_VALUES_PER_SERIES} values per series`,
-        message: `series "${key}" has ${list.length} values, more than the pairwise trend methods are run on`,
+        message: say('series-too-long', { key, count: list.length }),
       });
       continue;
     }
@@ -155,7 +156,7 @@ export async function readSeriesTable(path: string, label: string, columns: Seri
           column: columns.time,
           value: here.label,
           expected: 'each time once per series',
-          message: `series "${key}" already has this time on line ${before.line}`,
+          message: say('duplicate-time', { key, line: before.line }),
         });
       }
     }

@@ -3,6 +3,7 @@
  * water quality) are kept as typed columns, the small ones as records. A bad cell drops its row
  * and is reported with file, line and column; nothing is guessed.
  */
+import { say } from '../common/problemMessages.ts';
 import { slugOf } from '../text/slug.ts';
 import { isolateBidi } from '../text/bidi.ts';
 import { MAX_ID_LENGTH, MAX_NAME_LENGTH } from './geojson.ts';
@@ -60,7 +61,7 @@ class LaterMonths {
       column: 'month',
       value: String(this.count),
       expected: `months up to ${monthLabel(this.context.bulletinMonth)}`,
-      message: `${this.count} row(s) after the bulletin month are ignored (the first on this line)`,
+      message: say('month-after-bulletin', { count: this.count }),
       params: { count: this.count, month: monthLabel(this.context.bulletinMonth) },
     });
   }
@@ -69,14 +70,7 @@ class LaterMonths {
 function monthInRange(cells: CellReader, month: number, raw: string, line: number): boolean {
   if (Number.isNaN(month)) return false;
   if (month < FIRST_MONTH) {
-    cells.fail(
-      line,
-      'month',
-      raw,
-      'month-out-of-range',
-      `a month from ${monthLabel(FIRST_MONTH)} on`,
-      'the month is too early for satellite data',
-    );
+    cells.fail(line, 'month', raw, 'month-out-of-range', `a month from ${monthLabel(FIRST_MONTH)} on`, say('month-too-early'));
     return false;
   }
   return true;
@@ -108,18 +102,18 @@ export async function readInventory(path: string, label: string, context: ReadCo
         values[at.reference_area_ha!] ?? '',
         'value-out-of-range',
         'more than 0',
-        'a water body needs a reference area above 0',
+        say('reference-area-zero'),
       );
     const earlier = seen.get(body.id);
     if (earlier !== undefined) {
-      cells.fail(line, 'body_id', body.id, 'duplicate-id', 'each id once', `the id already appears on line ${earlier}`);
+      cells.fail(line, 'body_id', body.id, 'duplicate-id', 'each id once', say('duplicate-id', { line: earlier }));
       return;
     }
     seen.set(body.id, line);
     if (body.id.length > MAX_ID_LENGTH)
-      cells.fail(line, 'body_id', body.id, 'value-too-long', `an id of at most ${MAX_ID_LENGTH} characters`, 'the id is too long');
+      cells.fail(line, 'body_id', body.id, 'value-too-long', `an id of at most ${MAX_ID_LENGTH} characters`, say('id-too-long'));
     if (body.name.length > MAX_NAME_LENGTH)
-      cells.fail(line, 'name', body.name, 'value-too-long', `a name of at most ${MAX_NAME_LENGTH} characters`, 'the name is too long');
+      cells.fail(line, 'name', body.name, 'value-too-long', `a name of at most ${MAX_NAME_LENGTH} characters`, say('name-too-long'));
     // A body's page path comes from its id: two ids may not make the same path (S1 and s1).
     const slug = slugOf(body.id);
     const sameSlug = slugs.get(slug);
@@ -130,7 +124,7 @@ export async function readInventory(path: string, label: string, context: ReadCo
         body.id,
         'id-path-collision',
         `an id that differs from "${sameSlug.id}" (line ${sameSlug.line}) in more than case or punctuation`,
-        'two ids would share one page address',
+        say('id-path-collision'),
       );
     else slugs.set(slug, { id: body.id, line });
     if (cells.rowOk) bodies.push(body);
@@ -170,7 +164,7 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
       if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
       const position = index.get(id);
       if (position === undefined) {
-        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
         return;
       }
       if (seen.testAndSet(position, when)) {
@@ -186,7 +180,7 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
           column: 'water_area_ha',
           value: values[at.water_area_ha!] ?? '',
           expected: `at most 1.5 × the reference area (${reference} ha)`,
-          message: 'the water area is far above the reference area: check the units or the inventory',
+          message: say('area-above-reference'),
           params: { reference },
         });
       }
@@ -208,7 +202,7 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
     observedShare: share.done(),
     scenes: scenes.done(),
   };
-  reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'the same water body and month');
+  reportDuplicates(duplicates, table, lines.done(), label, context.problems, 'duplicate-row');
   return table;
 }
 
@@ -219,7 +213,7 @@ function reportDuplicates(
   lines: Int32Array,
   label: string,
   problems: ProblemList,
-  what: string,
+  id: 'duplicate-row' | 'duplicate-row-parameter',
   parameter?: Int32Array,
   parameters?: number[],
 ): void {
@@ -237,7 +231,7 @@ function reportDuplicates(
       column: 'month',
       value: monthLabel(duplicate.month),
       expected: 'one row per water body and month',
-      message: `${what} already appear on line ${earlier ?? '?'}`,
+      message: say(id, { line: earlier ?? '?' }),
     });
   });
 }
@@ -279,14 +273,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
         at.valid_pixels! >= 0 ? cells.number(values, at.valid_pixels!, 'valid_pixels', line, 0, Infinity, true) : Number.NaN;
       const code = QUALITY_PARAMETERS.indexOf(name as QualityParameter);
       if (name !== '' && code < 0)
-        cells.fail(
-          line,
-          'parameter',
-          name,
-          'parameter-unknown',
-          QUALITY_PARAMETERS.join(' or '),
-          'the parameter is not one the bulletin knows',
-        );
+        cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), say('parameter-unknown'));
       if (code >= 0 && unit !== '' && !QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].includes(unit)) {
         cells.fail(
           line,
@@ -294,7 +281,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
           unit,
           'unit-mismatch',
           QUALITY_UNITS[QUALITY_PARAMETERS[code] as QualityParameter].join(' or '),
-          `the unit does not match ${name}`,
+          say('unit-mismatch', { name }),
         );
       } else if (name === 'turbidity' && unit !== '') {
         // One turbidity unit a table: NTU and FNU are measured with different light and are not interchangeable.
@@ -306,7 +293,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
             unit,
             'unit-mixed',
             `${turbidityUnit.unit}, the turbidity unit of this table since line ${turbidityUnit.line}`,
-            'the table mixes NTU and FNU turbidity, which are not interchangeable: give every row in one unit (the one the retrieval was calibrated in)',
+            say('unit-mixed'),
           );
       }
       const present = found.filter((value) => !Number.isNaN(value));
@@ -317,13 +304,13 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
           found.map((v) => (Number.isNaN(v) ? '' : String(v))).join(' '),
           'quantiles-out-of-order',
           'p10 ≤ p25 ≤ median ≤ p75 ≤ p90',
-          'the quantiles are not in rising order',
+          say('quantiles-out-of-order'),
         );
       }
       if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
       const position = index.get(id);
       if (position === undefined) {
-        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
         return;
       }
       if ((seen[code] as SeenBits).testAndSet(position, when)) {
@@ -356,7 +343,7 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
     lines.done(),
     label,
     context.problems,
-    'the same water body, month and parameter',
+    'duplicate-row-parameter',
     table.parameter,
     duplicateParameters,
   );
@@ -387,7 +374,7 @@ export async function readRainfall(
         subRegionId,
         'unknown-subregion',
         'a sub-region of the boundaries file',
-        'the sub-region has no boundary',
+        say('subregion-without-boundary'),
       );
       return;
     }
@@ -400,7 +387,7 @@ export async function readRainfall(
         monthText,
         'duplicate-row',
         'one row per sub-region and month',
-        `the same sub-region and month already appear on line ${earlier}`,
+        say('duplicate-subregion-month', { line: earlier }),
       );
       return;
     }
@@ -425,23 +412,16 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
     const unit = cells.text(values, at.unit!, 'unit', line);
     const parameter = QUALITY_PARAMETERS.find((known) => known === name);
     if (name !== '' && !parameter)
-      cells.fail(
-        line,
-        'parameter',
-        name,
-        'parameter-unknown',
-        QUALITY_PARAMETERS.join(' or '),
-        'the parameter is not one the bulletin knows',
-      );
+      cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), say('parameter-unknown'));
     if (parameter && unit !== '' && !QUALITY_UNITS[parameter].includes(unit))
-      cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[parameter].join(' or '), `the unit does not match ${name}`);
+      cells.fail(line, 'unit', unit, 'unit-mismatch', QUALITY_UNITS[parameter].join(' or '), say('unit-mismatch', { name }));
     if (!cells.rowOk || !parameter) return;
     const date = new Date(day * 86_400_000);
     const month = date.getUTCFullYear() * 12 + date.getUTCMonth();
     if (later.skip(month, line)) return;
     const body = index.get(bodyId);
     if (body === undefined) {
-      cells.fail(line, 'body_id', bodyId, 'unknown-body', 'an id from the water-body inventory', 'the water body is not in the inventory');
+      cells.fail(line, 'body_id', bodyId, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
       return;
     }
     records.push({
@@ -483,16 +463,9 @@ export async function readDistributionBins(
       const count = cells.number(values, at.pixel_count!, 'pixel_count', line, 0);
       const parameter = QUALITY_PARAMETERS.find((known) => known === name);
       if (name !== '' && !parameter)
-        cells.fail(
-          line,
-          'parameter',
-          name,
-          'parameter-unknown',
-          QUALITY_PARAMETERS.join(' or '),
-          'the parameter is not one the bulletin knows',
-        );
+        cells.fail(line, 'parameter', name, 'parameter-unknown', QUALITY_PARAMETERS.join(' or '), say('parameter-unknown'));
       if (!Number.isNaN(lower) && !Number.isNaN(upper) && upper <= lower)
-        cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', 'the bin has no width');
+        cells.fail(line, 'bin_upper', values[at.bin_upper!] ?? '', 'bin-empty', 'bin_upper above bin_lower', say('bin-empty'));
       if (subRegionIds.size > 0 && subRegionId !== '' && !subRegionIds.has(subRegionId))
         cells.fail(
           line,
@@ -500,7 +473,7 @@ export async function readDistributionBins(
           subRegionId,
           'unknown-subregion',
           'a sub-region of the boundaries file',
-          'the sub-region has no boundary',
+          say('subregion-without-boundary'),
         );
       if (!cells.rowOk || !parameter || later.skip(month, line)) return;
       bins.push({ subRegionId, month, parameter, lower, upper, count, line });
@@ -546,14 +519,7 @@ export async function readStorageCurves(
     }
     const body = index.get(bodyId);
     if (body === undefined) {
-      cells.fail(
-        line,
-        'body_id',
-        bodyId,
-        'unknown-body',
-        'a water body of the inventory',
-        'the curve names a water body the inventory does not list',
-      );
+      cells.fail(line, 'body_id', bodyId, 'unknown-body', 'a water body of the inventory', say('curve-unknown-body'));
       return;
     }
     const list = rows.get(body) ?? [];
@@ -571,7 +537,7 @@ export async function readStorageCurves(
     const id = ids[body] as string;
     const first = Math.min(...list.map((row) => row.line));
     if (list.length < 2) {
-      cells.fail(first, 'body_id', id, 'curve-too-short', 'at least two rows per water body', 'a curve needs two or more elevations');
+      cells.fail(first, 'body_id', id, 'curve-too-short', 'at least two rows per water body', say('curve-too-short'));
       continue;
     }
     const sorted = [...list].sort((a, b) => a.elevation - b.elevation || a.line - b.line);
@@ -587,7 +553,7 @@ export async function readStorageCurves(
           later.text[0]!,
           'curve-duplicate-elevation',
           'one row per elevation',
-          `the elevation already appears on line ${Math.min(row.line, before.line)} for ${id}`,
+          say('curve-duplicate-elevation', { line: Math.min(row.line, before.line), id }),
         );
         ok = false;
       } else {
@@ -600,7 +566,7 @@ export async function readStorageCurves(
             row.text[falling.text]!,
             'curve-falls',
             `${falling.article} ${falling.key} of at least ${before[falling.key]} ${falling.unit} (line ${before.line}, a lower elevation)`,
-            `the ${falling.key} falls as the elevation rises for ${id}`,
+            say('curve-falls', { quantity: falling.key, id }),
           );
           ok = false;
         }
@@ -650,14 +616,7 @@ export async function readStorageFits(
       if (!cells.rowOk) return;
       const body = index.get(id);
       if (body === undefined) {
-        cells.fail(
-          line,
-          'body_id',
-          id,
-          'unknown-body',
-          'a water body of the inventory',
-          'the fit names a water body the inventory does not list',
-        );
+        cells.fail(line, 'body_id', id, 'unknown-body', 'a water body of the inventory', say('fit-unknown-body'));
         return;
       }
       if (!(maxAreaHa > minAreaHa)) {
@@ -667,17 +626,17 @@ export async function readStorageFits(
           values[at.max_area_ha!] ?? '',
           'value-out-of-range',
           `more than min_area_ha (${minAreaHa})`,
-          "the fit's area range is empty",
+          say('fit-range-empty'),
         );
         return;
       }
       if (withCurve.has(body)) {
-        cells.fail(line, 'body_id', id, 'duplicate-row', 'a curve or a fit per body, not both', 'the body already has a storage curve');
+        cells.fail(line, 'body_id', id, 'duplicate-row', 'a curve or a fit per body, not both', say('fit-and-curve'));
         return;
       }
       const earlier = seen.get(body);
       if (earlier !== undefined) {
-        cells.fail(line, 'body_id', id, 'duplicate-row', 'one fit per body', `the body already has a fit on line ${earlier}`);
+        cells.fail(line, 'body_id', id, 'duplicate-row', 'one fit per body', say('fit-twice', { line: earlier }));
         return;
       }
       seen.set(body, line);

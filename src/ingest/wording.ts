@@ -10,6 +10,7 @@
  * Warnings: a file for a language the issue does not publish, a key reworded in one language but
  * not another, a plural message reworded without its variants, a placeholder left out.
  */
+import { say, type ProblemText } from '../common/problemMessages.ts';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { BulletinConfig } from './config.ts';
@@ -44,7 +45,7 @@ export function readWording(
     const path = wordingPath(locale);
     if (!existsSync(join(root, path)) && !isLink(join(root, path))) continue;
     const file = label(path);
-    const error = (line: number, column: string, value: string, expected: string, message: string) =>
+    const error = (line: number, column: string, value: string, expected: string, message: ProblemText) =>
       problems.error({ code: 'wording-invalid', file, line, column, value, expected, message });
     let text: string;
     try {
@@ -52,7 +53,7 @@ export function readWording(
       text = new TextDecoder('utf-8', { fatal: true }).decode(bytes).replace(/^\uFEFF/, '');
     } catch (caught) {
       if (caught instanceof ConfinementError) error(0, '', '', caught.expected, caught.message);
-      else if (caught instanceof TypeError) error(0, '', '', 'UTF-8 text', 'the file is not UTF-8; convert it to UTF-8');
+      else if (caught instanceof TypeError) error(0, '', '', 'UTF-8 text', say('file-not-utf8-convert'));
       else throw caught;
       continue;
     }
@@ -61,11 +62,11 @@ export function readWording(
       raw = JSON.parse(text);
     } catch (caught) {
       const message = caught instanceof Error ? caught.message : String(caught);
-      error(jsonErrorLine(text, caught), '', '', 'valid JSON', `the wording is not valid JSON: ${message}`);
+      error(jsonErrorLine(text, caught), '', '', 'valid JSON', say('wording-not-json', { detail: message }));
       continue;
     }
     if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
-      error(1, '', '', 'a JSON object of catalogue keys and their words', 'the wording file is not a JSON object');
+      error(1, '', '', 'a JSON object of catalogue keys and their words', say('wording-not-object'));
       continue;
     }
     if (!config.locales.includes(locale as (typeof config.locales)[number])) {
@@ -76,7 +77,7 @@ export function readWording(
         column: '',
         value: locale,
         expected: `a language of "locales" in bulletin.json (${config.locales.join(', ')})`,
-        message: 'the issue is not published in this language, so this wording is not used',
+        message: say('wording-unused'),
       });
       continue;
     }
@@ -96,7 +97,7 @@ export function readWording(
           suggestion
             ? `did you mean "${suggestion}"?`
             : "a key of the tool's catalogue (content/locales/ of the tool) or band.<key> of a configured status band",
-          'the wording has a key the tool does not use',
+          say('wording-unknown-key'),
         );
         failed = true;
         continue;
@@ -107,7 +108,7 @@ export function readWording(
           key,
           typeof value === 'string' ? value.slice(0, 80) : JSON.stringify(value),
           `one line of text of 1 to ${MAX_WORDING_LENGTH} characters`,
-          'the words for this key are not one line of text',
+          say('wording-not-text'),
         );
         failed = true;
         continue;
@@ -120,7 +121,7 @@ export function readWording(
           key,
           extra.map((name) => `{${name}}`).join(' '),
           allowed.length > 0 ? `only the placeholders ${allowed.map((name) => `{${name}}`).join(' ')}` : 'no placeholders',
-          'the words use a placeholder the tool does not fill for this key',
+          say('wording-extra-placeholder'),
         );
         failed = true;
         continue;
@@ -134,7 +135,7 @@ export function readWording(
           column: key,
           value: dropped.map((name) => `{${name}}`).join(' '),
           expected: `the words keep ${allowed.map((name) => `{${name}}`).join(' ')}`,
-          message: 'the words leave out a figure or name the tool fills in; readers will not see it',
+          message: say('wording-drops-placeholder'),
         });
       own[key as keyof Messages] = value;
     }
@@ -152,7 +153,7 @@ export function readWording(
           column: key,
           value: missing.join(', '),
           expected: `words for ${missing.join(', ')} too`,
-          message: "the message has forms by count that keep the tool's words; reword them as well",
+          message: say('wording-plural-forms'),
         });
     }
     texts[locale] = text;
@@ -171,7 +172,7 @@ export function readWording(
         column: key,
         value: others.join(', '),
         expected: others.map((other) => wordingPath(other)).join(', ') + ` with ${key}`,
-        message: "the words are changed in this language only; the other languages keep the tool's",
+        message: say('wording-one-language'),
       });
     }
   }
@@ -187,7 +188,7 @@ export function readWording(
         column: 'statusBands',
         value: band.key,
         expected: `words for band.${band.key} in ${wordingPath(locale)} of the bulletin folder`,
-        message: `the status band has no words in ${locale}`,
+        message: say('config-band-words', { locale }),
       });
     }
   }

@@ -1,3 +1,4 @@
+import { say } from '../../src/common/problemMessages.ts';
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -56,7 +57,7 @@ describe('formatReport folds floods', () => {
       column: 'body_id',
       value: 'X',
       expected: 'an id from the water-body inventory',
-      message: 'the water body is not in the inventory',
+      message: say('unknown-body'),
     });
     const problems = [...Array.from({ length: 40 }, (_, k) => problem(k + 2)), problem(50, 'value-empty')];
     const report = formatReport(problems, { errors: 41, warnings: 0 });

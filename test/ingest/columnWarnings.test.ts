@@ -2,6 +2,7 @@
  * Warnings about extra input columns: named once in the build log however many issues carry the
  * same export, and on the data page only when tables.columnWarningsOnDataPage asks for it.
  */
+import { say } from '../../src/common/problemMessages.ts';
 import { cpSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -44,7 +45,14 @@ describe('column warnings', () => {
   });
 
   it('different places stay apart: another column or another file is its own line', () => {
-    const problem = { severity: 'warning' as const, code: 'column-unknown' as const, line: 1, value: 'x', expected: '', message: 'm' };
+    const problem = {
+      severity: 'warning' as const,
+      code: 'column-unknown' as const,
+      line: 1,
+      value: 'x',
+      expected: '',
+      message: say('column-unknown'),
+    };
     const folded = foldAcrossIssues([
       { ...problem, file: 'archive/2020-05/area.csv', column: 'x' },
       { ...problem, file: 'area.csv', column: 'y' },

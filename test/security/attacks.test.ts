@@ -4,6 +4,7 @@
  * concurrent and killed builds, crashes and silently accepted inputs). Every test that could touch a
  * published site compares its tree before and after.
  */
+import { say } from '../../src/common/problemMessages.ts';
 import { spawn, spawnSync } from 'node:child_process';
 import {
   existsSync,
@@ -491,9 +492,9 @@ describe('root cause first', () => {
     const { ProblemList } = await import('../../src/ingest/problems.ts');
     const list = new ProblemList();
     const base = { line: 2, column: '', value: '', expected: '' };
-    list.error({ ...base, code: 'unknown-body', file: 'area.csv', message: 'the water body is not in the inventory' });
-    list.error({ ...base, code: 'value-not-number', file: 'water-bodies.csv', message: 'the value is not a number' });
-    list.error({ ...base, code: 'config-invalid', file: 'bulletin.json', message: 'bad' });
+    list.error({ ...base, code: 'unknown-body', file: 'area.csv', message: say('unknown-body') });
+    list.error({ ...base, code: 'value-not-number', file: 'water-bodies.csv', message: say('value-not-number') });
+    list.error({ ...base, code: 'config-invalid', file: 'bulletin.json', message: say('config-invalid', { detail: 'bad' }) });
     expect(list.sorted().map((problem) => problem.file)).toEqual(['bulletin.json', 'water-bodies.csv', 'area.csv']);
   });
 });

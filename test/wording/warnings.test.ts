@@ -1,3 +1,4 @@
+import { say } from '../../src/common/problemMessages.ts';
 import { describe, expect, it } from 'vitest';
 import type { Problem } from '../../src/ingest/index.ts';
 import { warningText } from '../../src/wording/warnings.ts';
@@ -10,7 +11,7 @@ const above: Problem = {
   column: 'water_area_ha',
   value: '9000.5',
   expected: 'at most 1.5 × the reference area (4500.25 ha)',
-  message: 'the water area is far above the reference area: check the units or the inventory',
+  message: say('area-above-reference'),
   params: { reference: 4500.25 },
 };
 
@@ -36,9 +37,12 @@ describe('warningText', () => {
       column: 'x',
       value: 'y',
       expected: 'z',
-      message: 'something',
+      message: say('value-out-of-range'),
       params: {},
     };
-    expect(warningText(other, 'fr')).toMatchObject({ lang: 'en', text: 'warning bulletin.json [x]: something (found "y"; expected z)' });
+    expect(warningText(other, 'fr')).toMatchObject({
+      lang: 'en',
+      text: 'warning bulletin.json [x]: the value is out of range (found "y"; expected z)',
+    });
   });
 });
