@@ -90,7 +90,7 @@ export function regionalSeriesChart(model: BulletinModel): ChartDefinition {
     month: monthLabel(entry.month),
     filling: round(entry.fillingPercent),
     thisYear: Math.floor(entry.month / 12) === bulletinYear ? round(entry.fillingPercent) : null,
-    coverage: round(entry.coveragePercent),
+    coverage: round(100 * entry.coverageShare),
     ...band.values(entry.month),
   }));
   const x = { field: 'month', type: 'temporal', timeUnit: 'yearmonth', title: null, axis: { format: '%Y', tickCount: 'year' } } as const;
@@ -153,7 +153,7 @@ export function recentMonthsChart(model: BulletinModel): ChartDefinition {
       filling: round(entry.fillingPercent),
       rangeLow: moved ? round(entry.lowPercent) : null,
       rangeHigh: moved ? round(entry.highPercent) : null,
-      estimated: round(entry.estimatedPercent, 0),
+      estimated: round(100 * entry.estimatedShare, 0),
       ...band.values(entry.month),
       bulletin: entry.month === last ? round(entry.fillingPercent) : null,
     };

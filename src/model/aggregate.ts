@@ -14,12 +14,12 @@ export interface GroupMonth {
   month: number;
   /** Percent of reference area under water; null when coverage is too low. */
   fillingPercent: number | null;
-  /** Percent of the group's reference area observed. */
-  coveragePercent: number;
-  /** Percent of the group's reference area whose value was filled by interpolation. */
-  filledPercent: number;
-  /** Percent of the group's reference area estimated (fixed set, estimate.ts); 0 without estimation. */
-  estimatedPercent: number;
+  /** Share (0–1) of the group's reference area observed. */
+  coverageShare: number;
+  /** Share (0–1) of the group's reference area whose value was filled by interpolation. */
+  filledShare: number;
+  /** Share (0–1) of the group's reference area estimated (fixed set, estimate.ts); 0 without estimation. */
+  estimatedShare: number;
   /** The figure with every estimated body at the low / high end of its spread; null when no figure is stated. */
   lowPercent: number | null;
   highPercent: number | null;
@@ -38,7 +38,7 @@ export function aggregate(
   series: BodySeries,
   members: ArrayLike<number>,
   referenceHa: ArrayLike<number>,
-  minCoveragePercent: number,
+  minCoverageShare: number,
   keep?: (month: number) => boolean,
   basis?: EstimationBasis,
 ): GroupMonth[] {
@@ -85,15 +85,15 @@ export function aggregate(
     }
   }
   return slots.map((slot, s) => {
-    const coveragePercent = total > 0 ? (100 * (observed[s] as number)) / total : 0;
+    const coverageShare = total > 0 ? (observed[s] as number) / total : 0;
     const ref = reference[s] as number;
-    const stated = ref > 0 && coveragePercent >= minCoveragePercent;
+    const stated = ref > 0 && coverageShare >= minCoverageShare;
     return {
       month: series.firstMonth + slot,
       fillingPercent: stated ? (water[s] as number) / ref : null,
-      coveragePercent,
-      filledPercent: total > 0 ? (100 * (filled[s] as number)) / total : 0,
-      estimatedPercent: total > 0 ? (100 * (estimated[s] as number)) / total : 0,
+      coverageShare,
+      filledShare: total > 0 ? (filled[s] as number) / total : 0,
+      estimatedShare: total > 0 ? (estimated[s] as number) / total : 0,
       lowPercent: stated ? (low[s] as number) / ref : null,
       highPercent: stated ? (high[s] as number) / ref : null,
       bodiesWithValue: count[s] as number,

@@ -78,7 +78,7 @@ export interface IssueFigures {
    * without a row counts as unseen). Not the same as the coverage of a group figure, which counts
    * the reference area of the bodies seen well enough to use.
    */
-  seenSharePercent: number;
+  seenShare: number;
 }
 
 export interface PreparedModel {
@@ -132,7 +132,7 @@ export function issueFigures(inputs: BulletinInputs, prepared?: PreparedModel): 
       ownPage,
     })),
     bodyStatus: inputs.bodies.map((_, k) =>
-      statusOf(aggregate(series, [k], referenceAreas, 100 * config.coverage.minObservedShare, forStatus), bulletinMonth, config),
+      statusOf(aggregate(series, [k], referenceAreas, config.coverage.minObservedShare, forStatus), bulletinMonth, config),
     ),
     monitored: inputs.bodies.flatMap((body, k) => {
       if (!pageBodies.has(k)) return [];
@@ -163,7 +163,7 @@ export function issueFigures(inputs: BulletinInputs, prepared?: PreparedModel): 
     validation: validation(inputs),
     storage: storage(inputs, series),
     pages: { flagged: flagged.length, shown: pageBodies.size },
-    seenSharePercent: seenShare(inputs),
+    seenShare: seenShare(inputs),
   };
 }
 
@@ -178,5 +178,5 @@ function seenShare(inputs: BulletinInputs): number {
     if (area.month[k] !== inputs.bulletinMonth) continue;
     seen += (area.observedShare[k] as number) * (reference[area.body[k] as number] as number);
   }
-  return total > 0 ? (100 * seen) / total : 0;
+  return total > 0 ? seen / total : 0;
 }

@@ -42,10 +42,10 @@ export type Status =
   | {
       kind: 'stated';
       fillingPercent: number;
-      coveragePercent: number;
-      filledPercent: number;
+      coverageShare: number;
+      filledShare: number;
       /** Share of the reference area estimated (fixed set), and the figure's range from the estimates (estimate.ts). */
-      estimatedPercent: number;
+      estimatedShare: number;
       range: FigureRange;
       baseline: BaselineSummary;
       /** Filling minus the baseline median, in percentage points of reference area. */
@@ -61,12 +61,12 @@ export type Status =
       changeFromLastYear: number | null;
       changeFromPreviousMonth: number | null;
     }
-  | { kind: 'low-coverage'; coveragePercent: number; thresholdPercent: number }
+  | { kind: 'low-coverage'; coverageShare: number; thresholdShare: number }
   | {
       kind: 'short-baseline';
       fillingPercent: number;
-      coveragePercent: number;
-      estimatedPercent: number;
+      coverageShare: number;
+      estimatedShare: number;
       range: FigureRange;
       usableYears: number;
       neededYears: number;
@@ -97,9 +97,9 @@ export function bandFor(percentOfBaseline: number, bands: Array<{ key: string; f
 
 export function statusOf(series: GroupMonth[], bulletinMonth: number, config: BulletinConfig): GroupStatus {
   const current = series.find((entry) => entry.month === bulletinMonth);
-  const thresholdPercent = 100 * config.coverage.minRegionCoverage;
+  const thresholdShare = config.coverage.minRegionCoverage;
   if (!current || current.fillingPercent === null)
-    return { kind: 'low-coverage', coveragePercent: current?.coveragePercent ?? 0, thresholdPercent };
+    return { kind: 'low-coverage', coverageShare: current?.coverageShare ?? 0, thresholdShare };
   // Only the bulletin's calendar month enters its climatology.
   const same = series.filter((row) => row.month % 12 === bulletinMonth % 12);
   const entry = climatology(
@@ -111,8 +111,8 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
     return {
       kind: 'short-baseline',
       fillingPercent: current.fillingPercent,
-      coveragePercent: current.coveragePercent,
-      estimatedPercent: current.estimatedPercent,
+      coverageShare: current.coverageShare,
+      estimatedShare: current.estimatedShare,
       range: rangeOf(current, null),
       usableYears: entry?.count ?? 0,
       neededYears: config.baseline.minYears,
@@ -134,9 +134,9 @@ export function statusOf(series: GroupMonth[], bulletinMonth: number, config: Bu
   return {
     kind: 'stated',
     fillingPercent: current.fillingPercent,
-    coveragePercent: current.coveragePercent,
-    filledPercent: current.filledPercent,
-    estimatedPercent: current.estimatedPercent,
+    coverageShare: current.coverageShare,
+    filledShare: current.filledShare,
+    estimatedShare: current.estimatedShare,
     range: rangeOf(current, entry.median),
     baseline: {
       years,

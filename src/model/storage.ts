@@ -103,8 +103,8 @@ export interface StorageGroup {
   name: string;
   bodies: number;
   bodiesWithCurve: number;
-  /** Percent of the group's reference area whose bodies have a curve. */
-  curveSharePercent: number;
+  /** Share (0–1) of the group's reference area whose bodies have a curve. */
+  curveShare: number;
   capacityHm3: number;
   /** Storage in percent of capacity, month by month (GroupMonth of the bodies with a curve, weighted by capacity). */
   series: GroupMonth[];
@@ -118,7 +118,7 @@ export interface StorageGroup {
 export interface StorageFigures {
   methods: MethodId[];
   interpolation: 'pchip' | 'linear';
-  minCurveSharePercent: number;
+  minCurveShare: number;
   bodies: BodyStorage[];
   region: StorageGroup;
   subRegions: StorageGroup[];
@@ -178,10 +178,10 @@ export function storage(inputs: BulletinInputs, series: BodySeries): StorageFigu
     const curved = members.filter((body) => readers.has(body));
     const reference = members.reduce((sum, body) => sum + (inputs.bodies[body]?.referenceHa ?? 0), 0);
     const curvedReference = curved.reduce((sum, body) => sum + (inputs.bodies[body]?.referenceHa ?? 0), 0);
-    const curveSharePercent = reference > 0 ? (100 * curvedReference) / reference : 0;
+    const curveShare = reference > 0 ? curvedReference / reference : 0;
     const capacityHm3 = curved.reduce((sum, body) => sum + (capacity[body] as number), 0);
-    const monthly = aggregate(stored, curved, capacity, 100 * config.coverage.minRegionCoverage, undefined, basis);
-    const enough = curved.length > 0 && curveSharePercent >= 100 * config.storage.minCurveShare;
+    const monthly = aggregate(stored, curved, capacity, config.coverage.minRegionCoverage, undefined, basis);
+    const enough = curved.length > 0 && curveShare >= config.storage.minCurveShare;
     const status = enough ? statusOf(monthly, bulletinMonth, config) : null;
     const current = monthly.find((row) => row.month === bulletinMonth);
     const stated = enough && current && current.fillingPercent !== null ? current : null;
@@ -190,7 +190,7 @@ export function storage(inputs: BulletinInputs, series: BodySeries): StorageFigu
       name,
       bodies: members.length,
       bodiesWithCurve: curved.length,
-      curveSharePercent,
+      curveShare,
       capacityHm3,
       series: monthly,
       status,
@@ -204,7 +204,7 @@ export function storage(inputs: BulletinInputs, series: BodySeries): StorageFigu
   return {
     methods: ['storage', 'fixed-set', 'status'],
     interpolation,
-    minCurveSharePercent: 100 * config.storage.minCurveShare,
+    minCurveShare: config.storage.minCurveShare,
     bodies,
     region: group('region', config.region.name, all),
     subRegions: inputs.subRegions.map((subRegion) =>

@@ -77,7 +77,7 @@ export function groupStatus(inputs: BulletinInputs, series: BodySeries, members:
     series,
     members,
     referenceAreasOf(inputs),
-    100 * inputs.config.coverage.minRegionCoverage,
+    inputs.config.coverage.minRegionCoverage,
     statusMonths(inputs.bulletinMonth),
     estimationBasisOf(inputs, series),
   );
@@ -90,7 +90,7 @@ export function group(inputs: BulletinInputs, series: BodySeries, id: string, na
     series,
     members,
     referenceHa,
-    100 * inputs.config.coverage.minRegionCoverage,
+    inputs.config.coverage.minRegionCoverage,
     undefined,
     estimationBasisOf(inputs, series),
   );

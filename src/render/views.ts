@@ -60,6 +60,8 @@ function formatters(locale: string) {
             ? t('map.notEnough')
             : t(words.shortBaseline ?? 'view.notStated.shortBaseline'),
     pct: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, value, digits)),
+    /** A share (0–1) as a percent: the model holds shares, formatting prints them. */
+    share: (value: number | null | undefined, digits = 0) => (missing(value) ? '–' : formatPercent(locale, 100 * value, digits)),
     /**
      * A percent with its range from the estimated bodies (fixed set), when estimates move it: the
      * range is left out when it rounds to the value itself.
@@ -93,7 +95,7 @@ export function views(model: BulletinModel) {
   const f = formatters(model.meta.locale);
   const regionStatus = model.surfaceWater.region.status;
   const regionStated = regionStatus.kind === 'stated' ? regionStatus : null;
-  const { t, pct, ranged, statusWords } = f;
+  const { t, pct, share, ranged, statusWords } = f;
   const locale = model.meta.locale;
   return {
     monitored: monitoredRows(model, f),
@@ -111,8 +113,8 @@ export function views(model: BulletinModel) {
         regionStated?.range.percentOfBaselineHigh,
       ),
       band: statusWords(regionStatus),
-      coverage: pct(regionStatus.coveragePercent),
-      seen: pct(model.seenSharePercent, 1),
+      coverage: share(regionStatus.coverageShare),
+      seen: share(model.seenShare, 1),
       declines: t('view.countOf', { count: model.trends.bodies.declining, total: model.trends.bodies.tested }),
       shifted: t('view.countOf', { count: model.trends.bodies.shiftedDown, total: model.trends.bodies.tested }),
       deficit: deficitWords(model.surfaceWater.region.deficit, f, locale),
@@ -135,7 +137,7 @@ export function views(model: BulletinModel) {
 /** The surface-water page: the region's status, the sub-regions, the size classes and the grid. */
 function surfaceTables(model: BulletinModel, f: Formatters) {
   const locale = model.meta.locale;
-  const { t, pct, ranged, signed, statusWords } = f;
+  const { t, pct, share, ranged, signed, statusWords } = f;
   const cellsOf = (kind: Status['kind']) => model.grid.cells.filter((cell) => cell.status.kind === kind).length;
   // One decimal at most: a baseline of 10 to 30 years supports no more. Below 10 years there is none (STANDARDIZED_MIN_YEARS).
   // `value` undefined: no figure at all ('–'); null: a figure, but too few baseline years for this one.
@@ -160,7 +162,7 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
       standardizedText(stated?.standardized),
       stated ? rankWords(stated.rank) : '–',
       statusWords(s),
-      pct(s.coveragePercent),
+      share(s.coverageShare),
     ];
   };
   const statusColumns = [
@@ -217,9 +219,9 @@ function surfaceTables(model: BulletinModel, f: Formatters) {
           t('view.changeFrom', { month: formatMonth(locale, (parseMonth(model.meta.month) as number) - 1) }),
           signed(regionStated?.changeFromPreviousMonth),
         ],
-        [t('view.seen'), pct(regionStatus.coveragePercent)],
-        [t('view.filled'), pct(regionStated?.filledPercent)],
-        [t('view.estimated'), pct(regionStatus.kind === 'low-coverage' ? null : regionStatus.estimatedPercent)],
+        [t('view.seen'), share(regionStatus.coverageShare)],
+        [t('view.filled'), share(regionStated?.filledShare)],
+        [t('view.estimated'), share(regionStatus.kind === 'low-coverage' ? null : regionStatus.estimatedShare)],
       ],
     },
     {
@@ -510,7 +512,7 @@ export function paginate<T>(items: T[], base: string, size: number): Array<BodyL
 export function subRegionView(model: BulletinModel, id: string) {
   const locale = model.meta.locale;
   const f = formatters(locale);
-  const { t, pct, ranged, statusWords } = f;
+  const { t, pct, share, ranged, statusWords } = f;
   const group = model.surfaceWater.subRegions.find((entry) => entry.id === id);
   const trend = model.trends.subRegions.entries.find((entry) => entry.id === id);
   const rain = model.rainfall?.subRegions.find((entry) => entry.id === id);
@@ -553,8 +555,8 @@ export function subRegionView(model: BulletinModel, id: string) {
       ],
       [t('ui.status'), statusWords(status)],
       [t('ui.overview.deficit'), group ? deficitWords(group.deficit, f, locale) : '–'],
-      [t('view.seen'), pct(status?.coveragePercent)],
-      [t('view.estimated'), pct(status && status.kind !== 'low-coverage' ? status.estimatedPercent : null)],
+      [t('view.seen'), share(status?.coverageShare)],
+      [t('view.estimated'), share(status && status.kind !== 'low-coverage' ? status.estimatedShare : null)],
       [t('view.trendSinceFirst'), trend?.test ? formatNumber(locale, trend.test.slopePerYear, 2) : t('view.notTested')],
       [t('view.trendAdjusted'), trend ? t(`view.direction.${trend.direction}`) : t('view.notTested')],
       [
@@ -586,7 +588,7 @@ export function storageTable(model: BulletinModel): TableView | null {
   const storage = model.storage;
   if (!storage) return null;
   const locale = model.meta.locale;
-  const { t, pct, num, ranged, rangedNumber, statusWords } = formatters(locale);
+  const { t, pct, share, num, ranged, rangedNumber, statusWords } = formatters(locale);
   const row = (group: NonNullable<BulletinModel['storage']>['region']) => {
     const status = group.status;
     const stated = status?.kind === 'stated' ? status : null;
@@ -594,13 +596,13 @@ export function storageTable(model: BulletinModel): TableView | null {
       group.name,
       t('view.countOf', { count: group.bodiesWithCurve, total: group.bodies }),
       // One decimal: a share just under the minimum must not print as the minimum itself.
-      pct(group.curveSharePercent, 1),
+      share(group.curveShare, 1),
       num(group.capacityHm3, 1),
       rangedNumber(group.volumeHm3, group.volumeRangeHm3?.low, group.volumeRangeHm3?.high),
       status && status.kind !== 'low-coverage' ? ranged(status.fillingPercent, status.range.low, status.range.high) : '–',
       ranged(stated?.percentOfBaseline, stated?.range.percentOfBaselineLow, stated?.range.percentOfBaselineHigh),
       status ? statusWords(status) : t('view.storage.tooFewCurves'),
-      pct(status?.coveragePercent),
+      share(status?.coverageShare),
     ];
   };
   return {
@@ -618,7 +620,7 @@ export function storageTable(model: BulletinModel): TableView | null {
       t('view.seen'),
     ],
     rows: [row(storage.region), ...storage.subRegions.map(row)],
-    note: t('view.storage.note', { minShare: pct(storage.minCurveSharePercent) }),
+    note: t('view.storage.note', { minShare: share(storage.minCurveShare) }),
   };
 }
 

@@ -87,7 +87,7 @@ export interface BulletinModel {
   boundaries: IssueFigures['boundaries'];
   validation: IssueFigures['validation'];
   storage: IssueFigures['storage'];
-  seenSharePercent: IssueFigures['seenSharePercent'];
+  seenShare: IssueFigures['seenShare'];
   keyMessages: KeyMessage[];
   /** The sentence the overview leads with: the first key message, or the caveat that replaces it. */
   headline: string;
@@ -173,10 +173,10 @@ function wordModelInScope(
   if (figures.pages.flagged > figures.pages.shown)
     notices.push({ kind: 'notice', text: t('notice.pageCap', { flagged: figures.pages.flagged, shown: figures.pages.shown }) });
   const region = surface.region.status;
-  if (region.kind === 'stated' && region.filledPercent >= 1)
-    notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(region.filledPercent) }) });
-  if (region.kind !== 'low-coverage' && region.estimatedPercent >= 1)
-    notices.push({ kind: 'caveat', text: t('caveat.estimated', { month: monthName, estimated: pct(region.estimatedPercent) }) });
+  if (region.kind === 'stated' && region.filledShare >= 0.01)
+    notices.push({ kind: 'caveat', text: t('caveat.filled', { filled: pct(100 * region.filledShare) }) });
+  if (region.kind !== 'low-coverage' && region.estimatedShare >= 0.01)
+    notices.push({ kind: 'caveat', text: t('caveat.estimated', { month: monthName, estimated: pct(100 * region.estimatedShare) }) });
   if (figures.storage) notices.push({ kind: 'caveat', text: t('caveat.storage') });
   notices.push({ kind: 'caveat', text: t('caveat.baseline', baselineParams) });
   const baselineYears = config.baseline.lastYear - config.baseline.firstYear + 1;
@@ -235,7 +235,7 @@ function wordModelInScope(
     boundaries: figures.boundaries,
     validation: figures.validation,
     storage: figures.storage,
-    seenSharePercent: figures.seenSharePercent,
+    seenShare: figures.seenShare,
     keyMessages: key.messages,
     headline: key.messages[0]?.text ?? key.caveats[0] ?? '',
     notices,

@@ -92,7 +92,9 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
       link: 'surface-water/#status',
     });
   } else if (region.kind === 'low-coverage') {
-    caveats.push(t('caveat.keyCoverage', { month, coverage: pct(region.coveragePercent), threshold: pct(region.thresholdPercent) }));
+    caveats.push(
+      t('caveat.keyCoverage', { month, coverage: pct(100 * region.coverageShare), threshold: pct(100 * region.thresholdShare) }),
+    );
   } else {
     caveats.push(t('caveat.keyBaseline', { month, years: region.usableYears, needed: region.neededYears, calendarMonth }));
   }
@@ -124,7 +126,7 @@ export function keyMessages(input: KeyMessageInputs): { messages: KeyMessage[]; 
         percentOfCapacity: pct(stored.status.fillingPercent),
         percentOfBaseline: pct(stored.status.percentOfBaseline),
         calendarMonth,
-        curveShare: pct(stored.curveSharePercent),
+        curveShare: pct(100 * stored.curveShare),
       }),
       figure: { value: stored.volumeHm3, unit: 'hm³ stored', method: 'storage' },
       link: 'surface-water/#storage',
@@ -254,7 +256,7 @@ function rangeSentences(
 ): string[] {
   const { percentOfBaselineLow: low, percentOfBaselineHigh: high } = region.range;
   if (low === null || high === null || pct(low) === pct(high)) return [];
-  const sentences = [t('key.regionRange', { estimated: pct(region.estimatedPercent), low: pct(low), high: pct(high) })];
+  const sentences = [t('key.regionRange', { estimated: pct(100 * region.estimatedShare), low: pct(low), high: pct(high) })];
   const others = [bandFor(low, bands), bandFor(high, bands)].filter((key, k, all) => key !== region.bandKey && all.indexOf(key) === k);
   for (const key of others) sentences.push(t('key.regionBandUnsure', { band: t(bandKey(key)) }));
   return sentences;

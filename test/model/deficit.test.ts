@@ -17,9 +17,9 @@ function series(values2020: Array<number | null>): GroupMonth[] {
   const row = (month: number, fillingPercent: number | null): GroupMonth => ({
     month,
     fillingPercent,
-    coveragePercent: 100,
-    filledPercent: 0,
-    estimatedPercent: 0,
+    coverageShare: 1,
+    filledShare: 0,
+    estimatedShare: 0,
     lowPercent: null,
     highPercent: null,
     bodiesWithValue: 1,

@@ -114,7 +114,7 @@ function simulate(hiddenMonths: number, hideSubRegion = 'A', runs = 200) {
     errorFixed += Math.abs((fixed.fillingPercent as number) - full);
     errorSeenOnly += Math.abs(seenOnly - full);
     biasSeenOnly += seenOnly - full;
-    estimated += fixed.estimatedPercent;
+    estimated += 100 * fixed.estimatedShare;
   }
   return {
     inside: inside / runs,

@@ -26,7 +26,7 @@ describe('buildModel on the small bulletin', () => {
       .replace(/A,2020-06,([\d.]+),0\.95,3/, 'A,2020-06,$1,0.2,3')
       .replace(/B,2020-06,([\d.]+),0\.9,2/, 'B,2020-06,$1,0.1,2');
     const model = await modelOf({ 'area.csv': area });
-    expect(model.surfaceWater.region.status).toEqual({ kind: 'low-coverage', coveragePercent: 0, thresholdPercent: 50 });
+    expect(model.surfaceWater.region.status).toEqual({ kind: 'low-coverage', coverageShare: 0, thresholdShare: 0.5 });
     expect(model.keyMessages.map((message) => message.id)).not.toContain('region');
     expect(model.headline).toBe(
       'No regional figure is given for June 2020: clouds hid too much of the region (0% seen, at least 50% needed).',
@@ -181,9 +181,9 @@ describe('no value is null', () => {
 describe('the share actually seen', () => {
   it('weights each body’s observed share by its reference area, and counts a body without a row as unseen', async () => {
     // June 2020: A (10 ha) seen 0.95, B (200 ha) seen 0.9 → (9.5 + 180) / 210 = 90.238 %.
-    expect((await modelOf()).seenSharePercent).toBeCloseTo((100 * (0.95 * 10 + 0.9 * 200)) / 210, 10);
+    expect((await modelOf()).seenShare).toBeCloseTo((0.95 * 10 + 0.9 * 200) / 210, 12);
     // Without B's June row: 9.5 / 210 = 4.524 %.
     const area = miniFiles()['area.csv'].replace(/^B,2020-06,.*\n/m, '');
-    expect((await modelOf({ 'area.csv': area })).seenSharePercent).toBeCloseTo((100 * 9.5) / 210, 10);
+    expect((await modelOf({ 'area.csv': area })).seenShare).toBeCloseTo(9.5 / 210, 12);
   });
 });

@@ -91,7 +91,7 @@ describe('storage in the bulletin', () => {
     expect(Math.abs((body?.volumeHm3 as number) - 0.125 * 8.36 ** 2)).toBeLessThan(0.05);
     expect(body?.capacityHm3).toBe(12.5);
     // B is 200 of the region's 210 ha: curves cover 95.2 %, above the default half.
-    expect(storage.region.curveSharePercent).toBeCloseTo((100 * 200) / 210, 9);
+    expect(storage.region.curveShare).toBeCloseTo(200 / 210, 11);
     expect(storage.region.status?.kind).toBe('stated');
     expect(storage.region.volumeHm3).toBeCloseTo(body?.volumeHm3 as number, 9);
     // With a minimum share above 95.2 %, nothing is stated for the region, and the table says why.

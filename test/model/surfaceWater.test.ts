@@ -68,7 +68,7 @@ describe('surface water', () => {
     expect(status).toMatchObject({
       kind: 'stated',
       fillingPercent: 50,
-      coveragePercent: 100,
+      coverageShare: 1,
       percentOfBaseline: 62.5,
       anomalyPoints: -30,
       bandKey: 'lower',
@@ -87,7 +87,7 @@ describe('surface water', () => {
   it('statusOf(region) states no figure when too little of the region was seen', () => {
     // B seen over 50 % < 60 %: only A counts; coverage 100 / 400 = 25 % < 50 %.
     const data = inputs([...MAY_ROWS, ['A', may(2023), 50, 1], ['B', may(2023), 150, 0.5]]);
-    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({ kind: 'low-coverage', coveragePercent: 25, thresholdPercent: 50 });
+    expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({ kind: 'low-coverage', coverageShare: 0.25, thresholdShare: 0.5 });
   });
 
   it('statusOf(region) refuses a comparison with fewer baseline years than minYears', () => {
@@ -100,9 +100,9 @@ describe('surface water', () => {
     expect(surfaceWater(data, bodySeries(data)).region.status).toEqual({
       kind: 'short-baseline',
       fillingPercent: 50,
-      coveragePercent: 100,
+      coverageShare: 1,
       // Both bodies seen: nothing estimated, so the range is the figure itself.
-      estimatedPercent: 0,
+      estimatedShare: 0,
       range: { low: 50, high: 50, percentOfBaselineLow: null, percentOfBaselineHigh: null },
       usableYears: 1,
       neededYears: 3,
@@ -128,7 +128,7 @@ describe('surface water', () => {
     const series = bodySeries(data);
     const april = aggregate(series, [0, 1], [100, 300], 0).find((row) => row.month === may(2023) - 1);
     // April: A filled at 50 %, B seen at 50 % → (50·100 + 50·300)/400 = 50 %; seen 300 of 400 = 75 %; filled 25 %.
-    expect(april).toMatchObject({ fillingPercent: 50, coveragePercent: 75, filledPercent: 25, bodiesWithValue: 2 });
+    expect(april).toMatchObject({ fillingPercent: 50, coverageShare: 0.75, filledShare: 0.25, bodiesWithValue: 2 });
   });
 
   it('bandFor(percent, bands) takes the highest band whose lower bound is reached', () => {

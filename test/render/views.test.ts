@@ -201,11 +201,11 @@ describe('changes since the previous issue', () => {
     expect(same?.rows).toEqual([]);
     const previous = structuredClone(current);
     previous.meta = { ...previous.meta, monthName: 'April 2020', issuePath: '/issues/2020-04/' };
-    previous.surfaceWater.region.status = { kind: 'low-coverage', coveragePercent: 10, thresholdPercent: 50 };
+    previous.surfaceWater.region.status = { kind: 'low-coverage', coverageShare: 0.1, thresholdShare: 0.5 };
     const largest = [...current.bodies.keys()].sort(
       (a, b) => (current.bodies[b]?.referenceHa ?? 0) - (current.bodies[a]?.referenceHa ?? 0) || a - b,
     )[0] as number;
-    previous.bodyStatus[largest] = { kind: 'low-coverage', coveragePercent: 10, thresholdPercent: 50 };
+    previous.bodyStatus[largest] = { kind: 'low-coverage', coverageShare: 0.1, thresholdShare: 0.5 };
     const changes = changesSince(current, previous);
     expect(changes?.month).toBe('April 2020');
     expect(changes?.href).toBe('/issues/2020-04/');
@@ -237,8 +237,9 @@ describe('the overview figures', () => {
           region.range.percentOfBaselineLow as number,
           region.range.percentOfBaselineHigh as number,
         ],
-        coverage: [region.coveragePercent],
-        seen: [model.seenSharePercent],
+        // Shares (0–1) in the model, printed as percents.
+        coverage: [100 * region.coverageShare],
+        seen: [100 * model.seenShare],
         declines: [model.trends.bodies.declining, model.trends.bodies.tested],
         shifted: [model.trends.bodies.shiftedDown, model.trends.bodies.tested],
         unstated: [
