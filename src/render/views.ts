@@ -588,7 +588,7 @@ export function storageTable(model: BulletinModel): TableView | null {
   const storage = model.storage;
   if (!storage) return null;
   const locale = model.meta.locale;
-  const { t, pct, share, num, ranged, rangedNumber, statusWords } = formatters(locale);
+  const { t, share, num, ranged, rangedNumber, statusWords } = formatters(locale);
   const row = (group: NonNullable<BulletinModel['storage']>['region']) => {
     const status = group.status;
     const stated = status?.kind === 'stated' ? status : null;
