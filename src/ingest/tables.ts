@@ -67,6 +67,13 @@ class LaterMonths {
   }
 }
 
+/** The inventory position of a row's water body, or undefined after reporting an id the inventory does not list. */
+function inventoryPosition(cells: CellReader, index: Map<string, number>, id: string, line: number): number | undefined {
+  const position = index.get(id);
+  if (position === undefined) cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
+  return position;
+}
+
 function monthInRange(cells: CellReader, month: number, raw: string, line: number): boolean {
   if (Number.isNaN(month)) return false;
   if (month < FIRST_MONTH) {
@@ -162,11 +169,8 @@ export async function readSurfaceArea(path: string, label: string, bodies: Water
       const waterHa = cells.number(values, at.water_area_ha!, 'water_area_ha', line, 0, Infinity, observed === 0);
       const sceneCount = at.scenes! >= 0 ? cells.number(values, at.scenes!, 'scenes', line, 0, Infinity, true) : Number.NaN;
       if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
-      const position = index.get(id);
-      if (position === undefined) {
-        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
-        return;
-      }
+      const position = inventoryPosition(cells, index, id, line);
+      if (position === undefined) return;
       if (seen.testAndSet(position, when)) {
         duplicates.push({ body: position, month: when, line });
         return;
@@ -308,11 +312,8 @@ export async function readQuality(path: string, label: string, bodies: WaterBody
         );
       }
       if (!cells.rowOk || !monthInRange(cells, when, monthText, line) || later.skip(when, line)) return;
-      const position = index.get(id);
-      if (position === undefined) {
-        cells.fail(line, 'body_id', id, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
-        return;
-      }
+      const position = inventoryPosition(cells, index, id, line);
+      if (position === undefined) return;
       if ((seen[code] as SeenBits).testAndSet(position, when)) {
         duplicates.push({ body: position, month: when, line });
         duplicateParameters.push(code);
@@ -419,11 +420,8 @@ export async function readField(path: string, label: string, bodies: WaterBody[]
     const date = new Date(day * 86_400_000);
     const month = date.getUTCFullYear() * 12 + date.getUTCMonth();
     if (later.skip(month, line)) return;
-    const body = index.get(bodyId);
-    if (body === undefined) {
-      cells.fail(line, 'body_id', bodyId, 'unknown-body', 'an id from the water-body inventory', say('unknown-body'));
-      return;
-    }
+    const body = inventoryPosition(cells, index, bodyId, line);
+    if (body === undefined) return;
     records.push({
       bodyId,
       body,
