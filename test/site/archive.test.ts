@@ -218,6 +218,28 @@ describe('the overview on narrow and wide screens', () => {
     }
   });
 
+  it('prints a folded table whole: its last row is drawn in print, and not on screen while folded', async () => {
+    const server = await serveFolder(site);
+    try {
+      const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+      const page = await context.newPage();
+      await page.goto(`${server.origin}/issues/2026-11/surface-water/`);
+      const lastRow = page.locator('details.table-fold:not([open]) tbody tr:last-child').first();
+      expect(await page.locator('details.table-fold:not([open])').count()).toBeGreaterThan(0);
+      // On screen the fold hides the rows; printed, the same closed fold shows them.
+      expect(await lastRow.isVisible()).toBe(false);
+      await page.emulateMedia({ media: 'print' });
+      expect(await lastRow.isVisible()).toBe(true);
+      const height = await lastRow.evaluate(
+        (row) => (row as unknown as { getBoundingClientRect(): { height: number } }).getBoundingClientRect().height,
+      );
+      expect(height).toBeGreaterThan(0);
+      await context.close();
+    } finally {
+      await server.close();
+    }
+  });
+
   it('reflows every kind of page at 320 px in both languages (tables scroll inside their own box)', async () => {
     const server = await serveFolder(site);
     const kinds = [
