@@ -63,9 +63,11 @@ function regionBand(model: BulletinModel) {
  * nothing was revised, so tables without revisions keep their shape.
  */
 function revisedColumn(model: BulletinModel): { columns: string[]; cell: (month: string) => string[] } {
-  if (model.revised.length === 0) return { columns: [], cell: () => [] };
+  // The charts draw the region: only its own revisions.
+  const regional = model.revised.filter((entry) => entry.figure.kind === 'region');
+  if (regional.length === 0) return { columns: [], cell: () => [] };
   const t = translator(model.meta.locale);
-  const byMonth = new Map(model.revised.map((entry) => [entry.month, entry]));
+  const byMonth = new Map(regional.map((entry) => [entry.month, entry]));
   return {
     columns: [t('chart.revised.column')],
     cell: (month) => {

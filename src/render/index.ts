@@ -93,6 +93,7 @@ export function issueData(bundle: IssueBundle, all: IssueBundle[]) {
     view: views(model),
     changes: changesSince(model, position > 0 ? (current[position - 1]?.model ?? null) : null),
     revisedFigures: revisedFigures(model),
+    regionRevisions: model.revised.filter((entry) => entry.figure.kind === 'region').length,
     content: renderMarkdown(bundle.content, locale, bundle.firstLocale ?? locale),
     cardUrl: siteUrl(model.meta.baseUrl, `${issue}card.png`),
     pageUrl: siteUrl(model.meta.baseUrl, issue),

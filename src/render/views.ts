@@ -685,8 +685,13 @@ export function revisedFigures(model: BulletinModel): TableView | null {
   return {
     id: 'revised',
     caption: t('view.revised.caption'),
-    columns: [t('chart.month'), t('view.revised.printedIn'), t('view.revised.printed'), t('view.revised.now')],
-    rows: model.revised.map((entry) => [
+    columns: [t('view.revised.figure'), t('chart.month'), t('view.revised.printedIn'), t('view.revised.printed'), t('view.revised.now')],
+    // The region's months first, then each sub-region's and size class's, in the order found.
+    rows: [
+      ...model.revised.filter((entry) => entry.figure.kind === 'region'),
+      ...model.revised.filter((entry) => entry.figure.kind !== 'region'),
+    ].map((entry) => [
+      entry.figure.kind === 'region' ? model.meta.region : entry.figure.name,
       entry.issueMonthName,
       t('view.revised.issue', { month: entry.issueMonthName, revision: entry.revision }),
       pct(entry.printedPercent, 1),

@@ -28,6 +28,8 @@ export interface Notice {
 
 /** A month an earlier issue printed with another value than this issue gives (wording/revisions.ts). */
 export interface PrintedEarlier {
+  /** Whose figure: the region, a sub-region or a size class (by id; a size class also by its bounds), with its name. */
+  figure: { kind: 'region' | 'sub-region' | 'size-class'; id: string; name: string };
   /** The month the figure is for, `YYYY-MM`. */
   month: string;
   /** Share of the reference area covered by water, in percent, as the earlier issue printed it. */

@@ -158,9 +158,18 @@ describe('revised figures', () => {
       kind: 'stated',
       fillingPercent: may.fillingPercent - 3,
     } as typeof earlier.surfaceWater.region.status;
+    // Its sub-regions and size classes printed what this issue gives them for May: no revision there.
+    for (const group of [...earlier.surfaceWater.subRegions, ...earlier.surfaceWater.sizeClasses]) {
+      const value = group.series.find((row) => row.month === 2020 * 12 + 4)?.fillingPercent ?? null;
+      group.status =
+        value === null
+          ? { kind: 'low-coverage', coverageShare: 0, thresholdShare: 0.5 }
+          : ({ ...(group.status as object), kind: 'stated', fillingPercent: value } as typeof group.status);
+    }
     const revised = printedEarlier(current, [earlier]);
     expect(revised).toEqual([
       {
+        figure: { kind: 'region', id: current.surfaceWater.region.id, name: current.surfaceWater.region.name },
         month: '2020-05',
         printedPercent: may.fillingPercent - 3,
         nowPercent: may.fillingPercent,
@@ -170,7 +179,7 @@ describe('revised figures', () => {
     ]);
     const table = revisedFigures({ ...current, revised });
     expect(table?.rows).toHaveLength(1);
-    expect(table?.rows[0]?.[0]).toBe('May 2020');
+    expect(table?.rows[0]?.slice(0, 2)).toEqual([current.meta.region, 'May 2020']);
     expect(revisedFigures(current)).toBeNull();
     // The charts' tables say it beside the month, in a column only tables with revisions carry.
     for (const chart of [regionalSeriesChart, recentMonthsChart]) {
@@ -183,6 +192,26 @@ describe('revised figures', () => {
       expect(rows.filter((row) => row[row.length - 1] !== '')).toHaveLength(1);
       expect(chart(current).table.columns).not.toContain('Printed earlier');
     }
+    // A sub-region's figure revised is listed too, by its name, and stays out of the region's charts.
+    const group = current.surfaceWater.subRegions[0]!;
+    const groupMay = group.series.find((row) => row.month === 2020 * 12 + 4)?.fillingPercent;
+    if (groupMay === null || groupMay === undefined) throw new Error('the mini bulletin has a sub-region figure for May 2020');
+    const both = structuredClone(earlier);
+    const thenGroup = both.surfaceWater.subRegions[0]!;
+    thenGroup.status = { ...(thenGroup.status as object), kind: 'stated', fillingPercent: groupMay + 2 } as typeof thenGroup.status;
+    const withGroup = printedEarlier(current, [both]);
+    expect(withGroup.map((entry) => [entry.figure.kind, entry.figure.name, entry.printedPercent])).toEqual([
+      ['region', current.surfaceWater.region.name, may.fillingPercent - 3],
+      ['sub-region', group.name, groupMay + 2],
+    ]);
+    expect(revisedFigures({ ...current, revised: withGroup })?.rows.map((row) => row[0])).toEqual([current.meta.region, group.name]);
+    expect(regionalSeriesChart({ ...current, revised: withGroup }).table.rows.filter((row) => row[row.length - 1] !== '')).toHaveLength(1);
+    // A size class whose bounds were reconfigured is another group: no revision against it.
+    const moved = structuredClone(earlier);
+    const thenClass = moved.surfaceWater.sizeClasses[0]!;
+    thenClass.fromHa += 1;
+    thenClass.status = { ...(thenClass.status as object), kind: 'stated', fillingPercent: -50 } as typeof thenClass.status;
+    expect(printedEarlier(current, [moved]).map((entry) => entry.figure.kind)).toEqual(['region']);
     // The same value to one decimal is no revision.
     (earlier.surfaceWater.region.status as { fillingPercent: number }).fillingPercent = may.fillingPercent + 0.01;
     expect(printedEarlier(current, [earlier])).toEqual([]);
