@@ -57,7 +57,7 @@ export function chartCount(model: BulletinModel): number {
 export async function buildCharts(model: BulletinModel, onChart?: (id: string) => void): Promise<ChartSet> {
   const charts: Record<string, RenderedChart> = {};
   for (const definition of chartDefinitions(model)) {
-    charts[definition.id] = await renderChart(definition, { png: true, locale: model.meta.locale });
+    charts[definition.id] = await renderChart(definition, { png: true, narrow: true, locale: model.meta.locale });
     onChart?.(definition.id);
   }
   const sparklines: Record<string, string> = {};

@@ -9,6 +9,7 @@ import { compile, type TopLevelSpec } from 'vega-lite';
 
 import { escapeXml } from '../text/escape.ts';
 import { withChartLocale } from './locales.ts';
+import { narrowSpec } from './narrow.ts';
 import { CHART_FONT } from './palettes.ts';
 
 export const VEGA_LITE_SCHEMA = 'https://vega.github.io/schema/vega-lite/v6.json';
@@ -42,6 +43,8 @@ export interface RenderedChart {
   csv: string;
   /** PNG copy for print and slides, at twice the SVG's size; null when not asked for. */
   png: Buffer | null;
+  /** The narrow variant for phone screens (narrow.ts), its ids suffixed `-narrow`; null when not asked for. */
+  narrowSvg: string | null;
   table: DataTable;
 }
 
@@ -61,8 +64,24 @@ export function toCsv(table: DataTable): string {
 }
 
 /** `locale` sets the axes' number and date formats (see locales.ts); English is Vega's own. */
-export async function renderChart(chart: ChartDefinition, { png = false, locale = 'en' } = {}): Promise<RenderedChart> {
-  const localized = withChartLocale(chart.spec, locale);
+export async function renderChart(chart: ChartDefinition, { png = false, narrow = false, locale = 'en' } = {}): Promise<RenderedChart> {
+  const { svg, spec } = await drawChart(chart, chart.spec, chart.id, locale);
+  return {
+    id: chart.id,
+    title: chart.title,
+    description: chart.description,
+    svg,
+    png: png ? await svgToPng(svg, 144) : null,
+    narrowSvg: narrow ? (await drawChart(chart, narrowSpec(chart.spec), `${chart.id}-narrow`, locale)).svg : null,
+    specJson: JSON.stringify(spec, null, 2) + '\n',
+    csv: toCsv(chart.table),
+    table: chart.table,
+  };
+}
+
+/** One drawing of a chart's spec: the SVG, its ids prefixed with `id`, and the full spec drawn. */
+async function drawChart(chart: ChartDefinition, chartSpec: TopLevelSpec, id: string, locale: string) {
+  const localized = withChartLocale(chartSpec, locale);
   const spec: TopLevelSpec = {
     ...localized,
     config: {
@@ -87,17 +106,7 @@ export async function renderChart(chart: ChartDefinition, { png = false, locale 
   const view = new vega.View(vega.parse(compiled), { renderer: 'none' });
   const raw = await view.toSVG();
   view.finalize();
-  const svg = accessibleSvg(prefixIds(raw, chart.id), chart);
-  return {
-    id: chart.id,
-    title: chart.title,
-    description: chart.description,
-    svg,
-    png: png ? await svgToPng(svg, 144) : null,
-    specJson: JSON.stringify(spec, null, 2) + '\n',
-    csv: toCsv(chart.table),
-    table: chart.table,
-  };
+  return { svg: accessibleSvg(prefixIds(raw, id), chart, id), spec };
 }
 
 function prefixIds(svg: string, prefix: string): string {
@@ -112,9 +121,9 @@ function prefixIds(svg: string, prefix: string): string {
  * it. Vega's per-mark roles and labels are removed so assistive technology meets one image, not
  * hundreds of unlabelled marks.
  */
-function accessibleSvg(svg: string, chart: ChartDefinition): string {
-  const titleId = `${chart.id}-title`;
-  const descId = `${chart.id}-desc`;
+function accessibleSvg(svg: string, chart: ChartDefinition, id = chart.id): string {
+  const titleId = `${id}-title`;
+  const descId = `${id}-desc`;
   const ariaAttributes = /\s(?:role|aria-roledescription|aria-label|aria-hidden)="[^"]*"/g;
   const quiet = svg.replace(/<([a-z]+)\b([^>]*)>/g, (tag, name: string, attributes: string) =>
     name === 'svg' ? tag : `<${name}${attributes.replace(ariaAttributes, '')}>`,

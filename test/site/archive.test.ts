@@ -207,12 +207,67 @@ describe('the overview on narrow and wide screens', () => {
           for (const id of shown) {
             // The top of the chart's drawing (its SVG) lies within the first screen.
             const top = await page
-              .locator(`#${id} svg[role="img"]`)
+              .locator(`#${id} svg[role="img"]:visible`)
               .evaluate((svg) => (svg as unknown as { getBoundingClientRect(): { top: number } }).getBoundingClientRect().top);
             expect(top, `${path} at ${width} px: ${id}`).toBeLessThan(height);
           }
           await context.close();
         }
+    } finally {
+      await server.close();
+    }
+  });
+
+  it('draws no chart text smaller than 11 CSS px at 360 px, and the wide drawing at 1280 px (both languages)', async () => {
+    const server = await serveFolder(site);
+    try {
+      for (const [width, narrow] of [
+        [360, true],
+        [1280, false],
+      ] as const) {
+        const context = await browser.newContext({ viewport: { width, height: 900 } });
+        const page = await context.newPage();
+        let measured = 0;
+        for (const issue of ['/issues/2026-11/', '/fr/issues/2026-11/'])
+          for (const kind of ['', 'surface-water/', 'water-quality/']) {
+            await page.goto(`${server.origin}${issue}${kind}`);
+            // Each visible chart's smallest text, in CSS px: font size times the drawing's scale on screen.
+            const charts = await page.evaluate(() => {
+              type Box = { a: number; b: number };
+              type Node = {
+                textContent: string | null;
+                getScreenCTM(): Box | null;
+                closest(selector: string): { id: string; className: string } | null;
+                checkVisibility(): boolean;
+                querySelectorAll(selector: string): ArrayLike<Node>;
+              };
+              const scope = globalThis as unknown as {
+                document: { querySelectorAll(selector: string): ArrayLike<Node> };
+                getComputedStyle(node: Node): { fontSize: string };
+              };
+              return Array.from(scope.document.querySelectorAll('.chart svg[role="img"]'))
+                .filter((svg) => svg.checkVisibility())
+                .map((svg) => {
+                  let smallest = Infinity;
+                  for (const text of Array.from(svg.querySelectorAll('text'))) {
+                    const ctm = text.getScreenCTM();
+                    if (!ctm || !text.textContent?.trim()) continue;
+                    smallest = Math.min(smallest, parseFloat(scope.getComputedStyle(text).fontSize) * Math.hypot(ctm.a, ctm.b));
+                  }
+                  const holder = svg.closest('.chart-narrow, .chart-wide');
+                  return { id: svg.closest('.chart')?.id ?? '', smallest, narrow: holder?.className === 'chart-narrow' };
+                });
+            });
+            for (const chart of charts) {
+              expect(chart.narrow, `${issue}${kind} ${chart.id} at ${width} px`).toBe(narrow);
+              if (narrow) expect(chart.smallest, `${issue}${kind} ${chart.id}`).toBeGreaterThanOrEqual(11);
+            }
+            measured += charts.length;
+          }
+        // 19 charts of the example per language: every one was measured.
+        expect(measured).toBeGreaterThanOrEqual(2 * 19);
+        await context.close();
+      }
     } finally {
       await server.close();
     }
