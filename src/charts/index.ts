@@ -1,6 +1,7 @@
 /** Stage 3, charts: chart definitions from the model, rendered to accessible SVG and PNG. */
 import type { BulletinModel } from '../wording/index.ts';
 import { cardSvg } from './card.ts';
+import { briefingPdf } from './briefing.ts';
 import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
 import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';
 import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from './render.ts';
@@ -23,6 +24,8 @@ export interface ChartSet {
   /** Sparkline SVG per monitored body id (no PNG or downloads: the table row carries the figures). */
   sparklines: Record<string, string>;
   card: { svg: string; png: Buffer };
+  /** The issue's one-page briefing (briefing.ts). */
+  briefing: Buffer;
 }
 
 export function chartDefinitions(model: BulletinModel): ChartDefinition[] {
@@ -68,5 +71,7 @@ export async function buildCharts(model: BulletinModel, onChart?: (id: string) =
     onChart?.(`sparkline of ${body.id}`);
   }
   const svg = cardSvg(model);
-  return { charts, sparklines, card: { svg, png: await svgToPng(svg) } };
+  // The issue's own address, as the pages give it (siteFiles.siteUrl).
+  const pageUrl = new URL(model.meta.issuePath.replace(/^\//, ''), model.meta.baseUrl).href;
+  return { charts, sparklines, card: { svg, png: await svgToPng(svg) }, briefing: await briefingPdf(model, charts, pageUrl) };
 }

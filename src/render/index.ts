@@ -313,6 +313,7 @@ export function* downloadFiles(model: BulletinModel, chartSet: ChartSet): Genera
     content: `${model.bodies.length > COMPACT_MODEL_FROM ? JSON.stringify(model) : JSON.stringify(model, null, 2)}\n`,
   };
   yield { path: `${issue}card.png`, content: chartSet.card.png };
+  yield { path: `${issue}briefing.pdf`, content: chartSet.briefing };
   for (const chart of Object.values(chartSet.charts)) {
     yield { path: `${issue}charts/${chart.id}.csv`, content: chart.csv };
     yield { path: `${issue}charts/${chart.id}.vl.json`, content: chart.specJson };

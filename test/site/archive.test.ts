@@ -19,6 +19,21 @@ beforeAll(() => {
 });
 
 describe('the archive', () => {
+  it('gives every issue and language its one-page briefing PDF, linked from the overview and listed in the manifest', () => {
+    for (const issue of ['issues/2026-09/', 'issues/2026-10/', 'issues/2026-10/revisions/1/', 'issues/2026-11/'])
+      for (const prefix of ['', 'fr/']) {
+        const path = `${prefix}${issue}`;
+        expect(
+          readFileSync(join(site, path, 'briefing.pdf'))
+            .subarray(0, 5)
+            .toString('latin1'),
+          path,
+        ).toBe('%PDF-');
+        expect(read(`${path}index.html`)).toContain(`href="/${path}briefing.pdf"`);
+        expect(read(`${path}manifest.json`)).toContain('briefing.pdf');
+      }
+  });
+
   it('links each issue to the one before and after it', () => {
     expect(read('issues/2026-10/index.html')).toContain('<a rel="prev" href="/issues/2026-09/">Previous issue: September 2026</a>');
     expect(read('issues/2026-10/index.html')).toContain('<a rel="next" href="/issues/2026-11/">Next issue: November 2026</a>');
