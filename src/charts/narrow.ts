@@ -40,6 +40,8 @@ function narrowed(node: Json, key: string | null): Json {
   return out;
 }
 
+/** The narrow plot's least height: a 40-character axis title at NARROW_FONT. */
+export const NARROW_MIN_HEIGHT = 320;
 /** The narrow plot width of bars along a nominal axis, whose names take the rest of the width. */
 export const NARROW_BAR_WIDTH = 160;
 /** A map's narrow width: its graticule labels sit outside the plot on both axes. */
@@ -49,6 +51,9 @@ export function narrowSpec(spec: TopLevelSpec): TopLevelSpec {
   const out = narrowed(spec, null) as Record<string, Json>;
   const original = spec as unknown as Record<string, Json>;
   out.padding = 8;
+  // A plot at least as tall as its vertical axis title at the narrow size (about 40 characters),
+  // which would otherwise stretch the drawing with empty space above and below the plot.
+  if (typeof original.height === 'number' && !original.projection) out.height = Math.max(original.height, NARROW_MIN_HEIGHT);
   // Bars along a nominal axis (a height by step) leave room beside the plot for their names.
   if (original.height && typeof original.height === 'object' && 'step' in (original.height as object)) out.width = NARROW_BAR_WIDTH;
   // A map keeps its shape: narrower, and shorter by the same factor.

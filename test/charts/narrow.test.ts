@@ -1,7 +1,7 @@
 /** narrowSpec (src/charts/narrow.ts): the phone drawing changes layout only, never the data. */
 import { describe, expect, it } from 'vitest';
 import type { TopLevelSpec } from 'vega-lite';
-import { NARROW_BAR_WIDTH, NARROW_FONT, NARROW_MAP_WIDTH, NARROW_WIDTH, narrowSpec } from '../../src/charts/narrow.ts';
+import { NARROW_BAR_WIDTH, NARROW_FONT, NARROW_MAP_WIDTH, NARROW_MIN_HEIGHT, NARROW_WIDTH, narrowSpec } from '../../src/charts/narrow.ts';
 
 const values = [
   { name: 'a', value: 1 },
@@ -28,7 +28,8 @@ describe('narrowSpec', () => {
       config: { axis: object; legend: { orient: string } };
     };
     expect(narrow.width).toBe(NARROW_WIDTH);
-    expect(narrow.height).toBe(300);
+    // Tall enough for a vertical axis title at the narrow type size.
+    expect(narrow.height).toBe(NARROW_MIN_HEIGHT);
     expect(narrow.data).toEqual({ values });
     // The value labels drawn on the plot are left out (they are in the data table); the line stays.
     expect(narrow.layer).toHaveLength(1);
