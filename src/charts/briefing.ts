@@ -103,10 +103,10 @@ export function briefingPdf(model: BulletinModel, charts: Record<string, Rendere
   const footHeight = doc.heightOfString(footText, { width }) + 6;
   const limit = PAGE.height - PAGE.margin - footHeight;
   /** Writes a block only if it fits above the foot; false once one does not. */
-  const fits = (text: string, font: 'body' | 'bold', size: number, indent = 0) => {
+  const fits = (text: string, font: 'body' | 'bold', size: number) => {
     doc.font(font).fontSize(size);
-    if (doc.y + doc.heightOfString(text, { width: width - indent }) > limit) return false;
-    doc.fillColor(INK).text(text, left + indent, doc.y, { width: width - indent });
+    if (doc.y + doc.heightOfString(text, { width }) > limit) return false;
+    doc.fillColor(INK).text(text, left, doc.y, { width });
     return true;
   };
 

@@ -2,6 +2,7 @@
 import type { BulletinModel } from '../wording/index.ts';
 import { cardSvg } from './card.ts';
 import { briefingPdf } from './briefing.ts';
+import { siteUrl } from '../common/paths.ts';
 import { bodiesMapChart, gridMapChart, subRegionMapChart } from './maps.ts';
 import { distributionChart, medianTrendChart, sizeClassQuantileChart, trophicChart, validationChart } from './qualityCharts.ts';
 import { renderChart, svgToPng, type ChartDefinition, type RenderedChart } from './render.ts';
@@ -71,7 +72,6 @@ export async function buildCharts(model: BulletinModel, onChart?: (id: string) =
     onChart?.(`sparkline of ${body.id}`);
   }
   const svg = cardSvg(model);
-  // The issue's own address, as the pages give it (siteFiles.siteUrl).
-  const pageUrl = new URL(model.meta.issuePath.replace(/^\//, ''), model.meta.baseUrl).href;
+  const pageUrl = siteUrl(model.meta.baseUrl, model.meta.issuePath);
   return { charts, sparklines, card: { svg, png: await svgToPng(svg) }, briefing: await briefingPdf(model, charts, pageUrl) };
 }

@@ -159,9 +159,8 @@ export function gridMapChart(model: BulletinModel): ChartDefinition {
     },
     { data: { values: subRegionFeatures(model) }, mark: { type: 'geoshape', filled: false, stroke: '#000000', strokeWidth: 1.8 } },
   ]);
-  const stated = cells.filter((cell) => cell.properties.percent !== null);
-  const statedPercents = model.grid.cells.flatMap((cell) => (cell.status.kind === 'stated' ? [cell.status.percentOfBaseline] : []));
-  const belowCount = statedPercents.filter((percent) => percent < model.meta.usualFromPercent).length;
+  const stated = model.grid.cells.flatMap((cell) => (cell.status.kind === 'stated' ? [cell.status.percentOfBaseline] : []));
+  const belowCount = stated.filter((percent) => percent < model.meta.usualFromPercent).length;
   return {
     id: 'grid-map',
     title: t('map.grid.title', { month: model.meta.monthName }),

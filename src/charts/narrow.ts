@@ -1,6 +1,6 @@
 /**
- * The narrow variant of a chart, for screens under 40rem: the same marks and data drawn 300 units
- * wide with every legend below the plot and larger type, so that shown at phone width (about 330
+ * The narrow variant of a chart, for screens under 40rem: the same marks and data on a plot 240
+ * units wide (narrower for bars along names), every legend below the plot and larger type, so that shown at phone width (about 330
  * CSS px of a 360 px screen) no text is drawn smaller than 11 CSS px. The wide chart shrunk to that
  * width drew its smallest text at 3.4–6.4 px (measured in Chromium on the example, 4 December 2026).
  *
@@ -44,7 +44,7 @@ function narrowed(node: Json, key: string | null): Json {
 export const NARROW_MIN_HEIGHT = 320;
 /** The narrow plot width of bars along a nominal axis, whose names take the rest of the width. */
 export const NARROW_BAR_WIDTH = 160;
-/** A map's narrow width: its graticule labels sit outside the plot on both axes. */
+/** A map's narrow width; its height follows from its shape. */
 export const NARROW_MAP_WIDTH = 240;
 
 export function narrowSpec(spec: TopLevelSpec): TopLevelSpec {

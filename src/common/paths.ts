@@ -8,6 +8,9 @@ export function isInside(root: string, inner: string): boolean {
   return rel === '' || (rel !== '..' && !rel.startsWith(`..${sep}`) && !isAbsolute(rel));
 }
 
+/** The absolute address of a site path (`/issues/2026-11/`) under the configured base URL. */
+export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
+
 /** True when `path` is a symbolic link (not followed). */
 export function isLink(path: string): boolean {
   try {

@@ -4,6 +4,7 @@
  * configuration summary and the SHA-256 of every file under its path, and one for the site that
  * covers every other file. `limnopress verify` checks a site against them.
  */
+import { siteUrl } from '../common/paths.ts';
 import { join } from 'node:path';
 import { listFiles, sha256, sha256File } from '../common/files.ts';
 import { escapeXml } from '../text/escape.ts';
@@ -28,7 +29,7 @@ export function siteLocales(found: Iterable<string>, siteLocale: string): string
 }
 
 /** Absolute address of a site path on the published site. */
-export const siteUrl = (baseUrl: string, path: string) => new URL(path.replace(/^\//, ''), baseUrl).href;
+export { siteUrl };
 const absolute = (model: BulletinModel, path: string) => siteUrl(model.meta.baseUrl, path);
 
 function atom(models: BulletinModel[], prefix: string): string {
